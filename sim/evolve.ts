@@ -1,0 +1,179 @@
+/**
+ * The time loop, as a generator (the CLI, the worker, the tests and the benchmark drive the same loop; it never
+ * decides where output goes). Steps are chosen by the local error estimate of TR-BDF2 with the usual controller
+ * h_new = h·clamp(safety·err^(−1/3), shrink, grow) (Hairer & Wanner, Solving ODEs II, §IV.8), and land exactly on
+ * every breakpoint: schedule changes of the faces and sources, requested output times and the end of the run.
+ */
+import type { StepConditions, Workspace } from './discretization.ts';
+import { createWorkspace } from './discretization.ts';
+import { enthalpyAt } from './material.ts';
+import type { Grid } from './mesh.ts';
+import type { Problem } from './problem.ts';
+import { conditionAt, sourceAt } from './problem.ts';
+import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
+import { createStepBuffers, settleFaces, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
+
+export const evolveDefaults = {
+  /** Controller safety factor, and the bounds on the step ratio (Hairer & Wanner II §IV.8 use 0.9, 0.2, 5). */
+  safety: 0.9,
+  shrink: 0.2,
+  grow: 5,
+  /** First step, s: small enough that the controller only ever grows it at the start. */
+  firstStepS: 0.01,
+  /** Largest step right after a schedule change, s: the faces change abruptly there. */
+  stepAfterChangeS: 0.5,
+  /** Newton tolerance as a share of the error tolerance: keeps the iteration error well below the truncation error. */
+  newtonShare: 1e-3,
+  maxNewtonIterations: 12,
+  /** Newton failure: cut the step by this factor. */
+  newtonCut: 0.25,
+  /** Smallest step, as a share of the duration, before the run reports failure. */
+  minStepShare: 1e-12,
+  /** A step that would end within this share of a breakpoint is stretched onto it. */
+  landShare: 1e-6,
+} as const;
+
+export interface EvolveOptions {
+  /** Replace the adaptive step by a fixed one (s), still landing on breakpoints: for convergence studies. */
+  readonly fixedStepS?: number;
+  /** One backward-Euler stage per step (first order), for the convergence study. */
+  readonly backwardEuler?: boolean;
+}
+
+/** What each accepted step exposes. Buffers are the loop's own and valid until the generator resumes. */
+export interface StepReport {
+  readonly t0: number;
+  readonly tg: number;
+  readonly t1: number;
+  readonly buf: StepBuffers;
+  readonly ws: Workspace;
+  readonly cond: StepConditions;
+  /** Heat into the bottom and top faces over the step, and heat generated inside, J/m². */
+  readonly bottomJ: number;
+  readonly topJ: number;
+  readonly sourceJ: number;
+}
+
+export interface EvolveStats {
+  steps: number;
+  rejected: number;
+  newtonIterations: number;
+}
+
+export type EvolveEnd =
+  | { readonly status: 'ok'; readonly stats: EvolveStats }
+  | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: EvolveStats };
+
+/** Sorted, unique times in (0, duration] at which a step must end. */
+export function breakpoints(problem: Problem): number[] {
+  const set = new Set<number>([problem.durationS]);
+  for (const seg of [...problem.bottom, ...problem.top]) set.add(seg.fromS);
+  for (const layer of problem.layers) for (const s of layer.sources) { set.add(s.fromS); set.add(s.toS); }
+  for (const t of problem.outputTimesS) set.add(t);
+  return [...set].filter((t) => t > 0 && t <= problem.durationS).sort((a, b) => a - b);
+}
+
+function conditionsAt(problem: Problem, grid: Grid, tS: number, source: Float64Array): StepConditions {
+  for (let i = 0; i < grid.n; i++) source[i] = sourceAt(problem.layers[grid.layerOf[i]!]!, tS);
+  return { bottom: conditionAt(problem.bottom, tS), top: conditionAt(problem.top, tS), source };
+}
+
+/** The initial state: every cell at the initial temperature, faces balanced against it. */
+export function initialState(problem: Problem, grid: Grid, U: Float64Array): void {
+  U[0] = problem.initialK;
+  U[grid.n + 1] = problem.initialK;
+  for (let i = 0; i < grid.n; i++) U[i + 1] = enthalpyAt(grid.materials[i]!.enthalpy, problem.initialK);
+}
+
+/**
+ * Runs the problem on the grid, yielding the state at t = 0 (as a step of zero length) and after every accepted step.
+ * Returns how it ended. Never throws for numerical trouble: a failure is a returned status.
+ */
+export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {}):
+  Generator<StepReport, EvolveEnd, void> {
+  const { numerics, durationS } = problem;
+  const d = evolveDefaults;
+  const lengthM = problem.footprint ? problem.footprint.areaM2 / problem.footprint.perimeterM : 0;
+  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM });
+  const buf = createStepBuffers(grid.n);
+  const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
+  const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
+  const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0 };
+  const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
+  const backwardEuler = options.backwardEuler === true;
+  const breaks = breakpoints(problem);
+  const source = new Float64Array(grid.n);
+
+  let t = 0;
+  let nextBreak = 0;
+  let cond = conditionsAt(problem, grid, t, source);
+  initialState(problem, grid, buf.U0);
+  const settle = (): boolean => {
+    if (!settleFaces(ws, buf.U0, cond, newton.toleranceK)) return false;
+    buf.F0.set(ws.F);
+    buf.q0.set(ws.faceQ);
+    buf.T0.set(ws.T);
+    return true;
+  };
+  if (!settle()) return { status: 'failed', message: 'the face balance did not converge at t = 0 s', tS: 0, stats };
+  // report the initial state as a step of zero length
+  buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
+  yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0 };
+
+  let h = options.fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
+  const minStep = durationS * d.minStepShare;
+  while (t < durationS) {
+    while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
+    const target = breaks[nextBreak] ?? durationS;
+    let step = Math.min(options.fixedStepS ?? h, numerics.maxStepS);
+    let landing = false;
+    if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
+    else if (options.fixedStepS === undefined && t + 2 * step > target) step = 0.5 * (target - t);
+
+    takeStep(ws, buf, step, cond, newton, scale, backwardEuler, outcome);
+    stats.newtonIterations += outcome.newtonIterations;
+    if (outcome.status !== 'ok' || (options.fixedStepS === undefined && outcome.errorNorm > 1)) {
+      if (options.fixedStepS !== undefined) {
+        return { status: 'failed', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
+      }
+      stats.rejected++;
+      h = outcome.status === 'ok'
+        ? step * Math.max(d.shrink, d.safety * outcome.errorNorm ** (-1 / 3))
+        : step * d.newtonCut;
+      if (h < minStep) {
+        return { status: 'failed', message: `the time step fell below ${minStep.toExponential(1)} s at t = ${t.toFixed(3)} s (${outcome.status})`, tS: t, stats };
+      }
+      continue;
+    }
+    const t1 = landing ? target : t + step;
+    stats.steps++;
+    let sourceJ = 0;
+    for (let i = 0; i < grid.n; i++) sourceJ += step * source[i]! * grid.dx[i]!;
+    yield {
+      t0: t, tg: t + (backwardEuler ? step : step * (2 - Math.SQRT2)), t1, buf, ws, cond,
+      bottomJ: stepFaceEnergy(buf, 0, step, backwardEuler),
+      topJ: stepFaceEnergy(buf, 1, step, backwardEuler),
+      sourceJ,
+    };
+    // accept: the end state becomes the start of the next step
+    buf.U0.set(buf.U1);
+    buf.F0.set(buf.F1);
+    buf.q0.set(buf.q1);
+    buf.T0.set(ws.T);
+    if (options.fixedStepS === undefined) {
+      const ratio = outcome.errorNorm > 0 ? d.safety * outcome.errorNorm ** (-1 / 3) : d.grow;
+      // a step shortened to land on a breakpoint says nothing about the next one: grow from the controller's own h
+      h = Math.max(landing ? h : step, step) * Math.min(d.grow, Math.max(d.shrink, ratio));
+    }
+    t = t1;
+    if (landing && t < durationS) {
+      const before = cond;
+      cond = conditionsAt(problem, grid, t, source);
+      if (cond.bottom !== before.bottom || cond.top !== before.top) {
+        if (options.fixedStepS === undefined) h = Math.min(h, d.stepAfterChangeS);
+      }
+      if (!settle()) return { status: 'failed', message: `the face balance did not converge at t = ${t} s`, tS: t, stats };
+    }
+  }
+  return { status: 'ok', stats };
+}

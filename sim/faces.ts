@@ -1,0 +1,67 @@
+/**
+ * Heat into an exposed face, q(T_face) in W/m², and its derivative dq/dT for Newton:
+ *   q = q_imposed + h·(T_fluid − T) + ε·σ·(T_sur⁴ − T⁴) + G_plate·(T_plate − T)
+ * (grey surface in large isothermal surroundings, Incropera eq. 1.7; a held plate through a contact conductance).
+ * A face held at a fixed temperature is not a flux: the solver imposes T_face directly.
+ */
+import { naturalConvectionCoefficient } from './natural-convection.ts';
+import type { FaceCondition, Facing } from './problem.ts';
+import { STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
+
+export const faceDefaults = {
+  /** Temperature step of the finite-difference derivative of natural convection, K (h varies as ΔT^¼: smooth there). */
+  derivativeStepK: 1e-3,
+} as const;
+
+export interface FaceContext {
+  readonly facing: Facing;
+  /** Characteristic length A/P of the footprint, m (natural convection only). */
+  readonly lengthM: number;
+}
+
+type Terms = Extract<FaceCondition, { kind: 'terms' }>;
+
+function convectiveIn(c: Terms, ctx: FaceContext, tK: number): number {
+  switch (c.convection.kind) {
+    case 'none': return 0;
+    case 'fixed': return c.convection.coefficient * (c.fluidK - tK);
+    case 'natural': return naturalConvectionCoefficient(ctx.facing, tK, c.fluidK, ctx.lengthM) * (c.fluidK - tK);
+  }
+}
+
+/** Heat into the face at tK, W/m²; writes dq/dT (W·m⁻²·K⁻¹) to out[0]. Allocates nothing. */
+export function faceHeatIn(c: Terms, ctx: FaceContext, tK: number, out: Float64Array): number {
+  let q = c.fluxWPerM2;
+  let dq = 0;
+  const conv = c.convection;
+  if (conv.kind === 'fixed') {
+    q += conv.coefficient * (c.fluidK - tK);
+    dq -= conv.coefficient;
+  } else if (conv.kind === 'natural') {
+    const step = faceDefaults.derivativeStepK;
+    const here = convectiveIn(c, ctx, tK);
+    q += here;
+    dq += (convectiveIn(c, ctx, tK + step) - convectiveIn(c, ctx, tK - step)) / (2 * step);
+  }
+  if (c.emissivity > 0) {
+    const es = c.emissivity * STEFAN_BOLTZMANN_W_M2K4;
+    const t2 = tK * tK;
+    const s2 = c.surroundingsK * c.surroundingsK;
+    q += es * (s2 * s2 - t2 * t2);
+    dq -= 4 * es * t2 * tK;
+  }
+  if (c.plate) {
+    q += c.plate.conductance * (c.plate.tK - tK);
+    dq -= c.plate.conductance;
+  }
+  out[0] = dq;
+  return q;
+}
+
+/**
+ * Whether a face condition counts as a heat input for `heat_off_s`: a held plate, a positive imposed flux, or a face
+ * held at a fixed temperature (a plate of unbounded conductance).
+ */
+export function isHeatInput(c: FaceCondition): boolean {
+  return c.kind === 'fixed' || c.plate !== undefined || c.fluxWPerM2 > 0;
+}

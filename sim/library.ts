@@ -1,0 +1,37 @@
+/**
+ * The bundled material library (materials/*.json), each file checked against the library schema when first used.
+ * A broken library file is a programming error (the test suite checks every file), so it throws here.
+ */
+import { libraryMaterialFiles } from '../materials/index.ts';
+import { formatFieldError, formatZodIssue, type FieldError } from './field-errors.ts';
+import type { Material } from './material.ts';
+import { materialFromFile } from './material-file.ts';
+import { type LibraryMaterialFile, libraryMaterialSchema } from './scenario-schema.ts';
+
+const cache = new Map<string, Material>();
+
+export const libraryNames = (): string[] => Object.keys(libraryMaterialFiles).sort();
+
+/** The checked file of a library material, or undefined if there is none by that exact name. */
+export function libraryFile(name: string): LibraryMaterialFile | undefined {
+  if (!Object.hasOwn(libraryMaterialFiles, name)) return undefined;
+  const parsed = libraryMaterialSchema.safeParse(libraryMaterialFiles[name], { reportInput: true });
+  if (!parsed.success) {
+    const why = parsed.error.issues.flatMap(formatZodIssue).map(formatFieldError).join('; ');
+    throw new Error(`materials/${name}.json is invalid: ${why}`);
+  }
+  return parsed.data;
+}
+
+/** The library material by exact name, built once. */
+export function libraryMaterial(name: string): Material | undefined {
+  const hit = cache.get(name);
+  if (hit) return hit;
+  const file = libraryFile(name);
+  if (!file) return undefined;
+  const errors: FieldError[] = [];
+  const material = materialFromFile(name, file, `materials/${name}.json`, errors);
+  if (errors.length > 0) throw new Error(errors.map(formatFieldError).join('; '));
+  cache.set(name, material);
+  return material;
+}

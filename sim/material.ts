@@ -1,0 +1,250 @@
+/**
+ * Property models of one material, in SI: conductivity k(T) and volumetric enthalpy H(T), and the inverse T(H).
+ *
+ * Enthalpy method (Voller & Swaminathan 1990; Alexiades & Solomon 1993, ch. 4): the volumetric enthalpy is
+ *   H(T) = ∫ ρ c_p(T') dT' + ρ L f(T),
+ * with f the liquid fraction, a linear ramp from 0 at the solidus to 1 at the liquidus (a jump when they are equal).
+ * c_p is tabulated and linear between rows, so the effective capacity C(T) = dH/dT is piecewise linear between the
+ * knots {table rows, solidus, liquidus}; H(T) is piecewise quadratic and T(H) is inverted in closed form on each
+ * segment. This conserves energy exactly through the phase change: the solver's unknown is H, never T.
+ * Outside the tables the end values are held (flat c_p and k), so H is extended linearly.
+ */
+import type { LimitKind } from './scenario-schema.ts';
+
+/** A piecewise-linear table y(T), flat outside its range. Temperatures in K. */
+export interface Table {
+  readonly tK: Float64Array;
+  readonly y: Float64Array;
+}
+
+/**
+ * Volumetric enthalpy curve, J/m³ against K. Knot i sits at (tK[i], h[i]); on segment i (knot i to i+1) the capacity
+ * runs linearly from cLeft[i] to cRight[i] (J·m⁻³·K⁻¹). A segment with tK[i] === tK[i+1] is an isothermal latent jump.
+ */
+export interface EnthalpyCurve {
+  readonly tK: Float64Array;
+  readonly h: Float64Array;
+  readonly cLeft: Float64Array;
+  readonly cRight: Float64Array;
+  /** Enthalpies (J/m³) where the capacity jumps (solidus and liquidus): Newton updates stop there, not across. */
+  readonly kinks: Float64Array;
+}
+
+export interface Melt {
+  readonly solidusK: number;
+  readonly liquidusK: number;
+  /** J/kg */
+  readonly latentJPerKg: number;
+  /** H at the solidus (all solid) and at the liquidus (all liquid), J/m³. */
+  readonly hSolidus: number;
+  readonly hLiquidus: number;
+}
+
+export interface Limit {
+  readonly kind: LimitKind;
+  readonly atK: number;
+  readonly source?: string | undefined;
+  readonly note?: string | undefined;
+}
+
+export interface Material {
+  readonly name: string;
+  readonly title: string;
+  /** W·m⁻¹·K⁻¹ */
+  readonly conductivity: Table;
+  /** kg/m³ */
+  readonly density: number;
+  /** J·kg⁻¹·K⁻¹ */
+  readonly specificHeat: Table;
+  readonly enthalpy: EnthalpyCurve;
+  readonly melt: Melt | undefined;
+  readonly limits: readonly Limit[];
+  readonly sources: Readonly<Record<string, string>>;
+}
+
+/** Evaluates a table at T (K): linear between rows, the end value outside. */
+export function evalTable(table: Table, tK: number): number {
+  const { tK: xs, y } = table;
+  const n = xs.length;
+  if (n === 1 || tK <= xs[0]!) return y[0]!;
+  if (tK >= xs[n - 1]!) return y[n - 1]!;
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid]! <= tK) lo = mid;
+    else hi = mid;
+  }
+  const x0 = xs[lo]!;
+  const y0 = y[lo]!;
+  return y0 + ((y[hi]! - y0) * (tK - x0)) / (xs[hi]! - x0);
+}
+
+export interface MaterialInput {
+  readonly name: string;
+  readonly title: string;
+  readonly conductivity: Table;
+  readonly density: number;
+  readonly specificHeat: Table;
+  readonly melt?: { solidusK: number; liquidusK: number; latentJPerKg: number } | undefined;
+  readonly limits: readonly Limit[];
+  readonly sources: Readonly<Record<string, string>>;
+}
+
+/** Builds the enthalpy curve and melt bookkeeping of a material. The caller has validated the inputs. */
+export function buildMaterial(input: MaterialInput): Material {
+  const { density, specificHeat, melt } = input;
+  const knotSet = new Set<number>(specificHeat.tK);
+  if (melt) {
+    knotSet.add(melt.solidusK);
+    knotSet.add(melt.liquidusK);
+  }
+  const temps = [...knotSet].sort((a, b) => a - b);
+  const latentDensity = melt && melt.liquidusK > melt.solidusK
+    ? (density * melt.latentJPerKg) / (melt.liquidusK - melt.solidusK)
+    : 0;
+  const inMush = (a: number, b: number) => melt !== undefined && a >= melt.solidusK && b <= melt.liquidusK;
+  const sensible = (t: number) => density * evalTable(specificHeat, t);
+
+  const tK: number[] = [temps[0]!];
+  const h: number[] = [0];
+  const cLeft: number[] = [];
+  const cRight: number[] = [];
+  let hSolidus = Number.NaN;
+  let hLiquidus = Number.NaN;
+  const isothermalJump = melt !== undefined && melt.liquidusK === melt.solidusK;
+  const atKnot = (t: number, hNow: number) => {
+    if (!melt) return hNow;
+    if (t === melt.solidusK) {
+      hSolidus = hNow;
+      if (isothermalJump) {
+        const jumped = hNow + density * melt.latentJPerKg;
+        cLeft.push(sensible(t));
+        cRight.push(sensible(t));
+        tK.push(t);
+        h.push(jumped);
+        hLiquidus = jumped;
+        return jumped;
+      }
+    }
+    if (t === melt.liquidusK && !isothermalJump) hLiquidus = hNow;
+    return hNow;
+  };
+  let hNow = atKnot(temps[0]!, 0);
+  h[h.length - 1] = hNow;
+  for (let i = 0; i + 1 < temps.length; i++) {
+    const a = temps[i]!;
+    const b = temps[i + 1]!;
+    const extra = inMush(a, b) ? latentDensity : 0;
+    const cl = sensible(a) + extra;
+    const cr = sensible(b) + extra;
+    cLeft.push(cl);
+    cRight.push(cr);
+    hNow += ((b - a) * (cl + cr)) / 2;
+    tK.push(b);
+    h.push(hNow);
+    hNow = atKnot(b, hNow);
+  }
+  const enthalpy: EnthalpyCurve = {
+    tK: Float64Array.from(tK),
+    h: Float64Array.from(h),
+    cLeft: Float64Array.from(cLeft),
+    cRight: Float64Array.from(cRight),
+    kinks: melt ? Float64Array.of(hSolidus, hLiquidus) : new Float64Array(0),
+  };
+  return {
+    name: input.name,
+    title: input.title,
+    conductivity: input.conductivity,
+    density,
+    specificHeat,
+    enthalpy,
+    melt: melt ? { ...melt, hSolidus, hLiquidus } : undefined,
+    limits: input.limits,
+    sources: input.sources,
+  };
+}
+
+/** H(T), J/m³, for T in K. */
+export function enthalpyAt(curve: EnthalpyCurve, tK: number): number {
+  const { tK: xs, h, cLeft, cRight } = curve;
+  const last = xs.length - 1;
+  if (last === 0 || tK <= xs[0]!) {
+    const c0 = cLeft.length > 0 ? cLeft[0]! : 1;
+    return h[0]! + c0 * (tK - xs[0]!);
+  }
+  if (tK >= xs[last]!) {
+    const cEnd = cRight.length > 0 ? cRight[last - 1]! : 1;
+    return h[last]! + cEnd * (tK - xs[last]!);
+  }
+  let i = 0;
+  while (i + 1 < last && xs[i + 1]! <= tK) i++;
+  // exactly at an isothermal melt point the search has passed the jump, so H(T) takes the liquid side there.
+  const width = xs[i + 1]! - xs[i]!;
+  if (width === 0) return h[i]!;
+  const d = tK - xs[i]!;
+  const slope = (cRight[i]! - cLeft[i]!) / width;
+  return h[i]! + cLeft[i]! * d + 0.5 * slope * d * d;
+}
+
+/**
+ * T(H) in K, and dT/dH (K·m³/J) written to `out[0]`, `out[1]`. Zero slope on an isothermal jump.
+ * `hint` is the segment index where the search starts (the previous answer for this cell); the new index is returned.
+ * Overwrites `out[0..1]`. Allocates nothing.
+ */
+export function temperatureOf(curve: EnthalpyCurve, hJ: number, hint: number, out: Float64Array): number {
+  const { tK: xs, h, cLeft, cRight } = curve;
+  const last = xs.length - 1;
+  if (last === 0) {
+    // a single knot only happens for constant c_p without melt: linear both ways
+    const c = cLeft.length > 0 ? cLeft[0]! : 1;
+    out[0] = xs[0]! + (hJ - h[0]!) / c;
+    out[1] = 1 / c;
+    return 0;
+  }
+  if (hJ <= h[0]!) {
+    const c = cLeft[0]!;
+    out[0] = xs[0]! + (hJ - h[0]!) / c;
+    out[1] = 1 / c;
+    return -1;
+  }
+  if (hJ >= h[last]!) {
+    const c = cRight[last - 1]!;
+    out[0] = xs[last]! + (hJ - h[last]!) / c;
+    out[1] = 1 / c;
+    return last;
+  }
+  let i = hint < 0 ? 0 : hint >= last ? last - 1 : hint;
+  while (i > 0 && hJ < h[i]!) i--;
+  while (i + 1 < last && hJ >= h[i + 1]!) i++;
+  const width = xs[i + 1]! - xs[i]!;
+  if (width === 0) {
+    out[0] = xs[i]!;
+    out[1] = 0;
+    return i;
+  }
+  const cl = cLeft[i]!;
+  const slope = (cRight[i]! - cl) / width;
+  const dh = hJ - h[i]!;
+  // root of ½·s·d² + c_l·d − ΔH = 0 in the cancellation-free form
+  const root = Math.sqrt(Math.max(cl * cl + 2 * slope * dh, 0));
+  const d = (2 * dh) / (cl + root);
+  out[0] = xs[i]! + d;
+  out[1] = 1 / (cl + slope * d);
+  return i;
+}
+
+/** Liquid fraction in [0, 1] from H (J/m³) and its T (K): linear in T over the mushy range, linear in H on a jump. */
+export function liquidFractionOf(material: Material, hJ: number, tK: number): number {
+  const melt = material.melt;
+  if (!melt) return 0;
+  if (hJ <= melt.hSolidus) return 0;
+  if (hJ >= melt.hLiquidus) return 1;
+  if (melt.liquidusK === melt.solidusK) return (hJ - melt.hSolidus) / (melt.hLiquidus - melt.hSolidus);
+  return (tK - melt.solidusK) / (melt.liquidusK - melt.solidusK);
+}
+
+/** Sensible volumetric heat capacity ρ·c_p(T), J·m⁻³·K⁻¹, used to scale enthalpy errors to kelvin. */
+export function sensibleCapacity(material: Material, tK: number): number {
+  return material.density * evalTable(material.specificHeat, tK);
+}

@@ -1,0 +1,107 @@
+/**
+ * The problem as the solver sees it: a validated scenario converted to SI (m, s, K, W). Plain readonly data; built
+ * only by scenario.ts. Face conditions are discriminated unions, so a held face can carry no other term.
+ */
+import type { Material } from './material.ts';
+
+export type Convection =
+  | { readonly kind: 'none' }
+  | { readonly kind: 'fixed'; /** W·m⁻²·K⁻¹ */ readonly coefficient: number }
+  | { readonly kind: 'natural' };
+
+export interface Plate {
+  readonly tK: number;
+  /** W·m⁻²·K⁻¹ */
+  readonly conductance: number;
+}
+
+/** The terms of a face condition. With none it is adiabatic. */
+export type FaceCondition =
+  | { readonly kind: 'fixed'; readonly tK: number }
+  | {
+      readonly kind: 'terms';
+      /** Heat into the face, W/m² (flux plus heater power over the footprint). */
+      readonly fluxWPerM2: number;
+      readonly convection: Convection;
+      readonly fluidK: number;
+      readonly emissivity: number;
+      readonly surroundingsK: number;
+      readonly plate: Plate | undefined;
+    };
+
+export interface FaceSegment {
+  readonly fromS: number;
+  readonly condition: FaceCondition;
+}
+
+/** Which way an exposed face looks: it picks the natural-convection correlation. */
+export type Facing = 'down' | 'up';
+
+export interface SourceInterval {
+  readonly fromS: number;
+  readonly toS: number;
+  /** W/m³ */
+  readonly value: number;
+}
+
+export interface Layer {
+  readonly id: string;
+  readonly material: Material;
+  readonly thicknessM: number;
+  readonly separator: boolean;
+  readonly sources: readonly SourceInterval[];
+  readonly cells: number | undefined;
+}
+
+export interface Footprint {
+  readonly areaM2: number;
+  readonly perimeterM: number;
+}
+
+export interface Numerics {
+  /** Local error tolerance per step, in kelvin-equivalent enthalpy (error in H divided by ρc_p). */
+  readonly toleranceK: number;
+  /** Local error tolerance per step on liquid fractions (a share of the latent heat). */
+  readonly liquidFractionTolerance: number;
+  readonly cellsPerMm: number;
+  readonly minCellsPerLayer: number;
+  readonly maxStepS: number;
+}
+
+export interface Problem {
+  readonly name: string;
+  readonly ambientK: number;
+  readonly initialK: number;
+  readonly durationS: number;
+  readonly footprint: Footprint | undefined;
+  /** Bottom to top. */
+  readonly layers: readonly Layer[];
+  /** Contact resistance between layer i and layer i+1, m²·K/W (length layers − 1). */
+  readonly contactResistances: readonly number[];
+  readonly bottom: readonly FaceSegment[];
+  readonly top: readonly FaceSegment[];
+  readonly outputTimesS: readonly number[];
+  readonly probesM: readonly number[];
+  readonly numerics: Numerics;
+}
+
+/** The condition that holds on a face at time t (s): the last segment with fromS ≤ t; adiabatic before the first. */
+export function conditionAt(segments: readonly FaceSegment[], tS: number): FaceCondition {
+  let found: FaceCondition = ADIABATIC;
+  for (const seg of segments) {
+    if (seg.fromS <= tS) found = seg.condition;
+    else break;
+  }
+  return found;
+}
+
+export const ADIABATIC: FaceCondition = {
+  kind: 'terms', fluxWPerM2: 0, convection: { kind: 'none' }, fluidK: 0, emissivity: 0, surroundingsK: 0, plate: undefined,
+};
+
+/** Volumetric source of a layer at time t (s), W/m³: the sum of the intervals with fromS ≤ t < toS. */
+export function sourceAt(layer: Layer, tS: number): number {
+  let sum = 0;
+  for (const s of layer.sources) if (s.fromS <= tS && tS < s.toS) sum += s.value;
+  return sum;
+}

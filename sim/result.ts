@@ -1,0 +1,50 @@
+/**
+ * The result document of `freezeline run FILE --json` (DESIGN.md, "Result"): summary, probes and series, with a few
+ * additions (warnings, solver statistics, per-layer limit lists). Every number is finite: a NaN or infinity here is
+ * an internal error, reported as such rather than written as null.
+ */
+import type { EvolveStats } from './evolve.ts';
+import type { Grid } from './mesh.ts';
+import type { Problem } from './problem.ts';
+import type { RunRecord } from './record.ts';
+import type { Summary } from './verdict.ts';
+
+export interface ResultDocument {
+  readonly summary: Summary & { readonly warnings: readonly string[] };
+  readonly probes: { readonly x_mm: readonly number[]; readonly t_s: readonly number[]; readonly T_C: readonly (readonly number[])[] };
+  readonly series: {
+    readonly t_s: readonly number[];
+    readonly layers: Readonly<Record<string, { min_C: number[]; mean_C: number[]; max_C: number[]; liquid_fraction?: number[] }>>;
+    readonly faces: { readonly bottom_C: readonly number[]; readonly top_C: readonly number[] };
+  };
+  readonly solver: { readonly cells: number; readonly steps: number; readonly rejected_steps: number; readonly newton_iterations: number };
+}
+
+export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, summary: Summary, stats: EvolveStats): ResultDocument {
+  const layers: Record<string, { min_C: number[]; mean_C: number[]; max_C: number[]; liquid_fraction?: number[] }> = {};
+  for (const l of record.layers) {
+    layers[l.id] = {
+      min_C: Array.from(l.minC), mean_C: Array.from(l.meanC), max_C: Array.from(l.maxC),
+      ...(l.liquidFraction && problem.layers.find((p) => p.id === l.id)?.separator ? { liquid_fraction: Array.from(l.liquidFraction) } : {}),
+    };
+  }
+  const doc: ResultDocument = {
+    summary: { ...summary, warnings: record.warnings },
+    probes: { x_mm: record.probes.xMm, t_s: record.probes.tS, T_C: record.probes.tC },
+    series: { t_s: Array.from(record.tS), layers, faces: { bottom_C: Array.from(record.bottomC), top_C: Array.from(record.topC) } },
+    solver: { cells: grid.n, steps: stats.steps, rejected_steps: stats.rejected, newton_iterations: stats.newtonIterations },
+  };
+  assertFinite(doc, 'result');
+  return doc;
+}
+
+/** Throws if any number in a JSON-like value is NaN or infinite (null is allowed: it means "never"). */
+export function assertFinite(value: unknown, path: string): void {
+  if (typeof value === 'number') {
+    if (!Number.isFinite(value)) throw new Error(`internal error: ${path} is ${value}`);
+  } else if (Array.isArray(value)) {
+    value.forEach((v, i) => assertFinite(v, `${path}[${i}]`));
+  } else if (typeof value === 'object' && value !== null) {
+    for (const [k, v] of Object.entries(value)) assertFinite(v, `${path}.${k}`);
+  }
+}

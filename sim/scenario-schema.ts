@@ -1,0 +1,147 @@
+/**
+ * The scenario file (format version 1): its shape, as a zod schema. This is the contract of DESIGN.md; every key is
+ * accepted with exactly that meaning, and unknown keys are refused so a misspelt key is never silently ignored.
+ * Units are in the key names (_mm, _C, _s, _W_m2, _W_m2K, _W_m3, _J_kg, _kg_m3, _W_mK, _J_kgK, _m2K_W).
+ *
+ * Checks that need more than one field (material names, adjacency of contacts, probe positions, time order) live in
+ * scenario.ts, which runs after this shape check and reports errors in the same `path: message, got value` form.
+ */
+import { z } from 'zod';
+import { ZERO_CELSIUS_K } from './units.ts';
+
+/** The coldest temperature a °C field may hold: absolute zero. */
+const ABSOLUTE_ZERO_C = -ZERO_CELSIUS_K;
+
+const celsius = () => z.number().gte(ABSOLUTE_ZERO_C, { error: `must be ≥ ${ABSOLUTE_ZERO_C} °C (absolute zero)` });
+const positive = () => z.number().gt(0, { error: 'must be > 0' });
+const nonNegative = () => z.number().gte(0, { error: 'must be ≥ 0' });
+const timeS = () => z.number().gte(0, { error: 'must be ≥ 0 s' });
+
+/** A property: one number, or a table [[T_C, value], ...] with strictly increasing temperatures (checked later). */
+const property = () =>
+  z.union([
+    positive(),
+    z.array(z.tuple([celsius(), positive()]), { error: 'must be a number or a table [[T_C, value], ...]' })
+      .min(1, { error: 'must have at least one row' }),
+  ], { error: 'must be a number > 0 or a table [[T_C, value], ...]' });
+
+export const LIMIT_KINDS = ['melt', 'ignition', 'decomposition', 'softening', 'service'] as const;
+export type LimitKind = (typeof LIMIT_KINDS)[number];
+
+const limitSchema = z.strictObject({
+  kind: z.enum(LIMIT_KINDS, { error: `must be one of ${LIMIT_KINDS.join(', ')}` }),
+  at_C: celsius(),
+  source: z.string().optional(),
+  note: z.string().optional(),
+});
+
+const meltSchema = z.strictObject({
+  solidus_C: celsius(),
+  liquidus_C: celsius(),
+  latent_J_kg: nonNegative(),
+});
+
+/** Material fields shared by inline materials (scenario) and library files (materials/*.json). */
+const materialFields = {
+  title: z.string().optional(),
+  k_W_mK: property(),
+  rho_kg_m3: positive(),
+  cp_J_kgK: property(),
+  melt: meltSchema.optional(),
+  limits: z.array(limitSchema).optional(),
+  emissivity: z.strictObject({
+    low: z.number().gte(0).lte(1),
+    high: z.number().gte(0).lte(1),
+    note: z.string().optional(),
+    source: z.string().optional(),
+  }).optional(),
+  sources: z.record(z.string(), z.string()).optional(),
+  notes: z.string().optional(),
+};
+
+export const inlineMaterialSchema = z.strictObject(materialFields);
+
+export const libraryMaterialSchema = z.strictObject({
+  freezeline_material: z.literal(1, { error: 'must be 1 (the material format version)' }),
+  name: z.string().min(1),
+  ...materialFields,
+  sources: z.record(z.string(), z.string()),
+});
+
+const scheduledValue = z.strictObject({ from_s: timeS(), to_s: timeS(), value: z.number() });
+
+const layerSchema = z.strictObject({
+  id: z.string().min(1, { error: 'must not be empty' }),
+  material: z.string().min(1, { error: 'must not be empty' }),
+  thickness_mm: positive(),
+  separator: z.boolean().optional(),
+  /** Volumetric heat source, W/m³: a constant, or intervals [from_s, to_s) each with a value. */
+  source_W_m3: z.union([z.number(), z.array(scheduledValue)], {
+    error: 'must be a number or a list of { from_s, to_s, value }',
+  }).optional(),
+  /** Optional override of the cell count in this layer (default: chosen from the layer's thickness). */
+  cells: z.number().int({ error: 'must be a whole number' }).gte(1, { error: 'must be ≥ 1' }).optional(),
+});
+
+const contactSchema = z.strictObject({
+  below: z.string(),
+  above: z.string(),
+  resistance_m2K_W: nonNegative(),
+});
+
+const plateSchema = z.strictObject({ temperature_C: celsius(), conductance_W_m2K: positive() });
+
+/** One segment of a face schedule: the sum of its terms holds from `from_s` until the next segment. */
+const faceSegmentSchema = z.strictObject({
+  from_s: timeS(),
+  flux_W_m2: z.number().optional(),
+  /** Heater power into the face, W, spread over the footprint (an addition to the contract; needs `footprint`). */
+  power_W: z.number().optional(),
+  convection_W_m2K: z.union([nonNegative(), z.literal('natural')], {
+    error: 'must be a number ≥ 0 or "natural"',
+  }).optional(),
+  fluid_C: celsius().optional(),
+  emissivity: z.number().gte(0, { error: 'must be in [0, 1]' }).lte(1, { error: 'must be in [0, 1]' }).optional(),
+  surroundings_C: celsius().optional(),
+  plate: plateSchema.optional(),
+  fixed_C: celsius().optional(),
+});
+
+const footprintSchema = z.union([
+  z.strictObject({ diameter_mm: positive() }),
+  z.strictObject({ width_mm: positive(), length_mm: positive() }),
+], { error: 'must be { "diameter_mm": d } or { "width_mm": w, "length_mm": l }' });
+
+export const scenarioSchema = z.strictObject({
+  freezeline: z.literal(1, { error: 'must be 1 (the only scenario format version this program reads)' }),
+  name: z.string().optional(),
+  description: z.string().optional(),
+  ambient_C: celsius(),
+  initial_C: celsius().optional(),
+  duration_s: positive(),
+  footprint: footprintSchema.optional(),
+  materials: z.record(z.string(), inlineMaterialSchema).optional(),
+  layers: z.array(layerSchema).min(1, { error: 'must hold at least one layer' }),
+  contacts: z.array(contactSchema).optional(),
+  bottom: z.array(faceSegmentSchema),
+  top: z.array(faceSegmentSchema),
+  output: z.strictObject({
+    times_s: z.array(timeS()).optional(),
+    probes_mm: z.array(nonNegative()).optional(),
+  }).optional(),
+  /** Numerical settings; the defaults meet the accuracy stated in DEVELOPERS.md. */
+  numerics: z.strictObject({
+    tolerance_K: positive().optional(),
+    liquid_fraction_tolerance: positive().optional(),
+    cells_per_mm: positive().optional(),
+    min_cells_per_layer: z.number().int().gte(1).optional(),
+    max_step_s: positive().optional(),
+  }).optional(),
+});
+
+export type ScenarioFile = z.infer<typeof scenarioSchema>;
+export type InlineMaterialFile = z.infer<typeof inlineMaterialSchema>;
+export type LibraryMaterialFile = z.infer<typeof libraryMaterialSchema>;
+export type FaceSegmentFile = z.infer<typeof faceSegmentSchema>;
+export type LayerFile = z.infer<typeof layerSchema>;
+export type PropertyFile = z.infer<ReturnType<typeof property>>;

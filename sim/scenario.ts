@@ -1,0 +1,219 @@
+/**
+ * Reading a scenario: JSON text or a parsed value → a checked Problem in SI, or a list of field errors.
+ * Every error names the field path and the value (`layers[1].thickness_mm: must be > 0, got -1.5`); nothing is
+ * clamped or guessed. Material names are looked up in the scenario's own `materials`, then in the bundled library
+ * (materials/), by exact name in a map: a name is never read as a path, and `__proto__` is just an unknown name.
+ */
+import type { Material } from './material.ts';
+import { materialFromFile } from './material-file.ts';
+import type { FaceCondition, FaceSegment, Footprint, Layer, Problem } from './problem.ts';
+import { formatZodIssue, type FieldError } from './field-errors.ts';
+import { libraryMaterial } from './library.ts';
+import type { FaceSegmentFile, ScenarioFile } from './scenario-schema.ts';
+import { scenarioSchema } from './scenario-schema.ts';
+import { cToK, mmToM } from './units.ts';
+
+const show = (v: unknown): string => JSON.stringify(v);
+
+export type { FieldError } from './field-errors.ts';
+
+export const scenarioDefaults = {
+  /** Local error tolerance, K-equivalent: meets the 0.1 % event-time accuracy at 4× refinement (tests/convergence). */
+  toleranceK: 0.05,
+  liquidFractionTolerance: 1e-3,
+  /** Cells per millimetre of layer, and the floor per layer. */
+  cellsPerMm: 4,
+  minCellsPerLayer: 8,
+  /** Largest step as a share of the duration, so the curves are drawn smoothly. */
+  maxStepShare: 1 / 200,
+} as const;
+
+export type ParseResult =
+  | { readonly ok: true; readonly scenario: ScenarioFile; readonly problem: Problem }
+  | { readonly ok: false; readonly errors: readonly FieldError[] };
+
+const MATERIAL_NAME = /^[A-Za-z0-9][A-Za-z0-9_.+-]*$/;
+
+/** Parses scenario JSON text. */
+export function parseScenarioText(text: string): ParseResult {
+  if (text.trim() === '') return fail('(file)', 'is empty; expected a JSON object');
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch (e) {
+    return fail('(file)', `is not valid JSON (${(e as Error).message})`);
+  }
+  return parseScenario(value);
+}
+
+/** Checks a parsed JSON value against the contract and builds the Problem. */
+export function parseScenario(value: unknown): ParseResult {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    return fail('(file)', `must be a JSON object, got ${value === null ? 'null' : Array.isArray(value) ? 'an array' : typeof value}`);
+  }
+  const shape = scenarioSchema.safeParse(value, { reportInput: true });
+  if (!shape.success) return { ok: false, errors: shape.error.issues.flatMap(formatZodIssue) };
+  const errors: FieldError[] = [];
+  const problem = buildProblem(shape.data, errors);
+  if (errors.length > 0 || !problem) return { ok: false, errors };
+  return { ok: true, scenario: shape.data, problem };
+}
+
+function fail(path: string, message: string): ParseResult {
+  return { ok: false, errors: [{ path, message }] };
+}
+
+
+function footprintOf(f: ScenarioFile['footprint']): Footprint | undefined {
+  if (!f) return undefined;
+  if ('diameter_mm' in f) {
+    const d = mmToM(f.diameter_mm);
+    return { areaM2: (Math.PI * d * d) / 4, perimeterM: Math.PI * d };
+  }
+  const w = mmToM(f.width_mm);
+  const l = mmToM(f.length_mm);
+  return { areaM2: w * l, perimeterM: 2 * (w + l) };
+}
+
+function faceSchedule(segments: readonly FaceSegmentFile[], side: 'bottom' | 'top', s: ScenarioFile,
+  footprint: Footprint | undefined, errors: FieldError[]): FaceSegment[] {
+  const ambientK = cToK(s.ambient_C);
+  return segments.map((seg, i) => {
+    const path = `${side}[${i}]`;
+    if (i > 0 && !(seg.from_s > segments[i - 1]!.from_s)) {
+      errors.push({ path: `${path}.from_s`, message: `segments must be in time order, got ${seg.from_s} after ${segments[i - 1]!.from_s}` });
+    }
+    if (seg.from_s > s.duration_s) {
+      errors.push({ path: `${path}.from_s`, message: `must be ≤ duration_s (${s.duration_s}), got ${seg.from_s}` });
+    }
+    let condition: FaceCondition;
+    if (seg.fixed_C !== undefined) {
+      const others = (['flux_W_m2', 'power_W', 'convection_W_m2K', 'fluid_C', 'emissivity', 'surroundings_C', 'plate'] as const)
+        .filter((k) => seg[k] !== undefined);
+      if (others.length > 0) {
+        errors.push({ path: `${path}.fixed_C`, message: `a held face takes no other term, got also ${others.join(', ')}` });
+      }
+      condition = { kind: 'fixed', tK: cToK(seg.fixed_C) };
+    } else {
+      const needsFootprint = seg.convection_W_m2K === 'natural' ? 'convection_W_m2K' : seg.power_W !== undefined ? 'power_W' : undefined;
+      if (needsFootprint && !footprint) {
+        errors.push({ path: `${path}.${needsFootprint}`, message: `needs the scenario's footprint, got ${show(seg[needsFootprint])} without one` });
+      }
+      const conv = seg.convection_W_m2K;
+      condition = {
+        kind: 'terms',
+        fluxWPerM2: (seg.flux_W_m2 ?? 0) + (seg.power_W !== undefined && footprint ? seg.power_W / footprint.areaM2 : 0),
+        convection: conv === undefined || conv === 0 ? { kind: 'none' } : conv === 'natural' ? { kind: 'natural' } : { kind: 'fixed', coefficient: conv },
+        fluidK: seg.fluid_C !== undefined ? cToK(seg.fluid_C) : ambientK,
+        emissivity: seg.emissivity ?? 0,
+        surroundingsK: seg.surroundings_C !== undefined ? cToK(seg.surroundings_C) : ambientK,
+        plate: seg.plate ? { tK: cToK(seg.plate.temperature_C), conductance: seg.plate.conductance_W_m2K } : undefined,
+      };
+    }
+    return { fromS: seg.from_s, condition };
+  });
+}
+
+function resolveMaterials(s: ScenarioFile, errors: FieldError[]): Map<string, Material> {
+  const found = new Map<string, Material>();
+  const inline = s.materials ?? {};
+  for (const name of Object.keys(inline)) {
+    if (!MATERIAL_NAME.test(name)) {
+      errors.push({ path: `materials.${name}`, message: `a material name starts with a letter or digit and holds only letters, digits and _ . + -, got ${show(name)}` });
+      continue;
+    }
+    found.set(name, materialFromFile(name, inline[name]!, `materials.${name}`, errors));
+  }
+  s.layers.forEach((layer, i) => {
+    if (found.has(layer.material)) return;
+    const lib = MATERIAL_NAME.test(layer.material) ? libraryMaterial(layer.material) : undefined;
+    if (lib) found.set(layer.material, lib);
+    else errors.push({ path: `layers[${i}].material`, message: `unknown material (not in this file's materials nor in the library), got ${show(layer.material)}` });
+  });
+  return found;
+}
+
+function buildLayers(s: ScenarioFile, materials: Map<string, Material>, errors: FieldError[]): Layer[] {
+  const seen = new Set<string>();
+  return s.layers.map((l, i) => {
+    if (seen.has(l.id)) errors.push({ path: `layers[${i}].id`, message: `layer ids must be unique, got ${show(l.id)} twice` });
+    seen.add(l.id);
+    const material = materials.get(l.material);
+    if (l.separator && material && !material.melt) {
+      errors.push({ path: `layers[${i}].separator`, message: `the separator's material must have melt data, got ${show(l.material)} without` });
+    }
+    const src = l.source_W_m3;
+    const sources = src === undefined ? [] : typeof src === 'number' ? [{ fromS: 0, toS: s.duration_s, value: src }]
+      : src.map((iv, j) => {
+        if (!(iv.to_s > iv.from_s)) {
+          errors.push({ path: `layers[${i}].source_W_m3[${j}].to_s`, message: `must be > from_s (${iv.from_s}), got ${iv.to_s}` });
+        }
+        return { fromS: iv.from_s, toS: iv.to_s, value: iv.value };
+      });
+    return {
+      id: l.id, material: material as Material, thicknessM: mmToM(l.thickness_mm),
+      separator: l.separator === true, sources, cells: l.cells,
+    };
+  });
+}
+
+function contactResistances(s: ScenarioFile, errors: FieldError[]): number[] {
+  const index = new Map(s.layers.map((l, i) => [l.id, i] as const));
+  const resistances = new Array<number>(Math.max(s.layers.length - 1, 0)).fill(0);
+  const set = new Set<number>();
+  (s.contacts ?? []).forEach((c, i) => {
+    const below = index.get(c.below);
+    const above = index.get(c.above);
+    if (below === undefined) errors.push({ path: `contacts[${i}].below`, message: `unknown layer id, got ${show(c.below)}` });
+    if (above === undefined) errors.push({ path: `contacts[${i}].above`, message: `unknown layer id, got ${show(c.above)}` });
+    if (below === undefined || above === undefined) return;
+    if (above !== below + 1) {
+      errors.push({ path: `contacts[${i}].above`, message: `must be the layer directly above ${show(c.below)} (${show(s.layers[below + 1]?.id ?? null)}), got ${show(c.above)}` });
+      return;
+    }
+    if (set.has(below)) errors.push({ path: `contacts[${i}]`, message: `this interface already has a contact, got ${show(c.below)}/${show(c.above)} twice` });
+    set.add(below);
+    resistances[below] = c.resistance_m2K_W;
+  });
+  return resistances;
+}
+
+function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefined {
+  const materials = resolveMaterials(s, errors);
+  const layers = buildLayers(s, materials, errors);
+  const contacts = contactResistances(s, errors);
+  const footprint = footprintOf(s.footprint);
+  const bottom = faceSchedule(s.bottom, 'bottom', s, footprint, errors);
+  const top = faceSchedule(s.top, 'top', s, footprint, errors);
+  const totalMm = s.layers.reduce((a, l) => a + l.thickness_mm, 0);
+  const times = s.output?.times_s ?? [];
+  times.forEach((t, i) => {
+    if (t > s.duration_s) errors.push({ path: `output.times_s[${i}]`, message: `must be within [0, duration_s = ${s.duration_s}], got ${t}` });
+  });
+  const probes = s.output?.probes_mm ?? [];
+  probes.forEach((x, i) => {
+    if (x > totalMm) errors.push({ path: `output.probes_mm[${i}]`, message: `must be within the stack [0, ${totalMm}] mm, got ${x}` });
+  });
+  if (errors.length > 0) return undefined;
+  const num = s.numerics ?? {};
+  return {
+    name: s.name ?? 'untitled scenario',
+    ambientK: cToK(s.ambient_C),
+    initialK: cToK(s.initial_C ?? s.ambient_C),
+    durationS: s.duration_s,
+    footprint,
+    layers,
+    contactResistances: contacts,
+    bottom,
+    top,
+    outputTimesS: times,
+    probesM: probes.map(mmToM),
+    numerics: {
+      toleranceK: num.tolerance_K ?? scenarioDefaults.toleranceK,
+      liquidFractionTolerance: num.liquid_fraction_tolerance ?? scenarioDefaults.liquidFractionTolerance,
+      cellsPerMm: num.cells_per_mm ?? scenarioDefaults.cellsPerMm,
+      minCellsPerLayer: num.min_cells_per_layer ?? scenarioDefaults.minCellsPerLayer,
+      maxStepS: num.max_step_s ?? s.duration_s * scenarioDefaults.maxStepShare,
+    },
+  };
+}

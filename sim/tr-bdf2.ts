@@ -1,0 +1,242 @@
+/**
+ * One step of TR-BDF2 (Bank, Coughran, Fichtner, Grosse, Rose & Smith 1985; Hosea & Shampine 1996), the default
+ * integrator: a trapezoidal stage to t + γh, then a BDF2 stage to t + h, with γ = 2 − √2 so both stages share the
+ * implicit coefficient d = γ/2. It is second order, L-stable (no ringing after a heater is switched off) and, as an
+ * ESDIRK method with weights b = (√2/4, √2/4, 1 − √2/2), conserves energy exactly in the discrete sense.
+ *
+ * Each stage is solved by Newton's method on the enthalpies (tridiagonal Jacobian, Thomas solve). The local error is
+ * estimated from the embedded third-order weights b̂ on the same stage derivatives and filtered through the stage
+ * matrix (I − d·h·J)⁻¹, Shampine's device for stiff problems (Hosea & Shampine 1996, §3).
+ * With backwardEuler: true the step is one backward-Euler stage (first order, for the convergence study).
+ */
+import type { StepConditions, Workspace } from './discretization.ts';
+import { evaluate, stageJacobian, stageResidual } from './discretization.ts';
+import { solveTridiagonal } from './tridiagonal.ts';
+
+const SQRT2 = Math.SQRT2;
+const GAMMA = 2 - SQRT2;
+const D = 1 - SQRT2 / 2;
+/** BDF2 stage: H₁ = A·H_γ − Bb·H₀ + d·h·f₁ (Bank et al. 1985, eq. 2.3). */
+const A = 1 / (GAMMA * (2 - GAMMA));
+const BB = ((1 - GAMMA) * (1 - GAMMA)) / (GAMMA * (2 - GAMMA));
+/** Quadrature weights of the method and of the embedded third-order formula (order conditions solved for c = 0, γ, 1). */
+export const WEIGHTS = [SQRT2 / 4, SQRT2 / 4, 1 - SQRT2 / 2] as const;
+const BHAT2 = 1 / (6 * GAMMA * (1 - GAMMA));
+const BHAT3 = 0.5 - 1 / (6 * (1 - GAMMA));
+const BHAT = [1 - BHAT2 - BHAT3, BHAT2, BHAT3] as const;
+const E = [WEIGHTS[0] - BHAT[0], WEIGHTS[1] - BHAT[1], WEIGHTS[2] - BHAT[2]] as const;
+export const STAGE_FRACTION = GAMMA;
+
+export interface NewtonSettings {
+  /** Convergence when every update is below this, in kelvin (enthalpy updates divided by ρc_p). */
+  readonly toleranceK: number;
+  readonly maxIterations: number;
+}
+
+/** What the local error is measured in: the quantities a run reports. */
+export interface ErrorScale {
+  /** Temperature error allowed per step, K. */
+  readonly toleranceK: number;
+  /** Liquid-fraction error allowed per step (a share of the latent heat). */
+  readonly liquidFraction: number;
+}
+
+/** Nudge past a kink, in kelvin-equivalent enthalpy: far below any tolerance, far above round-off. */
+const KINK_NUDGE_K = 1e-9;
+
+/** State and rates at the three points of a step: 0 (start), g (t + γh), 1 (end). */
+export interface StepBuffers {
+  readonly U0: Float64Array;
+  readonly Ug: Float64Array;
+  readonly U1: Float64Array;
+  readonly F0: Float64Array;
+  readonly Fg: Float64Array;
+  readonly F1: Float64Array;
+  /** Heat into [bottom, top] faces, W/m², at the three points. */
+  readonly q0: Float64Array;
+  readonly qg: Float64Array;
+  readonly q1: Float64Array;
+  /** Node temperatures at the start of the step, K (n+2). */
+  readonly T0: Float64Array;
+  readonly B: Float64Array;
+  readonly res: Float64Array;
+  readonly delta: Float64Array;
+  readonly work: Float64Array;
+}
+
+export function createStepBuffers(n: number): StepBuffers {
+  const m = n + 2;
+  return {
+    U0: new Float64Array(m), Ug: new Float64Array(m), U1: new Float64Array(m),
+    F0: new Float64Array(n), Fg: new Float64Array(n), F1: new Float64Array(n),
+    q0: new Float64Array(2), qg: new Float64Array(2), q1: new Float64Array(2), T0: new Float64Array(m),
+    B: new Float64Array(n), res: new Float64Array(m), delta: new Float64Array(m), work: new Float64Array(m),
+  };
+}
+
+export type StepStatus = 'ok' | 'newton-failed' | 'singular';
+
+export interface StepOutcome {
+  status: StepStatus;
+  /** Weighted local error; the step is acceptable when ≤ 1. */
+  errorNorm: number;
+  newtonIterations: number;
+}
+
+/**
+ * Newton iterations for U solving Δx·(H − B) − h·F(U) = 0. U holds the guess on entry and the solution on exit; on
+ * success ws holds the evaluation at the solution. Overwrites U, buf.res, buf.delta, buf.work and the ws buffers.
+ */
+function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number, cond: StepConditions,
+  newton: NewtonSettings, outcome: StepOutcome): StepStatus {
+  const { n } = ws;
+  const m = n + 2;
+  for (let iter = 0; iter < newton.maxIterations; iter++) {
+    evaluate(ws, U, cond);
+    stageResidual(ws, U, buf.B, h, cond, buf.res);
+    stageJacobian(ws, h, cond);
+    if (!solveTridiagonal(m, ws.lower, ws.diag, ws.upper, buf.res, buf.delta, buf.work)) return 'singular';
+    outcome.newtonIterations++;
+    let worst = 0;
+    for (let j = 0; j < m; j++) {
+      const dj = buf.delta[j]!;
+      const old = U[j]!;
+      let next = old - dj;
+      if (j > 0 && j <= n) next = stopAtKink(ws.curves[j - 1]!.kinks, old, next, ws.capacity[j - 1]! * KINK_NUDGE_K);
+      U[j] = next;
+      const scaled = Math.abs(j === 0 || j === n + 1 ? dj : dj / ws.capacity[j - 1]!);
+      if (!(scaled <= worst)) worst = scaled; // also catches NaN
+    }
+    if (worst <= newton.toleranceK) {
+      evaluate(ws, U, cond);
+      return 'ok';
+    }
+    if (!Number.isFinite(worst)) return 'newton-failed';
+  }
+  return 'newton-failed';
+}
+
+/**
+ * A Newton update from `old` to `next` that would cross an enthalpy where the capacity jumps stops just past it:
+ * Newton's linear model is wrong on the far side of a kink of T(H), and letting it jump across makes the iteration
+ * cycle. The next iteration starts with the right slope. Returns the (possibly shortened) new value.
+ */
+function stopAtKink(kinks: Float64Array, old: number, next: number, nudge: number): number {
+  for (let k = 0; k < kinks.length; k++) {
+    const at = kinks[k]!;
+    if (old < at && next > at + nudge) return at + nudge;
+    if (old > at && next < at - nudge) return at - nudge;
+  }
+  return next;
+}
+
+/**
+ * Takes one step of size h from buf.U0 (whose rates buf.F0, buf.q0 are current under `cond`). On 'ok' the end state
+ * is in buf.U1/F1/q1 and the stage state in buf.Ug/Fg/qg; buf.U0 is untouched either way.
+ * The error of each cell's enthalpy is measured as what it does to the reported quantities: its temperature (through
+ * the secant dT/dH over the step, which is zero while a cell sits on an isothermal plateau) and its liquid fraction
+ * (error / ρL). So a cell crossing a kink of T(H) is judged by its real effect, not by the kink.
+ */
+export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepConditions, newton: NewtonSettings,
+  scale: ErrorScale, backwardEuler: boolean, outcome: StepOutcome): StepOutcome {
+  const { n, grid } = ws;
+  const dx = grid.dx;
+  const { U0, Ug, U1, F0, Fg, F1, B } = buf;
+  outcome.newtonIterations = 0;
+  outcome.errorNorm = 0;
+
+  if (backwardEuler) {
+    for (let i = 0; i < n; i++) B[i] = U0[i + 1]!;
+    U1.set(U0);
+    outcome.status = solveStage(ws, buf, U1, h, cond, newton, outcome);
+    if (outcome.status !== 'ok') return outcome;
+    F1.set(ws.F);
+    buf.q1.set(ws.faceQ);
+    Ug.set(U1);
+    Fg.set(F1);
+    buf.qg.set(buf.q1);
+    return outcome;
+  }
+
+  const hd = D * h;
+  // trapezoidal stage to t + γh
+  for (let i = 0; i < n; i++) B[i] = U0[i + 1]! + (hd * F0[i]!) / dx[i]!;
+  Ug.set(U0);
+  outcome.status = solveStage(ws, buf, Ug, hd, cond, newton, outcome);
+  if (outcome.status !== 'ok') return outcome;
+  Fg.set(ws.F);
+  buf.qg.set(ws.faceQ);
+
+  // BDF2 stage to t + h, from a linear extrapolation of the two known states
+  const lean = (1 - GAMMA) / GAMMA;
+  for (let j = 0; j < n + 2; j++) U1[j] = Ug[j]! + lean * (Ug[j]! - U0[j]!);
+  for (let i = 0; i < n; i++) B[i] = A * Ug[i + 1]! - BB * U0[i + 1]!;
+  outcome.status = solveStage(ws, buf, U1, hd, cond, newton, outcome);
+  if (outcome.status !== 'ok') return outcome;
+  F1.set(ws.F);
+  buf.q1.set(ws.faceQ);
+
+  // error estimate h·Σ(b − b̂)·f, filtered through the stage matrix at the end state
+  const { res, delta, work } = buf;
+  res[0] = 0;
+  res[n + 1] = 0;
+  for (let i = 0; i < n; i++) res[i + 1] = h * (E[0] * F0[i]! + E[1] * Fg[i]! + E[2] * F1[i]!);
+  stageJacobian(ws, hd, cond);
+  if (!solveTridiagonal(n + 2, ws.lower, ws.diag, ws.upper, res, delta, work)) {
+    outcome.status = 'singular';
+    return outcome;
+  }
+  let worst = 0;
+  const T1 = ws.T;
+  const T0 = buf.T0;
+  for (let i = 0; i < n; i++) {
+    const z = Math.abs(delta[i + 1]!);
+    const dH = Math.abs(U1[i + 1]! - U0[i + 1]!);
+    const secant = dH > ws.capacity[i]! * KINK_NUDGE_K ? Math.abs(T1[i + 1]! - T0[i + 1]!) / dH : ws.tau[i + 1]!;
+    let e = (z * secant) / scale.toleranceK;
+    const latent = ws.latent[i]!;
+    if (latent > 0) e = Math.max(e, z / (scale.liquidFraction * latent));
+    if (!(e <= worst)) worst = e;
+  }
+  outcome.errorNorm = worst;
+  return outcome;
+}
+
+/** Energy per unit area (J/m²) that a face took in over a step of size h, by the method's own quadrature. */
+export function stepFaceEnergy(buf: StepBuffers, side: 0 | 1, h: number, backwardEuler: boolean): number {
+  if (backwardEuler) return h * buf.q1[side]!;
+  return h * (WEIGHTS[0] * buf.q0[side]! + WEIGHTS[1] * buf.qg[side]! + WEIGHTS[2] * buf.q1[side]!);
+}
+
+/**
+ * Brings the face nodes of U into balance with the cells under `cond` (after a schedule change the face temperature
+ * jumps; a zero-volume node has no memory). Scalar Newton per face. Leaves ws evaluated at U. Overwrites U[0], U[n+1].
+ */
+export function settleFaces(ws: Workspace, U: Float64Array, cond: StepConditions, toleranceK: number): boolean {
+  const { n } = ws;
+  if (cond.bottom.kind === 'fixed') U[0] = cond.bottom.tK;
+  if (cond.top.kind === 'fixed') U[n + 1] = cond.top.tK;
+  const maxIterations = 60;
+  for (let iter = 0; iter < maxIterations; iter++) {
+    evaluate(ws, U, cond);
+    let worst = 0;
+    if (cond.bottom.kind !== 'fixed') {
+      const r = ws.G[0]! * (ws.T[0]! - ws.T[1]!) - ws.faceQ[0]!;
+      const step = r / (ws.G[0]! - ws.faceDq[0]!);
+      U[0] = U[0]! - step;
+      worst = Math.max(worst, Math.abs(step));
+    }
+    if (cond.top.kind !== 'fixed') {
+      const r = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!) - ws.faceQ[1]!;
+      const step = r / (ws.G[n]! - ws.faceDq[1]!);
+      U[n + 1] = U[n + 1]! - step;
+      worst = Math.max(worst, Math.abs(step));
+    }
+    if (worst <= toleranceK) {
+      evaluate(ws, U, cond);
+      return true;
+    }
+    if (!Number.isFinite(worst)) return false;
+  }
+  return false;
+}

@@ -1,0 +1,153 @@
+/**
+ * Verdicts from a run: when the heat ends, when the separator is molten, half-frozen and frozen, each layer's peak
+ * against its limits, and the safe window. Event times are found where an indicator crosses its level between two
+ * recorded points (step ends and TR-BDF2 stage points) and interpolated linearly there, never rounded to a step.
+ *
+ * Definitions (also in the README):
+ *   heat_off_s       the end of the last heat input: a held plate, a held face temperature, a positive imposed flux
+ *                    or heater power, or a positive volumetric source. 0 when there is none; null when one lasts
+ *                    to the end of the run.
+ *   molten_at_s      first time every separator cell is fully liquid.
+ *   half_frozen_at_s first time after heat_off_s that the separator's volume-mean liquid fraction falls below 0.5.
+ *   frozen_at_s      first time after half_frozen_at_s that every separator cell is fully solid.
+ *   margin_K         limit temperature − peak temperature of the layer, for its binding (smallest-margin) limit.
+ *   safe_window_s    half_frozen_at_s − heat_off_s, when the separator was fully molten at some time, it half-froze
+ *                    within the run, and no layer reached any of its limits; null otherwise (safe_window_status says why).
+ */
+import { isHeatInput } from './faces.ts';
+import type { LimitKind } from './scenario-schema.ts';
+import type { Problem } from './problem.ts';
+import type { RunRecord } from './record.ts';
+import { kToC } from './units.ts';
+
+export interface LayerVerdict {
+  readonly peak_C: number;
+  readonly peak_at_s: number;
+  readonly limit: { readonly kind: LimitKind; readonly at_C: number } | null;
+  readonly margin_K: number | null;
+  /** Every limit of the layer's material with its margin (an addition to the contract). */
+  readonly limits: readonly { readonly kind: LimitKind; readonly at_C: number; readonly margin_K: number }[];
+}
+
+export type WindowStatus = 'ok' | 'limit-crossed' | 'never-molten' | 'no-separator' | 'heat-never-off' | 'still-molten-at-end';
+
+export interface Summary {
+  readonly heat_off_s: number | null;
+  readonly separator: { readonly molten_at_s: number | null; readonly half_frozen_at_s: number | null; readonly frozen_at_s: number | null };
+  readonly layers: Readonly<Record<string, LayerVerdict>>;
+  readonly safe_window_s: number | null;
+  readonly safe_window_status: WindowStatus;
+  /** The layer with the smallest margin, if any layer has a limit. */
+  readonly binding_layer: string | null;
+  readonly energy: { readonly in_J_m2: number; readonly out_J_m2: number; readonly stored_J_m2: number; readonly imbalance_rel: number };
+}
+
+/** The end of the last heat input (s), 0 if there is none, null if one lasts until the end. */
+export function heatOffTime(problem: Problem): number | null {
+  let last = 0;
+  for (const segments of [problem.bottom, problem.top]) {
+    segments.forEach((seg, i) => {
+      if (!isHeatInput(seg.condition)) return;
+      const end = segments[i + 1]?.fromS ?? Infinity;
+      last = Math.max(last, end);
+    });
+  }
+  for (const layer of problem.layers) {
+    for (const s of layer.sources) if (s.value > 0) last = Math.max(last, s.toS);
+  }
+  return last >= problem.durationS ? null : last;
+}
+
+/**
+ * First time ≥ fromS at which `values` reaches `level` ('rise-to': ≥, 'fall-to': ≤) or crosses it downwards
+ * ('fall-below': from ≥ to <, so a series already below the level at fromS must first come back up), interpolated
+ * linearly between recorded points. null if it never happens.
+ */
+export function firstCrossing(tS: Float64Array, values: Float64Array, level: number, fromS: number,
+  kind: 'rise-to' | 'fall-below' | 'fall-to'): number | null {
+  const n = tS.length;
+  const reached = (v: number) => (kind === 'rise-to' ? v >= level : v <= level);
+  if (n === 1) return kind !== 'fall-below' && tS[0]! >= fromS && reached(values[0]!) ? tS[0]! : null;
+  for (let j = 1; j < n; j++) {
+    const t0 = tS[j - 1]!;
+    const t1 = tS[j]!;
+    if (t1 < fromS) continue;
+    const v0 = values[j - 1]!;
+    const v1 = values[j]!;
+    const at = () => (v1 === v0 ? t1 : t0 + ((t1 - t0) * (level - v0)) / (v1 - v0));
+    if (kind === 'fall-below') {
+      if (v0 >= level && v1 < level) {
+        const tc = at();
+        if (tc >= fromS) return tc;
+      }
+      continue;
+    }
+    if (reached(v0)) {
+      if (t0 >= fromS) return t0;
+      if (reached(v1)) return fromS;
+      continue;
+    }
+    if (reached(v1)) return Math.max(fromS, at());
+  }
+  return null;
+}
+
+function layerVerdict(problem: Problem, record: RunRecord, li: number): LayerVerdict {
+  const series = record.layers[li]!;
+  let peak = -Infinity;
+  let peakAt = 0;
+  series.maxC.forEach((v, j) => {
+    if (v > peak) { peak = v; peakAt = record.tS[j]!; }
+  });
+  const limits = problem.layers[li]!.material.limits.map((l) => ({ kind: l.kind, at_C: kToC(l.atK), margin_K: kToC(l.atK) - peak }));
+  const binding = limits.reduce<(typeof limits)[number] | null>((best, l) => (best === null || l.margin_K < best.margin_K ? l : best), null);
+  return {
+    peak_C: peak,
+    peak_at_s: peakAt,
+    limit: binding ? { kind: binding.kind, at_C: binding.at_C } : null,
+    margin_K: binding ? binding.margin_K : null,
+    limits,
+  };
+}
+
+export function summarize(problem: Problem, record: RunRecord): Summary {
+  const heatOff = heatOffTime(problem);
+  const sep = record.separator;
+  let molten: number | null = null;
+  let half: number | null = null;
+  let frozen: number | null = null;
+  if (sep) {
+    molten = firstCrossing(sep.tS, sep.meltMargin, 0, 0, 'rise-to');
+    if (heatOff !== null) half = firstCrossing(sep.tS, sep.meanLiquid, 0.5, heatOff, 'fall-below');
+    if (half !== null) frozen = firstCrossing(sep.tS, sep.freezeMargin, 0, half, 'fall-to');
+  }
+  const layers: Record<string, LayerVerdict> = {};
+  let binding: string | null = null;
+  let bindingMargin = Infinity;
+  let crossed = false;
+  problem.layers.forEach((l, li) => {
+    const v = layerVerdict(problem, record, li);
+    layers[l.id] = v;
+    if (v.margin_K !== null && v.margin_K < bindingMargin) { bindingMargin = v.margin_K; binding = l.id; }
+    if (v.margin_K !== null && v.margin_K <= 0) crossed = true;
+  });
+  const status: WindowStatus = !sep ? 'no-separator'
+    : crossed ? 'limit-crossed'
+    : molten === null ? 'never-molten'
+    : heatOff === null ? 'heat-never-off'
+    : half === null ? 'still-molten-at-end'
+    : 'ok';
+  const e = record.energy;
+  const inJ = e.bottomInJ + e.topInJ + Math.max(e.sourceJ, 0);
+  const outJ = e.bottomOutJ + e.topOutJ + Math.max(-e.sourceJ, 0);
+  const scale = Math.max(inJ, outJ, Math.abs(e.storedJ), Number.MIN_VALUE);
+  return {
+    heat_off_s: heatOff,
+    separator: { molten_at_s: molten, half_frozen_at_s: half, frozen_at_s: frozen },
+    layers,
+    safe_window_s: status === 'ok' && half !== null && heatOff !== null ? half - heatOff : null,
+    safe_window_status: status,
+    binding_layer: binding,
+    energy: { in_J_m2: inJ, out_J_m2: outJ, stored_J_m2: e.storedJ, imbalance_rel: Math.abs(e.storedJ - (inJ - outJ)) / scale },
+  };
+}
