@@ -11,8 +11,8 @@
  */
 import type { FaceContext } from './faces.ts';
 import { faceHeatIn } from './faces.ts';
-import type { EnthalpyCurve, Table } from './material.ts';
-import { evalTable, sensibleCapacity, temperatureOf } from './material.ts';
+import type { EnthalpyCurve } from './material.ts';
+import { conductivityAt, sensibleCapacity, temperatureOf } from './material.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from './problem.ts';
 
@@ -29,7 +29,6 @@ export interface Workspace {
   readonly grid: Grid;
   readonly n: number;
   readonly curves: readonly EnthalpyCurve[];
-  readonly conductivities: readonly Table[];
   readonly bottomContext: FaceContext;
   readonly topContext: FaceContext;
   /** Node temperatures, K (n+2). */
@@ -38,9 +37,11 @@ export interface Workspace {
   readonly tau: Float64Array;
   /** Conductance between node j and j+1, W·m⁻²·K⁻¹ (n+1). */
   readonly G: Float64Array;
+  /** d(half-cell resistance)/dU per node (n+2): nonzero only in two-phase cells, whose k follows the liquid fraction. */
+  readonly dHalf: Float64Array;
   /** Net heat rate into each cell per unit area, W/m² (n). */
   readonly F: Float64Array;
-  /** Sensible capacity ρc_p per cell at the last evaluation, J·m⁻³·K⁻¹ (n): the error scale. */
+  /** Sensible capacity ρc_p per cell at the start of the step, J·m⁻³·K⁻¹ (n): the error scale. */
   readonly capacity: Float64Array;
   readonly segmentHint: Int32Array;
   /** Latent heat per volume ρ·L per cell, J/m³ (0 where the material does not melt): the liquid-fraction error scale. */
@@ -60,9 +61,9 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
   return {
     grid, n,
     curves: grid.materials.map((mat) => mat.enthalpy),
-    conductivities: grid.materials.map((mat) => mat.conductivity),
     bottomContext, topContext,
-    T: new Float64Array(m), tau: new Float64Array(m), G: new Float64Array(n + 1), F: new Float64Array(n),
+    T: new Float64Array(m), tau: new Float64Array(m), G: new Float64Array(n + 1), dHalf: new Float64Array(m),
+    F: new Float64Array(n),
     capacity: new Float64Array(n), segmentHint: new Int32Array(n),
     latent: Float64Array.from(grid.materials, (mat) => (mat.melt ? mat.density * mat.melt.latentJPerKg : 0)),
     faceQ: new Float64Array(2), faceDq: new Float64Array(2),
@@ -73,10 +74,10 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
 
 /**
  * Evaluates everything that depends on U: T, tau, conductances G, face heat inputs and the net rates F.
- * Overwrites ws.T, ws.tau, ws.G, ws.F, ws.capacity, ws.segmentHint, ws.faceQ, ws.faceDq, ws.scratch2.
+ * Overwrites ws.T, ws.tau, ws.G, ws.dHalf, ws.F, ws.segmentHint, ws.faceQ, ws.faceDq, ws.scratch2.
  */
 export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): void {
-  const { n, T, tau, G, F, curves, conductivities, segmentHint, scratch2, grid, capacity } = ws;
+  const { n, T, tau, G, F, curves, segmentHint, scratch2, grid, dHalf } = ws;
   const dx = grid.dx;
   T[0] = U[0]!;
   tau[0] = 1;
@@ -91,8 +92,19 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   let halfBelow = 0;
   for (let i = 0; i < n; i++) {
     const tC = T[i + 1]!;
-    const half = (0.5 * dx[i]!) / evalTable(conductivities[i]!, tC);
-    capacity[i] = sensibleCapacity(grid.materials[i]!, tC);
+    const material = grid.materials[i]!;
+    const melt = material.melt;
+    const h = U[i + 1]!;
+    const k = conductivityAt(material, h, tC);
+    if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus) {
+      // half = Δx/(2k) with 1/k linear in f: d(half)/dH = (Δx/2)·(1/k_l − 1/k_s)·df/dH
+      const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus)
+        : tau[i + 1]! / (melt.liquidusK - melt.solidusK);
+      dHalf[i + 1] = 0.5 * dx[i]! * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
+    } else {
+      dHalf[i + 1] = 0;
+    }
+    const half = (0.5 * dx[i]!) / k;
     if (i === 0) G[0] = 1 / half;
     else G[i] = 1 / (halfBelow + grid.contactAbove[i - 1]! + half);
     halfBelow = half;
@@ -104,6 +116,11 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   }
   evaluateFace(ws, cond.bottom, 0, 0);
   evaluateFace(ws, cond.top, 1, n + 1);
+}
+
+/** Sets ws.capacity (ρc_p per cell at the temperatures in ws.T), the scale of errors and Newton updates. */
+export function updateCapacity(ws: Workspace): void {
+  for (let i = 0; i < ws.n; i++) ws.capacity[i] = sensibleCapacity(ws.grid.materials[i]!, ws.T[i + 1]!);
 }
 
 function evaluateFace(ws: Workspace, c: FaceCondition, side: 0 | 1, node: number): void {
@@ -133,28 +150,32 @@ export function stageResidual(ws: Workspace, U: Float64Array, B: Float64Array, h
 }
 
 /**
- * Jacobian of stageResidual() with respect to U, conductances held at their current values (their T-dependence is
- * left to the Newton iterations). Overwrites ws.lower, ws.diag, ws.upper.
+ * Jacobian of stageResidual() with respect to U. The flux through face j (node j to j+1), Q_j = G_j·(T_j − T_{j+1}),
+ * has slopes a_j = ∂Q_j/∂U_j and b_j = ∂Q_j/∂U_{j+1}, which include the change of G through the half-cell resistance
+ * of two-phase cells; the tabulated k(T) of single-phase cells is held for the step (the Newton iterations absorb it).
+ * Overwrites ws.lower, ws.diag, ws.upper.
  */
 export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): void {
-  const { n, G, tau, lower, diag, upper, grid } = ws;
-  for (let j = 1; j <= n; j++) {
-    lower[j] = -h * G[j - 1]! * tau[j - 1]!;
-    diag[j] = grid.dx[j - 1]! + h * (G[j - 1]! + G[j]!) * tau[j]!;
-    upper[j] = -h * G[j]! * tau[j + 1]!;
+  const { n, G, tau, lower, diag, upper, grid, T, dHalf } = ws;
+  let aPrev = 0;
+  let bPrev = 0;
+  for (let j = 0; j <= n; j++) {
+    const g = G[j]!;
+    const g2dT = g * g * (T[j]! - T[j + 1]!);
+    const a = g * tau[j]! - g2dT * dHalf[j]!;
+    const b = -g * tau[j + 1]! - g2dT * dHalf[j + 1]!;
+    if (j === 0) {
+      if (cond.bottom.kind === 'fixed') { diag[0] = 1; upper[0] = 0; }
+      else { diag[0] = h * (a - ws.faceDq[0]!); upper[0] = h * b; }
+    } else {
+      // cell row j: Δx·(U_j − B) − h·(Q_{j−1} − Q_j)
+      lower[j] = -h * aPrev;
+      diag[j] = grid.dx[j - 1]! - h * (bPrev - a);
+      upper[j] = h * b;
+    }
+    aPrev = a;
+    bPrev = b;
   }
-  if (cond.bottom.kind === 'fixed') {
-    diag[0] = 1;
-    upper[0] = 0;
-  } else {
-    diag[0] = h * (G[0]! - ws.faceDq[0]!);
-    upper[0] = -h * G[0]! * tau[1]!;
-  }
-  if (cond.top.kind === 'fixed') {
-    diag[n + 1] = 1;
-    lower[n + 1] = 0;
-  } else {
-    diag[n + 1] = h * (G[n]! - ws.faceDq[1]!);
-    lower[n + 1] = -h * G[n]! * tau[n]!;
-  }
+  if (cond.top.kind === 'fixed') { diag[n + 1] = 1; lower[n + 1] = 0; }
+  else { lower[n + 1] = -h * aPrev; diag[n + 1] = h * (-bPrev - ws.faceDq[1]!); }
 }

@@ -5,7 +5,7 @@
  * every breakpoint: schedule changes of the faces and sources, requested output times and the end of the run.
  */
 import type { StepConditions, Workspace } from './discretization.ts';
-import { createWorkspace } from './discretization.ts';
+import { createWorkspace, updateCapacity } from './discretization.ts';
 import { enthalpyAt } from './material.ts';
 import type { Grid } from './mesh.ts';
 import type { Problem } from './problem.ts';
@@ -23,7 +23,7 @@ export const evolveDefaults = {
   /** Largest step right after a schedule change, s: the faces change abruptly there. */
   stepAfterChangeS: 0.5,
   /** Newton tolerance as a share of the error tolerance: keeps the iteration error well below the truncation error. */
-  newtonShare: 1e-3,
+  newtonShare: 1e-2,
   maxNewtonIterations: 12,
   /** Newton failure: cut the step by this factor. */
   newtonCut: 0.25,
@@ -113,6 +113,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     buf.F0.set(ws.F);
     buf.q0.set(ws.faceQ);
     buf.T0.set(ws.T);
+    updateCapacity(ws);
     return true;
   };
   if (!settle()) return { status: 'failed', message: 'the face balance did not converge at t = 0 s', tS: 0, stats };
@@ -160,6 +161,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     buf.F0.set(buf.F1);
     buf.q0.set(buf.q1);
     buf.T0.set(ws.T);
+    updateCapacity(ws);
     if (options.fixedStepS === undefined) {
       const ratio = outcome.errorNorm > 0 ? d.safety * outcome.errorNorm ** (-1 / 3) : d.grow;
       // a step shortened to land on a breakpoint says nothing about the next one: grow from the controller's own h

@@ -4,14 +4,9 @@
  * (grey surface in large isothermal surroundings, Incropera eq. 1.7; a held plate through a contact conductance).
  * A face held at a fixed temperature is not a flux: the solver imposes T_face directly.
  */
-import { naturalConvectionCoefficient } from './natural-convection.ts';
+import { naturalConvectionIn } from './natural-convection.ts';
 import type { FaceCondition, Facing } from './problem.ts';
 import { STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
-
-export const faceDefaults = {
-  /** Temperature step of the finite-difference derivative of natural convection, K (h varies as ΔT^¼: smooth there). */
-  derivativeStepK: 1e-3,
-} as const;
 
 export interface FaceContext {
   readonly facing: Facing;
@@ -20,14 +15,6 @@ export interface FaceContext {
 }
 
 type Terms = Extract<FaceCondition, { kind: 'terms' }>;
-
-function convectiveIn(c: Terms, ctx: FaceContext, tK: number): number {
-  switch (c.convection.kind) {
-    case 'none': return 0;
-    case 'fixed': return c.convection.coefficient * (c.fluidK - tK);
-    case 'natural': return naturalConvectionCoefficient(ctx.facing, tK, c.fluidK, ctx.lengthM) * (c.fluidK - tK);
-  }
-}
 
 /** Heat into the face at tK, W/m²; writes dq/dT (W·m⁻²·K⁻¹) to out[0]. Allocates nothing. */
 export function faceHeatIn(c: Terms, ctx: FaceContext, tK: number, out: Float64Array): number {
@@ -38,10 +25,8 @@ export function faceHeatIn(c: Terms, ctx: FaceContext, tK: number, out: Float64A
     q += conv.coefficient * (c.fluidK - tK);
     dq -= conv.coefficient;
   } else if (conv.kind === 'natural') {
-    const step = faceDefaults.derivativeStepK;
-    const here = convectiveIn(c, ctx, tK);
-    q += here;
-    dq += (convectiveIn(c, ctx, tK + step) - convectiveIn(c, ctx, tK - step)) / (2 * step);
+    q += naturalConvectionIn(ctx.facing, tK, c.fluidK, ctx.lengthM, out);
+    dq += out[0]!;
   }
   if (c.emissivity > 0) {
     const es = c.emissivity * STEFAN_BOLTZMANN_W_M2K4;

@@ -38,6 +38,15 @@ export interface Melt {
   /** H at the solidus (all solid) and at the liquidus (all liquid), J/m³. */
   readonly hSolidus: number;
   readonly hLiquidus: number;
+  /**
+   * Conductivity of the solid and of the liquid at the melt, W·m⁻¹·K⁻¹: the table's value at its last row at or below
+   * the solidus and at its first row at or above the liquidus (a table may ramp between them across the melt).
+   */
+  readonly kSolid: number;
+  readonly kLiquid: number;
+  /** The table rows those come from, K: the solid is read at T ≤ solidTableK, the liquid at T ≥ liquidTableK. */
+  readonly solidTableK: number;
+  readonly liquidTableK: number;
 }
 
 export interface Limit {
@@ -159,10 +168,45 @@ export function buildMaterial(input: MaterialInput): Material {
     density,
     specificHeat,
     enthalpy,
-    melt: melt ? { ...melt, hSolidus, hLiquidus } : undefined,
+    melt: melt ? { ...melt, hSolidus, hLiquidus, ...meltConductivities(input.conductivity, melt.solidusK, melt.liquidusK) } : undefined,
     limits: input.limits,
     sources: input.sources,
   };
+}
+
+function meltConductivities(k: Table, solidusK: number, liquidusK: number) {
+  let below = solidusK;
+  let above = liquidusK;
+  let foundAbove = false;
+  for (const t of k.tK) {
+    if (t <= solidusK) below = t;
+    if (t >= liquidusK && !foundAbove) { above = t; foundAbove = true; }
+  }
+  return { kSolid: evalTable(k, below), kLiquid: evalTable(k, above), solidTableK: below, liquidTableK: above };
+}
+
+/**
+ * k (W·m⁻¹·K⁻¹) of a cell with enthalpy hJ and temperature tK. For a material that melts, the table is read on the
+ * solid side up to its last row at or below the solidus and on the liquid side from its first row at or above the
+ * liquidus (a ramp the table draws across the melt is not used), and a two-phase cell takes the series mix below, so k
+ * is continuous in H through the whole phase change.
+ */
+export function conductivityAt(material: Material, hJ: number, tK: number): number {
+  const melt = material.melt;
+  const table = material.conductivity;
+  if (melt === undefined) return table.y.length === 1 ? table.y[0]! : evalTable(table, tK);
+  if (hJ <= melt.hSolidus) return evalTable(table, Math.min(tK, melt.solidTableK));
+  if (hJ >= melt.hLiquidus) return evalTable(table, Math.max(tK, melt.liquidTableK));
+  return mushConductivity(melt, liquidFractionOf(material, hJ, tK));
+}
+
+/**
+ * Conductivity of a two-phase cell with liquid fraction f: its solid and liquid parts in series across the cell,
+ * 1/k = (1 − f)/k_s + f/k_l (a plane front parallel to the layers, as in a 1D stack). Without it, a cell sitting at an
+ * isothermal melt would conduct with the table's value at T_m whatever its state, an O(Δx) error in melt times.
+ */
+export function mushConductivity(melt: Melt, liquidFraction: number): number {
+  return 1 / ((1 - liquidFraction) / melt.kSolid + liquidFraction / melt.kLiquid);
 }
 
 /** H(T), J/m³, for T in K. */

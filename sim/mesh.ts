@@ -52,7 +52,8 @@ export function buildGrid(problem: Problem, refine = 1): Grid {
   const { layers, numerics } = problem;
   const counts = layers.map((l) =>
     cellsInLayer(l.thicknessM, l.cells === undefined ? undefined : l.cells * refine,
-      numerics.cellsPerMm * refine, numerics.minCellsPerLayer * refine));
+      (l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm) * refine,
+      (l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer) * refine));
   const n = counts.reduce((a, b) => a + b, 0);
   const dx = new Float64Array(n);
   const xc = new Float64Array(n);

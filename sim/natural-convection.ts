@@ -43,6 +43,32 @@ export function naturalConvectionCoefficient(facing: Facing, tK: number, fluidK:
   return (nusselt(ra, plumeRisesFromFace(facing, tK, fluidK)) * evalTable(airConductivity, film)) / lengthM;
 }
 
+/**
+ * Heat into a horizontal face at tK from air at fluidK, W/m², with its slope dq/dT in out[0]. One evaluation of the
+ * correlation. Overwrites out[0].
+ */
+export function naturalConvectionIn(facing: Facing, tK: number, fluidK: number, lengthM: number, out: Float64Array): number {
+  if (tK === fluidK) {
+    out[0] = 0;
+    return 0;
+  }
+  const ra = rayleigh(tK, fluidK, lengthM);
+  const rises = plumeRisesFromFace(facing, tK, fluidK);
+  const film = 0.5 * (tK + fluidK);
+  const h = (nusselt(ra, rises) * evalTable(airConductivity, film)) / lengthM;
+  out[0] = -convectionSlopeFactor(ra, rises) * h;
+  return h * (fluidK - tK);
+}
+
+/**
+ * d(h·ΔT)/dΔT over h for the law in force: Nu ∝ Ra^m gives h ∝ |ΔT|^m, so q = h·ΔT has slope (1 + m)·h (air
+ * properties held at the film temperature; Newton needs only a good slope, not the exact one).
+ */
+export function convectionSlopeFactor(ra: number, plumeRises: boolean): number {
+  if (plumeRises) return ra <= naturalConvectionRanges.upperFacing.switch ? 1.25 : 4 / 3;
+  return 1.2;
+}
+
 /** Whether a Rayleigh number lies inside the applicable correlation's published range. */
 export function rayleighInRange(ra: number, plumeRises: boolean): boolean {
   const r = plumeRises ? naturalConvectionRanges.upperFacing : naturalConvectionRanges.lowerFacing;

@@ -65,6 +65,9 @@ export interface Numerics {
   readonly liquidFractionTolerance: number;
   readonly cellsPerMm: number;
   readonly minCellsPerLayer: number;
+  /** Separator layers get their own, finer count: their melt and freeze times are the verdict. */
+  readonly separatorCellsPerMm: number;
+  readonly minSeparatorCells: number;
   readonly maxStepS: number;
 }
 

@@ -135,6 +135,8 @@ export const scenarioSchema = z.strictObject({
     liquid_fraction_tolerance: positive().optional(),
     cells_per_mm: positive().optional(),
     min_cells_per_layer: z.number().int().gte(1).optional(),
+    separator_cells_per_mm: positive().optional(),
+    min_separator_cells: z.number().int().gte(1).optional(),
     max_step_s: positive().optional(),
   }).optional(),
 });
