@@ -73,7 +73,10 @@ export function formatZodIssue(issue: core.$ZodIssue): FieldError[] {
         };
       });
     case 'invalid_type':
-      if (input === undefined) return [{ path, message: `is required (${issue.expected === 'number' ? 'a number' : issue.expected})` }];
+      if (input === undefined) {
+        const what = issue.expected === 'number' ? 'a number' : issue.expected === 'array' ? 'a list' : issue.expected === 'object' ? 'an object' : issue.expected;
+        return [{ path, message: `is required (${what})` }];
+      }
       if ((issue as { received?: string }).received === 'Infinity' || (issue as { received?: string }).received === '-Infinity') {
         return [{ path, message: `must be a finite number, got ${(issue as { received?: string }).received} (the number is too large)` }];
       }

@@ -129,6 +129,19 @@ export const scenarioSchema = z.strictObject({
     times_s: z.array(timeS()).optional(),
     probes_mm: z.array(nonNegative()).optional(),
   }).optional(),
+  /**
+   * What the scenario's author expects of the result (an addition to the contract). The example files state their
+   * claim here, and the test suite runs every example and holds it to that claim.
+   */
+  expect: z.strictObject({
+    molten_before_s: positive().optional(),
+    half_frozen_after_s: timeS().optional(),
+    half_frozen_before_s: positive().optional(),
+    window_at_least_s: nonNegative().optional(),
+    window_at_most_s: nonNegative().optional(),
+    window_status: z.enum(['ok', 'limit-crossed', 'never-molten', 'no-separator', 'heat-never-off', 'still-molten-at-end']).optional(),
+    margin_at_least_K: z.record(z.string(), z.number()).optional(),
+  }).optional(),
   /** Numerical settings; the defaults meet the accuracy stated in DEVELOPERS.md. */
   numerics: z.strictObject({
     tolerance_K: positive().optional(),

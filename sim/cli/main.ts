@@ -1,0 +1,106 @@
+/**
+ * The `freezeline` command. Exit codes: 0 success, 2 invalid input (each message names the field and the value),
+ * 1 internal failure. `run --json` writes exactly the result document on stdout and nothing else.
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import { Command, CommanderError } from 'commander';
+import { formatFieldError } from '../field-errors.ts';
+import { libraryFile, libraryNames } from '../library.ts';
+import { resultDocument } from '../result.ts';
+import { runProblem } from '../run.ts';
+import { parseScenarioText } from '../scenario.ts';
+import type { Problem } from '../problem.ts';
+import { benchProblem } from './bench-run.ts';
+import { seriesCsv } from './csv.ts';
+import { summaryTable } from './table.ts';
+
+export const EXIT = { ok: 0, internal: 1, invalid: 2 } as const;
+
+class InputError extends Error {}
+
+function readProblem(file: string): Problem {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (e) {
+    throw new InputError(`${file}: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  const parsed = parseScenarioText(text);
+  if (!parsed.ok) throw new InputError(parsed.errors.map((e) => `${file}: ${formatFieldError(e)}`).join('\n'));
+  return parsed.problem;
+}
+
+function runOrFail(problem: Problem) {
+  const out = runProblem(problem);
+  if (out.status !== 'ok') throw new Error(out.status === 'failed' ? `the run failed at t = ${out.tS} s: ${out.message}` : 'the run was cancelled');
+  return out;
+}
+
+function program(): Command {
+  const cli = new Command('freezeline')
+    .description('Transient thermal simulator for a heated molten-salt cell: when does the separator freeze, and how close does each layer come to its limit?')
+    .exitOverride()
+    .configureOutput({ writeErr: (s) => process.stderr.write(s) });
+
+  cli.command('run').argument('<file>', 'scenario file (JSON)')
+    .description('simulate a scenario and print the verdicts')
+    .option('--json', 'write the result document (JSON) on stdout, nothing else')
+    .option('--csv <out>', 'also write the time series to a CSV file')
+    .action((file: string, opts: { json?: boolean; csv?: string }) => {
+      const problem = readProblem(file);
+      const out = runOrFail(problem);
+      if (opts.csv) writeFileSync(opts.csv, seriesCsv(out.record));
+      if (opts.json) process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
+      else process.stdout.write(`${summaryTable(problem.name, out.summary, out.record, problem.durationS)}\n`);
+    });
+
+  cli.command('check').argument('<file>', 'scenario file (JSON)')
+    .description('validate a scenario without running it')
+    .action((file: string) => {
+      const problem = readProblem(file);
+      process.stdout.write(`${file}: valid (${problem.layers.length} layers, ${problem.durationS} s)\n`);
+    });
+
+  cli.command('materials')
+    .description('list the bundled materials with their limits and sources')
+    .option('--json', 'as JSON')
+    .action((opts: { json?: boolean }) => {
+      const files = libraryNames().map((n) => libraryFile(n)!);
+      if (opts.json) { process.stdout.write(`${JSON.stringify(files, null, 2)}\n`); return; }
+      for (const f of files) {
+        const melt = f.melt ? `melts ${f.melt.solidus_C}–${f.melt.liquidus_C} °C, ${f.melt.latent_J_kg / 1000} kJ/kg` : 'no melt in range';
+        const limits = (f.limits ?? []).map((l) => `${l.kind} ${l.at_C} °C`).join(', ') || 'none';
+        process.stdout.write(`${f.name} — ${f.title ?? ''}\n  ${melt}; limits: ${limits}\n`);
+        for (const [key, src] of Object.entries(f.sources)) process.stdout.write(`  ${key}: ${src}\n`);
+      }
+    });
+
+  cli.command('bench').argument('<file>', 'scenario file (JSON)')
+    .description('solve a scenario repeatedly in-process and report the speed')
+    .option('--json', 'as JSON')
+    .option('--runs <n>', 'number of timed runs', '20')
+    .action((file: string, opts: { json?: boolean; runs: string }) => {
+      const runs = Number(opts.runs);
+      if (!Number.isInteger(runs) || runs < 1) throw new InputError(`--runs: must be a whole number ≥ 1, got ${JSON.stringify(opts.runs)}`);
+      const figures = benchProblem(readProblem(file), runs);
+      if (opts.json) process.stdout.write(`${JSON.stringify(figures)}\n`);
+      else process.stdout.write(`median ${figures.median_ms.toFixed(2)} ms over ${figures.runs} runs; ${figures.cells} cells, ${figures.steps} steps, ${figures.newton_iterations} Newton iterations, ${(figures.cell_updates_per_s / 1e6).toFixed(1)} M cell-updates/s\n`);
+    });
+  return cli;
+}
+
+export function main(argv: readonly string[]): number {
+  try {
+    program().parse(argv as string[], { from: 'user' });
+    return EXIT.ok;
+  } catch (e) {
+    if (e instanceof CommanderError) return e.exitCode === 0 ? EXIT.ok : EXIT.invalid;
+    if (e instanceof InputError) { process.stderr.write(`${e.message}\n`); return EXIT.invalid; }
+    process.stderr.write(`freezeline: internal error: ${(e as Error).message}\n`);
+    return EXIT.internal;
+  }
+}
+
+// a reader that stops early (`| head`) is not an error of ours
+process.stdout.on('error', (e: NodeJS.ErrnoException) => { if (e.code !== 'EPIPE') throw e; });
+process.exitCode = main(process.argv.slice(2));
