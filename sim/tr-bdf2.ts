@@ -91,6 +91,7 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
   newton: NewtonSettings, outcome: StepOutcome): StepStatus {
   const { n } = ws;
   const m = n + 2;
+  let previous = Infinity;
   for (let iter = 0; iter < newton.maxIterations; iter++) {
     evaluate(ws, U, cond);
     stageResidual(ws, U, buf.B, h, cond, buf.res);
@@ -107,11 +108,15 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
       const scaled = Math.abs(j === 0 || j === n + 1 ? dj : dj / ws.capacity[j - 1]!);
       if (!(scaled <= worst)) worst = scaled; // also catches NaN
     }
-    if (worst <= newton.toleranceK) {
+    // converged when the update, or the remaining error bound θ/(1−θ)·|δ| of a contracting iteration, is below the
+    // tolerance (Hairer & Wanner, Solving ODEs II, §IV.8, eq. 8.10)
+    const theta = iter > 0 ? worst / previous : 1;
+    if (worst <= newton.toleranceK || (theta < 1 && (theta / (1 - theta)) * worst <= newton.toleranceK)) {
       evaluate(ws, U, cond);
       return 'ok';
     }
     if (!Number.isFinite(worst)) return 'newton-failed';
+    previous = worst;
   }
   return 'newton-failed';
 }

@@ -18,12 +18,15 @@ export function solveTridiagonal(
 ): boolean {
   let pivot = diag[0]!;
   if (pivot === 0) return false;
-  x[0] = d[0]! / pivot;
+  let inverse = 1 / pivot;
+  x[0] = d[0]! * inverse;
   for (let i = 1; i < n; i++) {
-    work[i] = upper[i - 1]! / pivot;
-    pivot = diag[i]! - lower[i]! * work[i]!;
+    const w = upper[i - 1]! * inverse;
+    work[i] = w;
+    pivot = diag[i]! - lower[i]! * w;
     if (pivot === 0) return false;
-    x[i] = (d[i]! - lower[i]! * x[i - 1]!) / pivot;
+    inverse = 1 / pivot;
+    x[i] = (d[i]! - lower[i]! * x[i - 1]!) * inverse;
   }
   for (let i = n - 2; i >= 0; i--) x[i] = x[i]! - work[i + 1]! * x[i + 1]!;
   return true;
