@@ -48,11 +48,7 @@ export interface Workspace {
   readonly latent: Float64Array;
   /** Heat into the bottom and top faces, W/m², from the face model, and their derivatives dq/dT at the last evaluation. */
   readonly faceQ: Float64Array;
-  /**
-   * Heat into the stack through the bottom and top faces, W/m², as the cells receive it (G·ΔT across the half cell).
-   * The energy ledger books these, so it balances the cells' own equations exactly.
-   */
-  readonly faceQcell: Float64Array;
+
   readonly faceDq: Float64Array;
   readonly lower: Float64Array;
   readonly diag: Float64Array;
@@ -71,7 +67,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     F: new Float64Array(n),
     capacity: new Float64Array(n), segmentHint: new Int32Array(n),
     latent: Float64Array.from(grid.materials, (mat) => (mat.melt ? mat.density * mat.melt.latentJPerKg : 0)),
-    faceQ: new Float64Array(2), faceDq: new Float64Array(2), faceQcell: new Float64Array(2),
+    faceQ: new Float64Array(2), faceDq: new Float64Array(2),
     lower: new Float64Array(m), diag: new Float64Array(m), upper: new Float64Array(m),
     scratch2: new Float64Array(2),
   };
@@ -79,7 +75,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
 
 /**
  * Evaluates everything that depends on U: T, tau, conductances G, face heat inputs and the net rates F.
- * Overwrites ws.T, ws.tau, ws.G, ws.dHalf, ws.F, ws.segmentHint, ws.faceQ, ws.faceQcell, ws.faceDq, ws.scratch2.
+ * Overwrites ws.T, ws.tau, ws.G, ws.dHalf, ws.F, ws.segmentHint, ws.faceQ, ws.faceDq, ws.scratch2.
  */
 export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): void {
   const { n, T, tau, G, F, curves, segmentHint, scratch2, grid, dHalf } = ws;
@@ -121,8 +117,6 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   }
   evaluateFace(ws, cond.bottom, 0, 0);
   evaluateFace(ws, cond.top, 1, n + 1);
-  ws.faceQcell[0] = G[0]! * (T[0]! - T[1]!);
-  ws.faceQcell[1] = G[n]! * (T[n + 1]! - T[n]!);
 }
 
 /** Sets ws.capacity (ρc_p per cell at the temperatures in ws.T), the scale of errors and Newton updates. */

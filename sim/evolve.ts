@@ -117,7 +117,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const settle = (): boolean => {
     if (!settleFaces(ws, buf.U0, cond, newton.toleranceK)) return false;
     buf.F0.set(ws.F);
-    buf.q0.set(ws.faceQcell);
+    buf.q0.set(ws.faceQ);
     buf.T0.set(ws.T);
     updateCapacity(ws);
     return true;

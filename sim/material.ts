@@ -71,6 +71,9 @@ export interface Material {
   readonly sources: Readonly<Record<string, string>>;
 }
 
+/** Width of the sensible-only end segments of an enthalpy curve, K (any positive width gives the same curve). */
+const BRACKET_K = 1000;
+
 /** Evaluates a table at T (K): linear between rows, the end value outside. */
 export function evalTable(table: Table, tK: number): number {
   const { tK: xs, y } = table;
@@ -108,7 +111,10 @@ export function buildMaterial(input: MaterialInput): Material {
     knotSet.add(melt.solidusK);
     knotSet.add(melt.liquidusK);
   }
-  const temps = [...knotSet].sort((a, b) => a - b);
+  // bracket the knots with one sensible-only segment at each end, so extrapolation beyond them never carries latent
+  // heat and a constant c_p (a single table row) still has a segment
+  const inner = [...knotSet].sort((a, b) => a - b);
+  const temps = [inner[0]! - BRACKET_K, ...inner, inner[inner.length - 1]! + BRACKET_K];
   const latentDensity = melt && melt.liquidusK > melt.solidusK
     ? (density * melt.latentJPerKg) / (melt.liquidusK - melt.solidusK)
     : 0;
@@ -139,8 +145,7 @@ export function buildMaterial(input: MaterialInput): Material {
     if (t === melt.liquidusK && !isothermalJump) hLiquidus = hNow;
     return hNow;
   };
-  let hNow = atKnot(temps[0]!, 0);
-  h[h.length - 1] = hNow;
+  let hNow = 0; // the first knot is the lower bracket: never a melt point
   for (let i = 0; i + 1 < temps.length; i++) {
     const a = temps[i]!;
     const b = temps[i + 1]!;
@@ -213,14 +218,8 @@ export function mushConductivity(melt: Melt, liquidFraction: number): number {
 export function enthalpyAt(curve: EnthalpyCurve, tK: number): number {
   const { tK: xs, h, cLeft, cRight } = curve;
   const last = xs.length - 1;
-  if (last === 0 || tK <= xs[0]!) {
-    const c0 = cLeft.length > 0 ? cLeft[0]! : 1;
-    return h[0]! + c0 * (tK - xs[0]!);
-  }
-  if (tK >= xs[last]!) {
-    const cEnd = cRight.length > 0 ? cRight[last - 1]! : 1;
-    return h[last]! + cEnd * (tK - xs[last]!);
-  }
+  if (tK <= xs[0]!) return h[0]! + cLeft[0]! * (tK - xs[0]!);
+  if (tK >= xs[last]!) return h[last]! + cRight[last - 1]! * (tK - xs[last]!);
   let i = 0;
   while (i + 1 < last && xs[i + 1]! <= tK) i++;
   // exactly at an isothermal melt point the search has passed the jump, so H(T) takes the liquid side there.
@@ -239,13 +238,6 @@ export function enthalpyAt(curve: EnthalpyCurve, tK: number): number {
 export function temperatureOf(curve: EnthalpyCurve, hJ: number, hint: number, out: Float64Array): number {
   const { tK: xs, h, cLeft, cRight } = curve;
   const last = xs.length - 1;
-  if (last === 0) {
-    // a single knot only happens for constant c_p without melt: linear both ways
-    const c = cLeft.length > 0 ? cLeft[0]! : 1;
-    out[0] = xs[0]! + (hJ - h[0]!) / c;
-    out[1] = 1 / c;
-    return 0;
-  }
   if (hJ <= h[0]!) {
     const c = cLeft[0]!;
     out[0] = xs[0]! + (hJ - h[0]!) / c;

@@ -156,7 +156,7 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
     outcome.status = solveStage(ws, buf, U1, h, cond, newton, outcome);
     if (outcome.status !== 'ok') return outcome;
     F1.set(ws.F);
-    buf.q1.set(ws.faceQcell);
+    buf.q1.set(ws.faceQ);
     Ug.set(U1);
     Fg.set(F1);
     buf.qg.set(buf.q1);
@@ -170,7 +170,7 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
   outcome.status = solveStage(ws, buf, Ug, hd, cond, newton, outcome);
   if (outcome.status !== 'ok') return outcome;
   Fg.set(ws.F);
-  buf.qg.set(ws.faceQcell);
+  buf.qg.set(ws.faceQ);
 
   // BDF2 stage to t + h, from a linear extrapolation of the two known states
   const lean = (1 - GAMMA) / GAMMA;
@@ -179,7 +179,7 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
   outcome.status = solveStage(ws, buf, U1, hd, cond, newton, outcome);
   if (outcome.status !== 'ok') return outcome;
   F1.set(ws.F);
-  buf.q1.set(ws.faceQcell);
+  buf.q1.set(ws.faceQ);
 
   // error estimate h·Σ(b − b̂)·f, filtered through the stage matrix at the end state
   const { res, delta, work } = buf;
