@@ -50,10 +50,10 @@ export function gradedFaces(n: number, cosineShare: number = meshDefaults.cosine
 
 export function buildGrid(problem: Problem, refine = 1): Grid {
   const { layers, numerics } = problem;
-  const counts = layers.map((l) =>
-    cellsInLayer(l.thicknessM, l.cells === undefined ? undefined : l.cells * refine,
-      (l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm) * refine,
-      (l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer) * refine));
+  // refinement multiplies each layer's count exactly, so refined grids are comparable cell for cell
+  const counts = layers.map((l) => refine * cellsInLayer(l.thicknessM, l.cells,
+    l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
+    l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer));
   const n = counts.reduce((a, b) => a + b, 0);
   const dx = new Float64Array(n);
   const xc = new Float64Array(n);

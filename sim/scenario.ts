@@ -61,12 +61,23 @@ export function parseScenario(value: unknown): ParseResult {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) {
     return fail('(file)', `must be a JSON object, got ${value === null ? 'null' : Array.isArray(value) ? 'an array' : typeof value}`);
   }
+  // material names are checked on the raw keys: a schema's record output silently drops a key such as `__proto__`
+  const nameErrors = materialNameErrors((value as { materials?: unknown }).materials);
   const shape = scenarioSchema.safeParse(value, { reportInput: true });
-  if (!shape.success) return { ok: false, errors: shape.error.issues.flatMap(formatZodIssue) };
+  if (!shape.success) return { ok: false, errors: [...nameErrors, ...shape.error.issues.flatMap(formatZodIssue)] };
+  if (nameErrors.length > 0) return { ok: false, errors: nameErrors };
   const errors: FieldError[] = [];
   const problem = buildProblem(shape.data, errors);
   if (errors.length > 0 || !problem) return { ok: false, errors };
   return { ok: true, scenario: shape.data, problem };
+}
+
+function materialNameErrors(materials: unknown): FieldError[] {
+  if (typeof materials !== 'object' || materials === null || Array.isArray(materials)) return [];
+  return Object.keys(materials).filter((name) => !MATERIAL_NAME.test(name)).map((name) => ({
+    path: `materials.${name}`,
+    message: `a material name starts with a letter or digit and holds only letters, digits and _ . + -, got ${show(name)}`,
+  }));
 }
 
 function fail(path: string, message: string): ParseResult {
@@ -127,13 +138,7 @@ function faceSchedule(segments: readonly FaceSegmentFile[], side: 'bottom' | 'to
 function resolveMaterials(s: ScenarioFile, errors: FieldError[]): Map<string, Material> {
   const found = new Map<string, Material>();
   const inline = s.materials ?? {};
-  for (const name of Object.keys(inline)) {
-    if (!MATERIAL_NAME.test(name)) {
-      errors.push({ path: `materials.${name}`, message: `a material name starts with a letter or digit and holds only letters, digits and _ . + -, got ${show(name)}` });
-      continue;
-    }
-    found.set(name, materialFromFile(name, inline[name]!, `materials.${name}`, errors));
-  }
+  for (const name of Object.keys(inline)) found.set(name, materialFromFile(name, inline[name]!, `materials.${name}`, errors));
   s.layers.forEach((layer, i) => {
     if (found.has(layer.material)) return;
     const lib = MATERIAL_NAME.test(layer.material) ? libraryMaterial(layer.material) : undefined;
