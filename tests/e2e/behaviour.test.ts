@@ -1,0 +1,75 @@
+/**
+ * The view under load and under mistakes: a long run reports progress, leaves the page answering input, and can be
+ * cancelled with the last good result kept; an error in a value that two controls share is shown beside both.
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { artifacts, repoRoot, startHarness, text, waitForDone, type Harness } from './harness.ts';
+
+let harness: Harness;
+beforeAll(async () => { harness = await startHarness(); });
+afterAll(async () => { await harness?.close(); });
+
+async function freshPage(): Promise<Page> {
+  const context = await harness.browser.newContext({ viewport: { width: 1500, height: 1000 } });
+  const page = await context.newPage();
+  await page.goto(harness.url);
+  await waitForDone(page);
+  return page;
+}
+
+const statusIs = (page: Page, word: string) =>
+  page.waitForFunction((w) => document.querySelector('[data-testid="run-status"]')?.textContent === w, word);
+
+describe('the browser view while a run is long or an input is wrong', () => {
+  it('a long run shows progress, the page keeps answering, and cancel keeps the last result', async () => {
+    const page = await freshPage();
+    const halfFrozen = await text(page, 'verdict-half-frozen-at');
+    // the demo with a 0.02 s step cap: about 180 000 steps, many seconds of solving
+    const demo = JSON.parse(readFileSync(`${repoRoot}examples/bench-coupon.json`, 'utf8')) as Record<string, unknown>;
+    writeFileSync(`${artifacts}/slow-demo.json`, JSON.stringify({ ...demo, numerics: { max_step_s: 0.02 } }));
+    await page.setInputFiles('[data-testid="load-json"]', `${artifacts}/slow-demo.json`);
+    await statusIs(page, 'running');
+    await page.waitForFunction(() => Number((document.getElementById('run-progress') as HTMLProgressElement).value) > 0);
+    const latencies: number[] = [];
+    for (let k = 0; k < 5; k++) {
+      const t0 = Date.now();
+      await page.evaluate(() => document.title);
+      latencies.push(Date.now() - t0);
+    }
+    console.log(`[timing] page round trip while the solver runs: ${latencies.join(', ')} ms`);
+    expect(Math.max(...latencies)).toBeLessThan(1000);
+    expect(await text(page, 'run-status')).toBe('running');
+    await page.click('#cancel-run', { timeout: 5000 });
+    await statusIs(page, 'cancelled');
+    expect(await text(page, 'verdict-half-frozen-at')).toBe(halfFrozen);
+    expect(await page.$eval('#stale-note', (e) => (e as HTMLElement).hidden)).toBe(false);
+    await page.context().close();
+  });
+
+  it('an out-of-order heater removal time is named beside the heater control and beside the row it moves', async () => {
+    const page = await freshPage();
+    await page.fill('[data-testid="heat-off-s"]', '0');
+    await statusIs(page, 'error');
+    const nearControl = await page.$$eval('.heat-off [data-testid="field-error"]', (es) => es.map((e) => e.textContent ?? ''));
+    const nearRow = await page.$$eval('[data-testid="bottom-row-1"] [data-testid="field-error"]', (es) => es.map((e) => e.textContent ?? ''));
+    expect(nearControl).toHaveLength(1);
+    expect(nearControl[0]).toMatch(/time order/);
+    expect(nearRow).toEqual(nearControl);
+    expect(await page.evaluate(() => document.body.innerText)).not.toMatch(/NaN/);
+    await page.context().close();
+  });
+
+  it('without a separator the verdict says so and nothing shows NaN', async () => {
+    const page = await freshPage();
+    await page.uncheck('[data-testid="layer-row-1"] input[type="checkbox"]');
+    await page.waitForFunction(() => document.querySelector('[data-testid="verdict-window"]')?.textContent === 'never');
+    expect(await text(page, 'run-status')).toBe('done');
+    expect(await text(page, 'verdict-half-frozen-at')).toBe('never');
+    expect(await page.$eval('.card.window', (e) => e.textContent ?? '')).toMatch(/no layer is marked as separator/);
+    expect(await page.evaluate(() => document.body.innerText)).not.toMatch(/NaN|Infinity/);
+    await page.screenshot({ path: `${artifacts}/view-no-separator.png`, fullPage: true });
+    await page.context().close();
+  });
+});

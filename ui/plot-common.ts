@@ -1,0 +1,61 @@
+/** What the three charts share: configuration (hover, zoom, PNG export), base layout, and marker lines. */
+import type { Annotation, Config, Data, Layout, Shape } from 'plotly.js-dist-min';
+import { formatNumber } from './format.ts';
+
+export function chartConfig(filename: string): Partial<Config> {
+  return {
+    responsive: true,
+    displaylogo: false,
+    displayModeBar: true,
+    scrollZoom: false,
+    toImageButtonOptions: { format: 'png', filename, scale: 2 },
+  };
+}
+
+export function baseLayout(yTitle: string, extra: Partial<Layout> = {}): Partial<Layout> {
+  return {
+    margin: { l: 64, r: 24, t: 16, b: 48 },
+    font: { family: 'system-ui, -apple-system, "Segoe UI", sans-serif', size: 12, color: '#1f2933' },
+    paper_bgcolor: '#ffffff',
+    plot_bgcolor: '#ffffff',
+    xaxis: { title: { text: 'time, s' }, zeroline: false, gridcolor: '#e4e8ec' },
+    yaxis: { title: { text: yTitle }, zeroline: false, gridcolor: '#e4e8ec' },
+    legend: { orientation: 'h', y: -0.18, x: 0 },
+    ...extra,
+  };
+}
+
+/** A vertical line across the plot at time t, with its label at the top. */
+export function timeLine(tS: number, label: string, colour = '#52606d'): { shape: Partial<Shape>; annotation: Partial<Annotation> } {
+  return {
+    shape: { type: 'line', xref: 'x', yref: 'paper', x0: tS, x1: tS, y0: 0, y1: 1, line: { color: colour, width: 1.5, dash: 'dash' } },
+    annotation: {
+      xref: 'x', yref: 'paper', x: tS, y: 1, yanchor: 'bottom', xanchor: 'left', showarrow: false,
+      text: `${label} ${formatNumber(tS, { decimals: 0 })} s`, font: { size: 11, color: colour },
+    },
+  };
+}
+
+/** A horizontal line at y, labelled above it (or below) at the right end (or left). */
+export function levelLine(y: number, label: string, colour: string, dash: 'dash' | 'dot' | 'dashdot', side: 'left' | 'right' = 'right', below = false):
+  { shape: Partial<Shape>; annotation: Partial<Annotation> } {
+  return {
+    shape: { type: 'line', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: y, y1: y, line: { color: colour, width: 1.2, dash } },
+    annotation: {
+      xref: 'paper', yref: 'y', x: side === 'right' ? 1 : 0, y, xanchor: side === 'right' ? 'right' : 'left', yanchor: below ? 'top' : 'bottom',
+      showarrow: false, text: label, font: { size: 11, color: colour },
+    },
+  };
+}
+
+/** The thin cursor line for the time chosen with the slider (its `name` lets it be replaced alone). */
+export function cursorShape(tS: number): Partial<Shape> {
+  return { type: 'line', name: 'cursor', xref: 'x', yref: 'paper', x0: tS, x1: tS, y0: 0, y1: 1, line: { color: '#1f2933', width: 1 } };
+}
+
+export interface Figure {
+  readonly data: Data[];
+  readonly layout: Partial<Layout>;
+  /** Shapes without the time cursor, so moving the cursor only appends one. */
+  readonly shapes: Partial<Shape>[];
+}

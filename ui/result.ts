@@ -1,0 +1,67 @@
+/**
+ * A result on screen: the scenario that produced it (a snapshot, so later edits do not change what the charts mean),
+ * the record and summary from the worker, and per layer what the drawing and charts need.
+ */
+import type { Summary } from '../sim/verdict.ts';
+import { layerColour } from './colours.ts';
+import { asList, asNumber, asObject, asString, type JsonObject } from './json.ts';
+import { materialInfo, type MaterialInfo } from './materials.ts';
+import type { WireRecord } from './protocol.ts';
+
+export interface LayerView {
+  readonly index: number;
+  readonly id: string;
+  readonly material: MaterialInfo;
+  readonly thicknessMm: number;
+  readonly bottomMm: number;
+  readonly topMm: number;
+  readonly separator: boolean;
+  readonly colour: string;
+}
+
+export interface ShownResult {
+  readonly job: number;
+  readonly scenario: JsonObject;
+  readonly record: WireRecord;
+  readonly summary: Summary;
+  readonly layers: readonly LayerView[];
+  /** Footprint width for the drawing, mm (diameter or width), if given. */
+  readonly widthMm: number | undefined;
+  readonly areaM2: number | undefined;
+}
+
+export function shownResult(job: number, scenario: JsonObject, record: WireRecord, summary: Summary): ShownResult {
+  let at = 0;
+  const layers = asList(scenario.layers).map((l, index) => {
+    const o = asObject(l);
+    const thicknessMm = asNumber(o.thickness_mm) ?? 0;
+    const view: LayerView = {
+      index, id: asString(o.id) ?? `layer ${index + 1}`, material: materialInfo(scenario, asString(o.material) ?? ''),
+      thicknessMm, bottomMm: at, topMm: at + thicknessMm, separator: o.separator === true, colour: layerColour(index),
+    };
+    at += thicknessMm;
+    return view;
+  });
+  const fp = asObject(scenario.footprint);
+  const d = asNumber(fp.diameter_mm);
+  const w = asNumber(fp.width_mm);
+  const len = asNumber(fp.length_mm);
+  const areaM2 = d !== undefined ? (Math.PI * (d / 1000) ** 2) / 4 : w !== undefined && len !== undefined ? (w / 1000) * (len / 1000) : undefined;
+  return { job, scenario, record, summary, layers, widthMm: d ?? w, areaM2 };
+}
+
+/** Index of the recorded step nearest to t (s). */
+export function stepNear(tS: Float64Array, t: number): number {
+  let best = 0;
+  for (let j = 1; j < tS.length; j++) if (Math.abs(tS[j]! - t) < Math.abs(tS[best]! - t)) best = j;
+  return best;
+}
+
+/** The temperature range of the whole position–time map, °C. */
+export function mapRange(record: WireRecord): { lowC: number; highC: number } {
+  let lowC = Infinity;
+  let highC = -Infinity;
+  for (const v of record.map.data) { if (v < lowC) lowC = v; if (v > highC) highC = v; }
+  if (!(highC > lowC)) highC = lowC + 1;
+  return { lowC, highC };
+}

@@ -1,0 +1,72 @@
+/**
+ * Everything that shows a result: verdict cards, cross-section with its time slider, charts, ledger, warnings. A new
+ * result replaces all of them together; an error leaves them as they are, marked as the last good result.
+ */
+import { createCharts } from './charts.ts';
+import { byId, h } from './dom.ts';
+import { formatNumber } from './format.ts';
+import { renderLedger, renderWarnings } from './ledger-view.ts';
+import { stepNear, type ShownResult } from './result.ts';
+import { drawStack } from './stack-drawing.ts';
+import { renderVerdict } from './verdict-view.ts';
+
+export interface ResultsView {
+  /** Shows a result; the promise resolves when the charts have drawn it. */
+  readonly show: (r: ShownResult) => Promise<void>;
+  /** Says why nothing is shown yet (before the first result). */
+  readonly placeholder: (message: string) => void;
+  /** Marks what is on screen as older than the scenario (message), or current (undefined). */
+  readonly stale: (message: string | undefined) => void;
+  readonly current: () => ShownResult | undefined;
+}
+
+export function createResultsView(): ResultsView {
+  const charts = createCharts({
+    temperatures: byId('plot-temperatures'), liquid: byId('plot-liquid'), map: byId('plot-map'), offScale: byId('off-scale'),
+  });
+  const slider = byId<HTMLInputElement>('time-slider');
+  const sliderValue = byId<HTMLOutputElement>('time-value');
+  const staleNote = byId('stale-note');
+  const drawing = byId('stack-drawing');
+  let shown: ShownResult | undefined;
+  let chosenS: number | undefined;
+  drawStack(drawing, undefined, 0);
+
+  const showStep = (r: ShownResult, step: number): void => {
+    drawStack(drawing, r, step);
+    sliderValue.textContent = `${formatNumber(r.record.tS[step], { decimals: 1 })} s`;
+  };
+
+  slider.addEventListener('input', () => {
+    if (!shown) return;
+    const step = Number(slider.value);
+    chosenS = shown.record.tS[step];
+    showStep(shown, step);
+    if (chosenS !== undefined) charts.moveCursor(chosenS);
+  });
+
+  return {
+    show(r) {
+      shown = r;
+      const tS = r.record.tS;
+      const wanted = chosenS ?? r.summary.heat_off_s ?? tS[tS.length - 1] ?? 0;
+      const step = stepNear(tS, wanted);
+      slider.max = String(Math.max(tS.length - 1, 0));
+      slider.value = String(step);
+      renderVerdict(byId('verdict'), r);
+      renderLedger(byId('ledger'), r);
+      renderWarnings(byId('warnings'), r);
+      showStep(r, step);
+      return charts.draw(r, tS[step]);
+    },
+    placeholder(message) {
+      if (!shown) byId('verdict').replaceChildren(h('p', { class: 'note' }, message));
+    },
+    stale(message) {
+      staleNote.hidden = message === undefined;
+      staleNote.textContent = message ?? '';
+      document.body.classList.toggle('is-stale', message !== undefined);
+    },
+    current: () => shown,
+  };
+}

@@ -1,0 +1,49 @@
+/**
+ * The solver worker: checks the scenario, runs it, and posts progress (at most every `progressEveryMs`) and the
+ * result. The run is synchronous; the page cancels it by terminating this worker.
+ */
+import { parseScenario } from '../sim/scenario.ts';
+import { runProblem } from '../sim/run.ts';
+import type { FromWorker, ToWorker } from './protocol.ts';
+import { toWire } from './protocol.ts';
+import { formatNumber } from './format.ts';
+
+const defaults = {
+  /** Often enough for a smooth progress bar, rarely enough not to flood the page. */
+  progressEveryMs: 40,
+} as const;
+
+const scope = self as unknown as DedicatedWorkerGlobalScope;
+const post = (msg: FromWorker, transfer: Transferable[] = []): void => scope.postMessage(msg, transfer);
+
+scope.onmessage = (event: MessageEvent<ToWorker>) => {
+  const msg = event.data;
+  if (msg.type !== 'run') return;
+  const { job } = msg;
+  try {
+    const parsed = parseScenario(msg.scenario);
+    if (!parsed.ok) {
+      post({ type: 'error', job, errors: parsed.errors });
+      return;
+    }
+    const started = performance.now();
+    let lastPost = started;
+    const outcome = runProblem(parsed.problem, {
+      onProgress: (tS) => {
+        const now = performance.now();
+        if (now - lastPost >= defaults.progressEveryMs) {
+          lastPost = now;
+          post({ type: 'progress', job, t_s: tS });
+        }
+      },
+    });
+    if (outcome.status === 'ok') {
+      const { wire, transfer } = toWire(outcome.record);
+      post({ type: 'done', job, record: wire, summary: outcome.summary, solveMs: performance.now() - started }, transfer);
+    } else if (outcome.status === 'failed') {
+      post({ type: 'failed', job, message: `the solver stopped at t = ${formatNumber(outcome.tS)} s: ${outcome.message}` });
+    }
+  } catch (e) {
+    post({ type: 'failed', job, message: `internal error: ${(e as Error).message}` });
+  }
+};
