@@ -26,10 +26,10 @@ export const evolveDefaults = {
   /** Largest step right after a schedule change, s: the faces change abruptly there. */
   stepAfterChangeS: 0.5,
   /**
-   * Newton tolerance as a share of the error tolerance: keeps the iteration error well below the truncation error,
-   * and the energy imbalance (the sum of the Newton residuals) below 1e-6 of the heat exchanged on the examples.
+   * Newton tolerance as a share of the error tolerance: keeps the iteration error well below the truncation error.
+   * (The energy ledger does not depend on it: each stage closes its equations exactly, see tr-bdf2.ts.)
    */
-  newtonShare: 1e-3,
+  newtonShare: 1e-2,
   maxNewtonIterations: 12,
   /** Newton failure: cut the step by this factor. */
   newtonCut: 0.25,
