@@ -5,19 +5,13 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { artifacts, repoRoot, startHarness, text, waitForDone, type Harness } from './harness.ts';
+import { artifacts, freshPage as openPage, repoRoot, startHarness, text, type Harness } from './harness.ts';
 
 let harness: Harness;
 beforeAll(async () => { harness = await startHarness(); });
 afterAll(async () => { await harness?.close(); });
 
-async function freshPage(): Promise<Page> {
-  const context = await harness.browser.newContext({ viewport: { width: 1500, height: 1000 } });
-  const page = await context.newPage();
-  await page.goto(harness.url);
-  await waitForDone(page);
-  return page;
-}
+const freshPage = (): Promise<Page> => openPage(harness);
 
 const statusIs = (page: Page, word: string) =>
   page.waitForFunction((w) => document.querySelector('[data-testid="run-status"]')?.textContent === w, word);

@@ -5,19 +5,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { assertClose } from '../support/assert-close.ts';
-import { artifacts, runCount, startHarness, text, waitForDone, type Harness } from './harness.ts';
+import { artifacts, freshPage as openPage, runCount, startHarness, text, waitForDone, type Harness } from './harness.ts';
 
 let harness: Harness;
 beforeAll(async () => { harness = await startHarness(); });
 afterAll(async () => { await harness?.close(); });
 
-async function freshPage(): Promise<Page> {
-  const context = await harness.browser.newContext({ viewport: { width: 1500, height: 1000 } });
-  const page = await context.newPage();
-  await page.goto(harness.url);
-  await waitForDone(page);
-  return page;
-}
+const freshPage = (): Promise<Page> => openPage(harness);
 
 /** Fills a field and waits for the re-run it causes to be shown. */
 async function edit(page: Page, testid: string, value: string): Promise<void> {

@@ -74,3 +74,12 @@ export async function waitForCharts(page: Page, timeout = 60_000): Promise<void>
     return (e?.data?.length ?? 0) > 0;
   }), undefined, { timeout });
 }
+
+/** A fresh browser context on the view, with the demo computed. */
+export async function freshPage(harness: Harness): Promise<Page> {
+  const context = await harness.browser.newContext({ viewport: { width: 1500, height: 1000 } });
+  const page = await context.newPage();
+  await page.goto(harness.url);
+  await waitForDone(page);
+  return page;
+}
