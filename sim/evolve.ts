@@ -11,7 +11,7 @@ import type { Grid } from './mesh.ts';
 import type { Problem } from './problem.ts';
 import { conditionAt, sourceAt } from './problem.ts';
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
-import { createStepBuffers, settleFaces, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
+import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
 
 export const evolveDefaults = {
   /**
@@ -159,7 +159,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     let sourceJ = 0;
     for (let i = 0; i < grid.n; i++) sourceJ += step * source[i]! * grid.dx[i]!;
     yield {
-      t0: t, tg: t + (backwardEuler ? step : step * (2 - Math.SQRT2)), t1, buf, ws, cond,
+      t0: t, tg: t + (backwardEuler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
       bottomJ: stepFaceEnergy(buf, 0, step, backwardEuler),
       topJ: stepFaceEnergy(buf, 1, step, backwardEuler),
       sourceJ,

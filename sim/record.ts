@@ -6,6 +6,7 @@
  */
 import ndarray from 'ndarray';
 import type { NdArray } from 'ndarray';
+import { AIR_TABLE_RANGE_K } from './air.ts';
 import type { StepReport } from './evolve.ts';
 import { liquidFractionOf, temperatureOf } from './material.ts';
 import type { Grid } from './mesh.ts';
@@ -73,7 +74,7 @@ class Column {
   done(): Float64Array { return this.data.slice(0, this.length); }
 }
 
-interface RangeTracker { low: number; high: number; outside: boolean }
+interface RangeTracker { low: number; high: number; outside: boolean; filmLowK: number; filmHighK: number }
 
 /** Smallest face-to-air temperature difference, K, at which the natural-convection range is watched. */
 const RAYLEIGH_WATCH_MIN_K = 1;
@@ -107,7 +108,8 @@ export function createRecorder(problem: Problem, grid: Grid) {
   const hint = new Int32Array(n);
   const scratch = new Float64Array(2);
   const rayleighSeen: Record<'bottom' | 'top', RangeTracker> = {
-    bottom: { low: Infinity, high: 0, outside: false }, top: { low: Infinity, high: 0, outside: false },
+    bottom: { low: Infinity, high: 0, outside: false, filmLowK: Infinity, filmHighK: -Infinity },
+    top: { low: Infinity, high: 0, outside: false, filmLowK: Infinity, filmHighK: -Infinity },
   };
   const lengthM = problem.footprint ? problem.footprint.areaM2 / problem.footprint.perimeterM : 0;
 
@@ -149,6 +151,9 @@ export function createRecorder(problem: Problem, grid: Grid) {
     r.low = Math.min(r.low, ra);
     r.high = Math.max(r.high, ra);
     if (!rayleighInRange(ra, plumeRisesFromFace(side === 'bottom' ? 'down' : 'up', faceK, c.fluidK))) r.outside = true;
+    const film = 0.5 * (faceK + c.fluidK);
+    r.filmLowK = Math.min(r.filmLowK, film);
+    r.filmHighK = Math.max(r.filmHighK, film);
   };
 
   function onStep(step: StepReport): void {
@@ -208,6 +213,9 @@ export function createRecorder(problem: Problem, grid: Grid) {
     const warnings: string[] = [];
     for (const side of ['bottom', 'top'] as const) {
       const r = rayleighSeen[side];
+      if (r.filmLowK < AIR_TABLE_RANGE_K.low || r.filmHighK > AIR_TABLE_RANGE_K.high) {
+        warnings.push(`${side} face: air film temperatures ${kToC(r.filmLowK).toFixed(0)}–${kToC(r.filmHighK).toFixed(0)} °C reach beyond the air-property table (${kToC(AIR_TABLE_RANGE_K.low).toFixed(0)}–${kToC(AIR_TABLE_RANGE_K.high).toFixed(0)} °C); its end values were held`);
+      }
       if (r.outside) {
         warnings.push(`${side} face: natural convection at Rayleigh numbers ${r.low.toPrecision(2)}–${r.high.toPrecision(2)}; for at least part of the run this is outside the correlation's published range (from 10⁴), so its power law was extrapolated`);
       }

@@ -25,6 +25,7 @@ const BHAT2 = 1 / (6 * GAMMA * (1 - GAMMA));
 const BHAT3 = 0.5 - 1 / (6 * (1 - GAMMA));
 const BHAT = [1 - BHAT2 - BHAT3, BHAT2, BHAT3] as const;
 const E = [WEIGHTS[0] - BHAT[0], WEIGHTS[1] - BHAT[1], WEIGHTS[2] - BHAT[2]] as const;
+/** Where the stage point lies in a step, as a fraction of it (t + γh). */
 export const STAGE_FRACTION = GAMMA;
 
 export interface NewtonSettings {
