@@ -68,7 +68,8 @@ function program(): Command {
       const files = libraryNames().map((n) => libraryFile(n)!);
       if (opts.json) { process.stdout.write(`${JSON.stringify(files, null, 2)}\n`); return; }
       for (const f of files) {
-        const melt = f.melt ? `melts ${f.melt.solidus_C}–${f.melt.liquidus_C} °C, ${f.melt.latent_J_kg / 1000} kJ/kg` : 'no melt in range';
+        const range = f.melt && f.melt.solidus_C === f.melt.liquidus_C ? `at ${f.melt.solidus_C}` : `${f.melt?.solidus_C}–${f.melt?.liquidus_C}`;
+        const melt = f.melt ? `melts ${range} °C, ${f.melt.latent_J_kg / 1000} kJ/kg` : 'no melt in range';
         const limits = (f.limits ?? []).map((l) => `${l.kind} ${l.at_C} °C`).join(', ') || 'none';
         process.stdout.write(`${f.name} — ${f.title ?? ''}\n  ${melt}; limits: ${limits}\n`);
         for (const [key, src] of Object.entries(f.sources)) process.stdout.write(`  ${key}: ${src}\n`);
