@@ -27,13 +27,14 @@ function solverSummary() {
 
 /**
  * The page prints to 0.1; the solver's own value, computed here in Node, must lie within half of that of what is
- * printed, plus the solver's stated event-time accuracy of 0.1 % (sim/scenario.ts, scenarioDefaults.toleranceK):
- * Chromium and Node differ in the last bits of Math functions, so the adaptive steps, and the results within the
- * solver's accuracy, differ slightly between the two engines (TOOLCHAIN.md).
+ * printed, plus the solver's stated accuracy: Chromium and Node differ in the last bits of Math functions, so the
+ * adaptive steps differ and each engine's result lands elsewhere within that accuracy (TOOLCHAIN.md). For event times
+ * it is the promise of the defaults, max(0.1 %, 0.5 s) (tests/convergence/accuracy-promise.test.ts); for margins in
+ * kelvin, 0.1 K (peak temperatures move < 0.04 K between a default and a 25× tighter run).
  */
-function printedAs(printed: string, solver: number | null, label: string): void {
+function printedAs(printed: string, solver: number | null, label: string, floor = 0.5): void {
   if (solver === null) { expect(printed, label).toBe('never'); return; }
-  assertClose(Number(printed), solver, { abs: 0.05 + 1e-3 * Math.abs(solver) }, label);
+  assertClose(Number(printed), solver, { abs: 0.05 + Math.max(floor, 1e-3 * Math.abs(solver)) }, label);
 }
 
 describe('the browser view on the demo scenario', () => {
@@ -65,7 +66,7 @@ describe('the browser view on the demo scenario', () => {
     printedAs(await text(page, 'verdict-half-frozen-at'), s.separator.half_frozen_at_s, 'half-frozen at, s');
     printedAs(await text(page, 'verdict-frozen-at'), s.separator.frozen_at_s, 'frozen at, s');
     printedAs(await text(page, 'verdict-window'), s.safe_window_s, 'usable window, s');
-    printedAs(await text(page, 'verdict-margin-anode'), s.layers.anode!.margin_K, 'anode margin, K');
+    printedAs(await text(page, 'verdict-margin-anode'), s.layers.anode!.margin_K, 'anode margin, K', 0.1);
     // the demo file's own stated check (examples/bench-coupon.json "expect"): more than 100 K to ignition
     expect(Number(await text(page, 'verdict-margin-anode'))).toBeGreaterThan(100);
     // three layers: a band (2 traces) and a mean line each
