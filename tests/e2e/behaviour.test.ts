@@ -26,15 +26,17 @@ describe('the browser view while a run is long or an input is wrong', () => {
     await page.setInputFiles('[data-testid="load-json"]', `${artifacts}/slow-demo.json`);
     await statusIs(page, 'running');
     await page.waitForFunction(() => Number((document.getElementById('run-progress') as HTMLProgressElement).value) > 0);
+    // The page answers while the solve is still going: each round trip through the page's main thread comes back
+    // with the run still in progress, which a solve on the main thread could not allow. (The round-trip times are
+    // printed, not asserted: on a shared 2-core machine they measure the machine, not the page.)
     const latencies: number[] = [];
     for (let k = 0; k < 5; k++) {
       const t0 = Date.now();
-      await page.evaluate(() => document.title);
+      const status = await page.evaluate(() => document.querySelector('[data-testid="run-status"]')?.textContent);
       latencies.push(Date.now() - t0);
+      expect(status, `round trip ${k}: the run is still in progress when the page answers`).toBe('running');
     }
     console.log(`[timing] page round trip while the solver runs: ${latencies.join(', ')} ms`);
-    expect(Math.max(...latencies)).toBeLessThan(1000);
-    expect(await text(page, 'run-status')).toBe('running');
     await page.click('#cancel-run', { timeout: 5000 });
     await statusIs(page, 'cancelled');
     expect(await text(page, 'verdict-half-frozen-at')).toBe(halfFrozen);
