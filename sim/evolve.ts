@@ -9,7 +9,7 @@ import { createWorkspace, updateCapacity } from './discretization.ts';
 import { enthalpyAt } from './material.ts';
 import type { Grid } from './mesh.ts';
 import type { Problem } from './problem.ts';
-import { conditionAt, sourceAt } from './problem.ts';
+import { characteristicLengthM, conditionAt, sourceAt } from './problem.ts';
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
 import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
 
@@ -99,7 +99,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   Generator<StepReport, EvolveEnd, void> {
   const { numerics, durationS } = problem;
   const d = evolveDefaults;
-  const lengthM = problem.footprint ? problem.footprint.areaM2 / problem.footprint.perimeterM : 0;
+  const lengthM = characteristicLengthM(problem.footprint);
   const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM });
   const buf = createStepBuffers(grid.n);
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };

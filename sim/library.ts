@@ -9,17 +9,21 @@ import { materialFromFile } from './material-file.ts';
 import { type LibraryMaterialFile, libraryMaterialSchema } from './scenario-schema.ts';
 
 const cache = new Map<string, Material>();
+const checkedFiles = new Map<string, LibraryMaterialFile>();
 
 export const libraryNames = (): string[] => Object.keys(libraryMaterialFiles).sort();
 
-/** The checked file of a library material, or undefined if there is none by that exact name. */
+/** The checked file of a library material (checked once), or undefined if there is none by that exact name. */
 export function libraryFile(name: string): LibraryMaterialFile | undefined {
   if (!Object.hasOwn(libraryMaterialFiles, name)) return undefined;
+  const checked = checkedFiles.get(name);
+  if (checked) return checked;
   const parsed = libraryMaterialSchema.safeParse(libraryMaterialFiles[name], { reportInput: true });
   if (!parsed.success) {
     const why = parsed.error.issues.flatMap(formatZodIssue).map(formatFieldError).join('; ');
     throw new Error(`materials/${name}.json is invalid: ${why}`);
   }
+  checkedFiles.set(name, parsed.data);
   return parsed.data;
 }
 

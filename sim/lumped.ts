@@ -10,7 +10,7 @@ import { Outcome, Solver } from 'odex';
 import { faceHeatIn, type FaceContext } from './faces.ts';
 import { conductivityAt, enthalpyAt, liquidFractionOf, temperatureOf } from './material.ts';
 import type { FaceCondition, Problem } from './problem.ts';
-import { conditionAt, sourceAt } from './problem.ts';
+import { characteristicLengthM, conditionAt, sourceAt } from './problem.ts';
 import { breakpoints } from './evolve.ts';
 
 export const lumpedDefaults = {
@@ -33,7 +33,7 @@ export interface LumpedTrace {
 export function runLumped(problem: Problem): LumpedTrace {
   const layers = problem.layers;
   const n = layers.length;
-  const lengthM = problem.footprint ? problem.footprint.areaM2 / problem.footprint.perimeterM : 0;
+  const lengthM = characteristicLengthM(problem.footprint);
   const bottomCtx: FaceContext = { facing: 'down', lengthM };
   const topCtx: FaceContext = { facing: 'up', lengthM };
   const scratch = new Float64Array(2);

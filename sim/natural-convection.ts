@@ -35,12 +35,12 @@ export function nusselt(ra: number, plumeRises: boolean): number {
   return 0.52 * ra ** 0.2;
 }
 
+const slopeScratch = new Float64Array(1);
+
 /** Heat-transfer coefficient h, W·m⁻²·K⁻¹, of a horizontal face at tK in air at fluidK; lengthM = A/P. */
 export function naturalConvectionCoefficient(facing: Facing, tK: number, fluidK: number, lengthM: number): number {
   if (tK === fluidK) return 0;
-  const ra = rayleigh(tK, fluidK, lengthM);
-  const film = 0.5 * (tK + fluidK);
-  return (nusselt(ra, plumeRisesFromFace(facing, tK, fluidK)) * evalTable(airConductivity, film)) / lengthM;
+  return naturalConvectionIn(facing, tK, fluidK, lengthM, slopeScratch) / (fluidK - tK);
 }
 
 /**

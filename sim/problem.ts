@@ -58,6 +58,13 @@ export interface Footprint {
   readonly perimeterM: number;
 }
 
+/**
+ * Characteristic length of a horizontal face for natural convection, L = A/P (Goldstein, Sparrow & Jones 1973), m;
+ * 0 without a footprint (the scenario check refuses "natural" then, so it is never used).
+ */
+export const characteristicLengthM = (footprint: Footprint | undefined): number =>
+  (footprint ? footprint.areaM2 / footprint.perimeterM : 0);
+
 export interface Numerics {
   /** Local error tolerance per step, in kelvin-equivalent enthalpy (error in H divided by ρc_p). */
   readonly toleranceK: number;

@@ -11,7 +11,7 @@ import type { StepReport } from './evolve.ts';
 import { liquidFractionOf, temperatureOf } from './material.ts';
 import type { Grid } from './mesh.ts';
 import { plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
-import type { FaceCondition, Problem } from './problem.ts';
+import { characteristicLengthM, type FaceCondition, type Problem } from './problem.ts';
 import { kToC, mToMm } from './units.ts';
 
 export interface LayerSeries {
@@ -111,7 +111,7 @@ export function createRecorder(problem: Problem, grid: Grid) {
     bottom: { low: Infinity, high: 0, outside: false, filmLowK: Infinity, filmHighK: -Infinity },
     top: { low: Infinity, high: 0, outside: false, filmLowK: Infinity, filmHighK: -Infinity },
   };
-  const lengthM = problem.footprint ? problem.footprint.areaM2 / problem.footprint.perimeterM : 0;
+  const lengthM = characteristicLengthM(problem.footprint);
 
   const storedOf = (U: Float64Array): number => {
     let s = 0;

@@ -14,7 +14,7 @@ import { clearFieldErrors, showFieldErrors } from './errors-view.ts';
 import { renderFaceEditor } from './faces-editor.ts';
 import { syncPeers } from './fields.ts';
 import { download, fileStem, readScenarioFile, scenarioText } from './files.ts';
-import { seriesCsv } from './csv.ts';
+import { seriesCsv } from '../sim/series-csv.ts';
 import { formatNumber } from './format.ts';
 import { asNumber, isObject, type JsonObject } from './json.ts';
 import { autosave, forgetAutosaved, fromHash, loadAutosaved, shareLink } from './persist.ts';

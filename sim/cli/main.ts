@@ -11,7 +11,7 @@ import { runProblem } from '../run.ts';
 import { parseScenarioText } from '../scenario.ts';
 import type { Problem } from '../problem.ts';
 import { benchProblem } from './bench-run.ts';
-import { seriesCsv } from './csv.ts';
+import { seriesCsv } from '../series-csv.ts';
 import { summaryTable } from './table.ts';
 
 export const EXIT = { ok: 0, internal: 1, invalid: 2 } as const;
