@@ -8,13 +8,13 @@
  */
 import { Outcome, Solver } from 'odex';
 import { faceHeatIn, type FaceContext } from './faces.ts';
-import { conductivityAt, enthalpyAt, liquidFractionOf, temperatureOf } from './material.ts';
+import { conductivityAt, enthalpyAt, liquidFractionOf, sensibleCapacity, temperatureOf } from './material.ts';
 import type { FaceCondition, Problem } from './problem.ts';
 import { characteristicLengthM, conditionAt, sourceAt } from './problem.ts';
 import { breakpoints } from './evolve.ts';
 
 export const lumpedDefaults = {
-  /** odex tolerances on E (J/m²): relative, and absolute as a share of a 1 K change of the stack. */
+  /** odex tolerances on E (J/m²): relative, and absolute as the energy of this many kelvin in each layer. */
   relativeTolerance: 1e-8,
   absoluteToleranceK: 1e-6,
   maxSteps: 200_000,
@@ -45,10 +45,10 @@ export function runLumped(problem: Problem): LumpedTrace {
       temps[i] = scratch[0]!;
     }
   };
-  const faceIn = (c: FaceCondition, ctx: FaceContext, i: number) => {
+  const faceIn = (c: FaceCondition, ctx: FaceContext, i: number, E: number) => {
     const layer = layers[i]!;
     if (c.kind === 'fixed') {
-      const k = conductivityAt(layer.material, 0, temps[i]!);
+      const k = conductivityAt(layer.material, E / layer.thicknessM, temps[i]!);
       return (c.tK - temps[i]!) / (layer.thicknessM / (2 * k));
     }
     return faceHeatIn(c, ctx, temps[i]!, scratch);
@@ -85,14 +85,16 @@ export function runLumped(problem: Problem): LumpedTrace {
         dE[i]! -= q;
         dE[i + 1]! += q;
       }
-      dE[0]! += faceIn(bottom, bottomCtx, 0);
-      dE[n - 1]! += faceIn(top, topCtx, n - 1);
+      dE[0]! += faceIn(bottom, bottomCtx, 0, y[0]!);
+      dE[n - 1]! += faceIn(top, topCtx, n - 1, y[n - 1]!);
       for (let i = 0; i < n; i++) dE[i]! += sources[i]! * layers[i]!.thicknessM;
       return dE;
     };
     const solver = new Solver(n);
     solver.relativeTolerance = lumpedDefaults.relativeTolerance;
-    solver.absoluteTolerance = layers.map((l) => lumpedDefaults.absoluteToleranceK * l.thicknessM * l.material.density * 1000);
+    // absolute tolerance on E: the share of a kelvin, times the layer's sensible capacity per area at the start
+    solver.absoluteTolerance = layers.map((l) =>
+      lumpedDefaults.absoluteToleranceK * l.thicknessM * sensibleCapacity(l.material, problem.initialK));
     solver.maxSteps = lumpedDefaults.maxSteps;
     const result = solver.solve(rate, t, E, end, (_nr, _xOld, x, y) => { if (x > t) record(x, y); });
     if (result.outcome !== Outcome.Converged) return { ...trace, outcome: 'failed' };
