@@ -21,13 +21,11 @@ export interface ResultDocument {
 }
 
 export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, summary: Summary, stats: EvolveStats): ResultDocument {
-  const layers: Record<string, { min_C: number[]; mean_C: number[]; max_C: number[]; liquid_fraction?: number[] }> = {};
-  for (const l of record.layers) {
-    layers[l.id] = {
-      min_C: Array.from(l.minC), mean_C: Array.from(l.meanC), max_C: Array.from(l.maxC),
-      ...(l.liquidFraction && problem.layers.find((p) => p.id === l.id)?.separator ? { liquid_fraction: Array.from(l.liquidFraction) } : {}),
-    };
-  }
+  // keyed by layer id with own properties (Object.fromEntries), so any id, "__proto__" included, is kept
+  const layers = Object.fromEntries(record.layers.map((l, li) => [l.id, {
+    min_C: Array.from(l.minC), mean_C: Array.from(l.meanC), max_C: Array.from(l.maxC),
+    ...(l.liquidFraction && problem.layers[li]!.separator ? { liquid_fraction: Array.from(l.liquidFraction) } : {}),
+  }]));
   const doc: ResultDocument = {
     summary: { ...summary, warnings: record.warnings },
     probes: { x_mm: record.probes.xMm, t_s: record.probes.tS, T_C: record.probes.tC },

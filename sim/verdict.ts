@@ -121,16 +121,16 @@ export function summarize(problem: Problem, record: RunRecord): Summary {
     if (heatOff !== null) half = firstCrossing(sep.tS, sep.meanLiquid, 0.5, heatOff, 'fall-below');
     if (half !== null) frozen = firstCrossing(sep.tS, sep.freezeMargin, 0, half, 'fall-to');
   }
-  const layers: Record<string, LayerVerdict> = {};
+  const verdicts = problem.layers.map((l, li) => [l.id, layerVerdict(problem, record, li)] as const);
+  // keyed by layer id with own properties (Object.fromEntries): an id such as "__proto__" stays an ordinary key
+  const layers: Record<string, LayerVerdict> = Object.fromEntries(verdicts);
   let binding: string | null = null;
   let bindingMargin = Infinity;
   let crossed = false;
-  problem.layers.forEach((l, li) => {
-    const v = layerVerdict(problem, record, li);
-    layers[l.id] = v;
-    if (v.margin_K !== null && v.margin_K < bindingMargin) { bindingMargin = v.margin_K; binding = l.id; }
+  for (const [id, v] of verdicts) {
+    if (v.margin_K !== null && v.margin_K < bindingMargin) { bindingMargin = v.margin_K; binding = id; }
     if (v.margin_K !== null && v.margin_K <= 0) crossed = true;
-  });
+  }
   const status: WindowStatus = !sep ? 'no-separator'
     : crossed ? 'limit-crossed'
     : molten === null ? 'never-molten'
