@@ -16,9 +16,12 @@ export const naturalConvectionRanges = {
   lowerFacing: { low: 1e4, high: 1e9 },
 } as const;
 
+/** The film temperature at which air properties are taken, K: the mean of surface and free stream (Incropera §7.1). */
+export const filmTemperature = (tK: number, fluidK: number): number => 0.5 * (tK + fluidK);
+
 /** Rayleigh number for a face at tK next to air at fluidK; lengthM = A/P. */
 export function rayleigh(tK: number, fluidK: number, lengthM: number): number {
-  const film = 0.5 * (tK + fluidK);
+  const film = filmTemperature(tK, fluidK);
   const nu = evalTable(airKinematicViscosity, film);
   const alpha = evalTable(airDiffusivity, film);
   return (STANDARD_GRAVITY_M_S2 * Math.abs(tK - fluidK) * lengthM ** 3) / (film * nu * alpha);
@@ -54,7 +57,7 @@ export function naturalConvectionIn(facing: Facing, tK: number, fluidK: number, 
   }
   const ra = rayleigh(tK, fluidK, lengthM);
   const rises = plumeRisesFromFace(facing, tK, fluidK);
-  const film = 0.5 * (tK + fluidK);
+  const film = filmTemperature(tK, fluidK);
   const h = (nusselt(ra, rises) * evalTable(airConductivity, film)) / lengthM;
   out[0] = -convectionSlopeFactor(ra, rises) * h;
   return h * (fluidK - tK);

@@ -10,7 +10,7 @@ import { AIR_TABLE_RANGE_K } from './air.ts';
 import type { StepReport } from './evolve.ts';
 import { liquidFractionOf, temperatureOf } from './material.ts';
 import type { Grid } from './mesh.ts';
-import { plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
+import { filmTemperature, plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
 import { characteristicLengthM, type FaceCondition, type Problem } from './problem.ts';
 import { kToC, mToMm } from './units.ts';
 
@@ -151,7 +151,7 @@ export function createRecorder(problem: Problem, grid: Grid) {
     r.low = Math.min(r.low, ra);
     r.high = Math.max(r.high, ra);
     if (!rayleighInRange(ra, plumeRisesFromFace(side === 'bottom' ? 'down' : 'up', faceK, c.fluidK))) r.outside = true;
-    const film = 0.5 * (faceK + c.fluidK);
+    const film = filmTemperature(faceK, c.fluidK);
     r.filmLowK = Math.min(r.filmLowK, film);
     r.filmHighK = Math.max(r.filmHighK, film);
   };

@@ -16,6 +16,8 @@ const celsius = () => z.number().gte(ABSOLUTE_ZERO_C, { error: `must be ≥ ${AB
 const positive = () => z.number().gt(0, { error: 'must be > 0' });
 const nonNegative = () => z.number().gte(0, { error: 'must be ≥ 0' });
 const timeS = () => z.number().gte(0, { error: 'must be ≥ 0 s' });
+/** A fraction such as an emissivity: a number in [0, 1]. */
+const unitInterval = () => z.number().gte(0, { error: 'must be in [0, 1]' }).lte(1, { error: 'must be in [0, 1]' });
 
 /** A property: one number, or a table [[T_C, value], ...] with strictly increasing temperatures (checked later). */
 const property = () =>
@@ -50,8 +52,8 @@ const materialFields = {
   melt: meltSchema.optional(),
   limits: z.array(limitSchema).optional(),
   emissivity: z.strictObject({
-    low: z.number().gte(0).lte(1),
-    high: z.number().gte(0).lte(1),
+    low: unitInterval(),
+    high: unitInterval(),
     note: z.string().optional(),
     source: z.string().optional(),
   }).optional(),
@@ -101,7 +103,7 @@ const faceSegmentSchema = z.strictObject({
     error: 'must be a number ≥ 0 or "natural"',
   }).optional(),
   fluid_C: celsius().optional(),
-  emissivity: z.number().gte(0, { error: 'must be in [0, 1]' }).lte(1, { error: 'must be in [0, 1]' }).optional(),
+  emissivity: unitInterval().optional(),
   surroundings_C: celsius().optional(),
   plate: plateSchema.optional(),
   fixed_C: celsius().optional(),
