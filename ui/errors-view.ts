@@ -5,7 +5,8 @@
  */
 import type { FieldError } from '../sim/field-errors.ts';
 import { h } from './dom.ts';
-import { formatPath, parsePath } from './paths.ts';
+import { formatPath } from '../sim/field-errors.ts';
+import { parsePath } from './paths.ts';
 
 const ERROR_CLASS = 'field-error';
 

@@ -15,10 +15,6 @@ export function parsePath(path: string): PathPart[] {
   return parts;
 }
 
-export function formatPath(parts: readonly PathPart[]): string {
-  return parts.map((p, i) => (typeof p === 'number' ? `[${p}]` : i === 0 ? p : `.${p}`)).join('');
-}
-
 function child(container: Json | undefined, key: PathPart): Json | undefined {
   if (typeof key === 'number') return Array.isArray(container) ? container[key] : undefined;
   return isObject(container) && Object.hasOwn(container, key) ? container[key] : undefined;
