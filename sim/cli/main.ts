@@ -2,39 +2,14 @@
  * The `freezeline` command. Exit codes: 0 success, 2 invalid input (each message names the field and the value),
  * 1 internal failure. `run --json` writes exactly the result document on stdout and nothing else.
  */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { Command, CommanderError } from 'commander';
-import { formatFieldError } from '../field-errors.ts';
 import { libraryFile, libraryNames } from '../library.ts';
 import { resultDocument } from '../result.ts';
-import { runProblem } from '../run.ts';
-import { parseScenarioText } from '../scenario.ts';
-import type { Problem } from '../problem.ts';
 import { benchProblem } from './bench-run.ts';
+import { EXIT, InputError, readProblem, runOrFail } from './input.ts';
 import { seriesCsv } from '../series-csv.ts';
 import { summaryTable } from './table.ts';
-
-export const EXIT = { ok: 0, internal: 1, invalid: 2 } as const;
-
-class InputError extends Error {}
-
-function readProblem(file: string): Problem {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (e) {
-    throw new InputError(`${file}: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
-  const parsed = parseScenarioText(text);
-  if (!parsed.ok) throw new InputError(parsed.errors.map((e) => `${file}: ${formatFieldError(e)}`).join('\n'));
-  return parsed.problem;
-}
-
-function runOrFail(problem: Problem) {
-  const out = runProblem(problem);
-  if (out.status !== 'ok') throw new Error(out.status === 'failed' ? `the run failed at t = ${out.tS} s: ${out.message}` : 'the run was cancelled');
-  return out;
-}
 
 function program(): Command {
   const cli = new Command('freezeline')
@@ -87,6 +62,7 @@ function program(): Command {
       if (opts.json) process.stdout.write(`${JSON.stringify(figures)}\n`);
       else process.stdout.write(`median ${figures.median_ms.toFixed(2)} ms over ${figures.runs} runs; ${figures.cells} cells, ${figures.steps} steps, ${figures.newton_iterations} Newton iterations, ${(figures.cell_updates_per_s / 1e6).toFixed(1)} M cell-updates/s\n`);
     });
+  // each study command registers itself from its own file (sim/cli/cmd-*.ts)
   return cli;
 }
 
