@@ -92,6 +92,8 @@ export interface Problem {
   readonly top: readonly FaceSegment[];
   readonly outputTimesS: readonly number[];
   readonly probesM: readonly number[];
+  /** What each probe marks ("anode mid-plane", "collector | separator"), same order as probesM. */
+  readonly probeLabels: readonly string[];
   readonly numerics: Numerics;
 }
 

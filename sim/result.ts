@@ -11,7 +11,8 @@ import type { Summary } from './verdict.ts';
 
 export interface ResultDocument {
   readonly summary: Summary & { readonly warnings: readonly string[] };
-  readonly probes: { readonly x_mm: readonly number[]; readonly t_s: readonly number[]; readonly T_C: readonly (readonly number[])[] };
+  /** `label` (an addition to the contract) says what each probe marks: "bottom face", "anode mid-plane", … */
+  readonly probes: { readonly x_mm: readonly number[]; readonly label: readonly string[]; readonly t_s: readonly number[]; readonly T_C: readonly (readonly number[])[] };
   readonly series: {
     readonly t_s: readonly number[];
     readonly layers: Readonly<Record<string, { min_C: number[]; mean_C: number[]; max_C: number[]; liquid_fraction?: number[] }>>;
@@ -28,7 +29,7 @@ export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, 
   }]));
   const doc: ResultDocument = {
     summary: { ...summary, warnings: record.warnings },
-    probes: { x_mm: record.probes.xMm, t_s: record.probes.tS, T_C: record.probes.tC },
+    probes: { x_mm: record.probes.xMm, label: problem.probeLabels, t_s: record.probes.tS, T_C: record.probes.tC },
     series: { t_s: Array.from(record.tS), layers, faces: { bottom_C: Array.from(record.bottomC), top_C: Array.from(record.topC) } },
     solver: { cells: grid.n, steps: stats.steps, rejected_steps: stats.rejected, newton_iterations: stats.newtonIterations },
   };

@@ -10,6 +10,7 @@ import type { FaceCondition, FaceSegment, Footprint, Layer, Problem } from './pr
 import { formatZodIssue, type FieldError } from './field-errors.ts';
 import { libraryMaterial } from './library.ts';
 import type { FaceSegmentFile, ScenarioFile } from './scenario-schema.ts';
+import { labelDepths, stackProbes } from './probes.ts';
 import { scenarioSchema } from './scenario-schema.ts';
 import { cToK, mmToM } from './units.ts';
 
@@ -205,10 +206,12 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
   times.forEach((t, i) => {
     if (t > s.duration_s) errors.push({ path: `output.times_s[${i}]`, message: `must be within [0, duration_s = ${s.duration_s}], got ${t}` });
   });
-  const probes = s.output?.probes_mm ?? [];
-  probes.forEach((x, i) => {
+  const ownProbes = s.output?.probes_mm;
+  ownProbes?.forEach((x, i) => {
     if (x > totalMm) errors.push({ path: `output.probes_mm[${i}]`, message: `must be within the stack [0, ${totalMm}] mm, got ${x}` });
   });
+  // without depths of the user's own, the probes follow the layers (they can never fall outside the stack)
+  const probes = ownProbes ? labelDepths(ownProbes, s.layers) : stackProbes(s.layers);
   if (errors.length > 0) return undefined;
   const num = s.numerics ?? {};
   return {
@@ -222,7 +225,8 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
     bottom,
     top,
     outputTimesS: times,
-    probesM: probes.map(mmToM),
+    probesM: probes.map((p) => mmToM(p.xMm)),
+    probeLabels: probes.map((p) => p.label),
     numerics: {
       toleranceK: num.tolerance_K ?? scenarioDefaults.toleranceK,
       liquidFractionTolerance: num.liquid_fraction_tolerance ?? scenarioDefaults.liquidFractionTolerance,

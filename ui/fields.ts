@@ -76,7 +76,7 @@ export function checkField(store: DraftStore, o: FieldOptions): HTMLElement {
 
 /** Brings every other input bound to `path` up to date with the draft (two controls can edit one value). */
 export function syncPeers(root: ParentNode, store: DraftStore, path: string, source: Element | undefined): void {
-  for (const e of root.querySelectorAll<HTMLInputElement>(`input[type="text"][data-path="${CSS.escape(path)}"]`)) {
+  for (const e of root.querySelectorAll<HTMLInputElement>(`input[type="text"][data-path="${CSS.escape(path)}"]:not([data-list])`)) {
     if (e !== source) e.value = inputText(store.get(path));
   }
 }

@@ -9,6 +9,7 @@ import { fieldWrapper, numberField, stringField } from './fields.ts';
 import { inputText, parseNumberInput } from './format.ts';
 import { asNumber, asObject } from './json.ts';
 import { heaterOffRow } from './heat-off.ts';
+import { probesField } from './probes-field.ts';
 
 function footprintFields(store: DraftStore): HTMLElement {
   const fp = asObject(store.get('footprint'));
@@ -68,6 +69,7 @@ export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEd
       numberField(store, { path: 'initial_C', label: 'initial temperature', unit: '°C', placeholder: 'ambient' }),
       numberField(store, { path: 'duration_s', label: 'duration', unit: 's' }),
       footprintFields(store),
-      stringField(store, { path: 'name', label: 'scenario name', wide: true })));
+      stringField(store, { path: 'name', label: 'scenario name', wide: true }),
+      probesField(store)));
   return { refresh };
 }
