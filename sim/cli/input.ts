@@ -11,7 +11,8 @@ import { parseScenarioText } from '../scenario.ts';
 /** A caller error: printed as it is, exit code 2. */
 export class InputError extends Error {}
 
-export const EXIT = { ok: 0, internal: 1, invalid: 2 } as const;
+/** 3: the run finished, but a stated expectation (`expect` block) or a `--require` condition failed. */
+export const EXIT = { ok: 0, internal: 1, invalid: 2, failedCheck: 3 } as const;
 
 export function readText(file: string): string {
   try {
