@@ -42,19 +42,42 @@ export interface Summary {
   readonly energy: { readonly in_J_m2: number; readonly out_J_m2: number; readonly stored_J_m2: number; readonly imbalance_rel: number };
 }
 
-/** The end of the last heat input (s), 0 if there is none, null if one lasts until the end. */
-export function heatOffTime(problem: Problem): number | null {
-  let last = 0;
-  for (const segments of [problem.bottom, problem.top]) {
+/**
+ * Where a heat input ends, so a study can move that end: a face segment that is a heat input ends where the next
+ * segment starts (`next` is that segment's index; absent when it lasts to the end), a positive source interval ends
+ * at its `to_s`.
+ */
+export type HeatInput =
+  | { readonly kind: 'face'; readonly side: 'bottom' | 'top'; readonly segment: number; readonly next: number | undefined; readonly fromS: number; readonly endS: number }
+  | { readonly kind: 'source'; readonly layer: number; readonly interval: number; readonly fromS: number; readonly endS: number };
+
+/** Every heat input of the problem (the rule of `heat_off_s`: faces by sim/faces.ts `isHeatInput`, positive sources). */
+export function heatInputs(problem: Problem): HeatInput[] {
+  const found: HeatInput[] = [];
+  for (const side of ['bottom', 'top'] as const) {
+    const segments = problem[side];
     segments.forEach((seg, i) => {
       if (!isHeatInput(seg.condition)) return;
-      const end = segments[i + 1]?.fromS ?? Infinity;
-      last = Math.max(last, end);
+      const next = segments[i + 1];
+      found.push({ kind: 'face', side, segment: i, next: next ? i + 1 : undefined, fromS: seg.fromS, endS: next?.fromS ?? Infinity });
     });
   }
-  for (const layer of problem.layers) {
-    for (const s of layer.sources) if (s.value > 0) last = Math.max(last, s.toS);
-  }
+  problem.layers.forEach((layer, li) => {
+    layer.sources.forEach((s, k) => {
+      if (s.value > 0) found.push({ kind: 'source', layer: li, interval: k, fromS: s.fromS, endS: s.toS });
+    });
+  });
+  return found;
+}
+
+/** The heat input that ends last (the first of equals), or undefined when there is none. */
+export function lastHeatInput(problem: Problem): HeatInput | undefined {
+  return heatInputs(problem).reduce<HeatInput | undefined>((best, h) => (best === undefined || h.endS > best.endS ? h : best), undefined);
+}
+
+/** The end of the last heat input (s), 0 if there is none, null if one lasts until the end. */
+export function heatOffTime(problem: Problem): number | null {
+  const last = lastHeatInput(problem)?.endS ?? 0;
   return last >= problem.durationS ? null : last;
 }
 
