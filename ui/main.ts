@@ -13,6 +13,7 @@ import { byId } from './dom.ts';
 import { clearFieldErrors, showFieldErrors } from './errors-view.ts';
 import { renderFaceEditor } from './faces-editor.ts';
 import { syncPeers } from './fields.ts';
+import { fieldsToFill, markFieldsToFill } from './incomplete.ts';
 import { download, fileStem, readScenarioFile, scenarioText } from './files.ts';
 import { seriesCsv } from '../sim/series-csv.ts';
 import { formatNumber } from './format.ts';
@@ -23,6 +24,7 @@ import { shownResult } from './result.ts';
 import { createResultsView } from './results-view.ts';
 import { createRunner } from './runner.ts';
 import { renderSetupEditor, type SetupEditor } from './setup-editor.ts';
+import { refreshSourceNotes } from './source-rows.ts';
 import { renderStackEditor } from './stack-editor.ts';
 import { createStatusView } from './status-view.ts';
 
@@ -100,17 +102,31 @@ const runner = createRunner({
   },
 });
 
+/** Requests a run, unless a new row still has fields to fill in (then nothing runs, and nothing is an error). */
+function requestRun(now = false): void {
+  const toFill = fieldsToFill(store.current());
+  markFieldsToFill(editorRoot, toFill);
+  if (toFill.length > 0) {
+    runner.hold();
+    status.set('waiting', `fill in the ${toFill.length} field${toFill.length === 1 ? '' : 's'} marked “to fill in” to run`);
+    if (results.current()) results.stale('Showing the last result: a new row is not filled in yet.');
+    return;
+  }
+  status.set('running', 'waiting for the edit to settle…');
+  runner.request(store.current(), now);
+}
+
 store.listen((change) => {
   autosave(store.current());
   if (change.kind === 'field') {
     syncPeers(editorRoot, store, change.path, change.source);
+    refreshSourceNotes(editorRoot, store);
     if (change.path.startsWith('bottom')) setup?.refresh();
   } else {
     renderEditors();
   }
   performance.mark('freezeline:edit');
-  status.set('running', 'waiting for the edit to settle…');
-  runner.request(store.current());
+  requestRun();
 });
 
 byId('save-json').addEventListener('click', () =>
@@ -156,4 +172,4 @@ byId('reset-demo').addEventListener('click', () => {
 
 renderEditors();
 performance.mark('freezeline:editor');
-runner.request(store.current(), true);
+requestRun(true);

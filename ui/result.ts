@@ -3,10 +3,11 @@
  * the record and summary from the worker, and per layer what the drawing and charts need.
  */
 import type { Summary } from '../sim/verdict.ts';
-import { layerColour } from './colours.ts';
+import { layerColours } from './colours.ts';
 import { asList, asNumber, asObject, asString, type JsonObject } from './json.ts';
 import { materialInfo, type MaterialInfo } from './materials.ts';
 import type { WireRecord } from './protocol.ts';
+import { footprintAreaM2 } from './source-units.ts';
 
 export interface LayerView {
   readonly index: number;
@@ -32,22 +33,21 @@ export interface ShownResult {
 
 export function shownResult(job: number, scenario: JsonObject, record: WireRecord, summary: Summary): ShownResult {
   let at = 0;
+  const idOf = (l: unknown, index: number): string => asString(asObject(l as JsonObject).id) ?? `layer ${index + 1}`;
+  const colours = layerColours(asList(scenario.layers).map(idOf));
   const layers = asList(scenario.layers).map((l, index) => {
     const o = asObject(l);
     const thicknessMm = asNumber(o.thickness_mm) ?? 0;
+    const id = idOf(l, index);
     const view: LayerView = {
-      index, id: asString(o.id) ?? `layer ${index + 1}`, material: materialInfo(scenario, asString(o.material) ?? ''),
-      thicknessMm, bottomMm: at, topMm: at + thicknessMm, separator: o.separator === true, colour: layerColour(index),
+      index, id, material: materialInfo(scenario, asString(o.material) ?? ''),
+      thicknessMm, bottomMm: at, topMm: at + thicknessMm, separator: o.separator === true, colour: colours.get(id) ?? '#56616b',
     };
     at += thicknessMm;
     return view;
   });
   const fp = asObject(scenario.footprint);
-  const d = asNumber(fp.diameter_mm);
-  const w = asNumber(fp.width_mm);
-  const len = asNumber(fp.length_mm);
-  const areaM2 = d !== undefined ? (Math.PI * (d / 1000) ** 2) / 4 : w !== undefined && len !== undefined ? (w / 1000) * (len / 1000) : undefined;
-  return { job, scenario, record, summary, layers, widthMm: d ?? w, areaM2 };
+  return { job, scenario, record, summary, layers, widthMm: asNumber(fp.diameter_mm) ?? asNumber(fp.width_mm), areaM2: footprintAreaM2(scenario) };
 }
 
 /** Index of the recorded step nearest to t (s). */

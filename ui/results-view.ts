@@ -10,6 +10,11 @@ import { stepNear, type ShownResult } from './result.ts';
 import { drawStack } from './stack-drawing.ts';
 import { renderVerdict } from './verdict-view.ts';
 
+export const resultsDefaults = {
+  /** The time slider's resolution: the run's duration in this many equal steps (0.1 % of a run is finer than the eye). */
+  sliderPositions: 1000,
+} as const;
+
 export interface ResultsView {
   /** Shows a result; the promise resolves when the charts have drawn it. */
   readonly show: (r: ShownResult) => Promise<void>;
@@ -37,27 +42,32 @@ export function createResultsView(): ResultsView {
     sliderValue.textContent = `${formatNumber(r.record.tS[step], { decimals: 1 })} s`;
   };
 
+  // the slider moves in time (its value is seconds), not in solver steps: the drawing shows the recorded step nearest
   slider.addEventListener('input', () => {
     if (!shown) return;
-    const step = Number(slider.value);
-    chosenS = shown.record.tS[step];
-    showStep(shown, step);
-    if (chosenS !== undefined) charts.moveCursor(chosenS);
+    const t = Number(slider.value);
+    if (!Number.isFinite(t)) return;
+    chosenS = t;
+    showStep(shown, stepNear(shown.record.tS, t));
+    charts.moveCursor(t);
   });
 
   return {
     show(r) {
       shown = r;
       const tS = r.record.tS;
-      const wanted = chosenS ?? r.summary.heat_off_s ?? tS[tS.length - 1] ?? 0;
+      const endS = tS[tS.length - 1] ?? 0;
+      const wanted = Math.min(chosenS ?? r.summary.heat_off_s ?? endS, endS);
       const step = stepNear(tS, wanted);
-      slider.max = String(Math.max(tS.length - 1, 0));
-      slider.value = String(step);
-      renderVerdict(byId('verdict'), r);
+      slider.min = String(tS[0] ?? 0);
+      slider.max = String(endS);
+      slider.step = String(endS / resultsDefaults.sliderPositions || 1);
+      slider.value = String(wanted);
+      renderVerdict(byId('verdict'), byId('scenario-cautions'), r);
       renderLedger(byId('ledger'), r);
       renderWarnings(byId('warnings'), r);
       showStep(r, step);
-      return charts.draw(r, tS[step]);
+      return charts.draw(r, wanted);
     },
     placeholder(message) {
       if (!shown) byId('verdict').replaceChildren(h('p', { class: 'note' }, message));

@@ -28,6 +28,8 @@ export interface Runner {
   /** Queues a run of this scenario (debounced); `now` skips the wait. */
   request(scenario: unknown, now?: boolean): void;
   cancel(): void;
+  /** Drops a queued run and stops a running one without reporting it: the edited scenario is not ready to run. */
+  hold(): void;
   readonly busy: () => boolean;
 }
 
@@ -103,6 +105,11 @@ export function createRunner(handlers: RunHandlers): Runner {
       job += 1;
       stop();
       handlers.onCancelled();
+    },
+    hold() {
+      if (timer !== undefined) { clearTimeout(timer); timer = undefined; }
+      job += 1;
+      stop();
     },
     busy: () => running || timer !== undefined,
   };

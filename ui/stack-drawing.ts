@@ -10,7 +10,7 @@ import { mapRange, type ShownResult } from './result.ts';
 
 const geometry = {
   width: 560, stackWidth: 250, left: 16, top: 14, minStackHeight: 110, maxStackHeight: 300,
-  labelGap: 32, labelX: 300, legendHeight: 46,
+  labelGap: 32, labelX: 300, legendHeight: 46, strip: 6,
 } as const;
 
 interface Placed { readonly y: number; readonly ideal: number }
@@ -72,9 +72,12 @@ export function drawStack(host: HTMLElement, r: ShownResult | undefined, step: n
     return [
       svg('rect', { x: x0, y: yTop, width: stackW, height: Math.max(l.thicknessMm * vPerMm, 0.5), fill: 'url(#stack-profile)',
         class: l.separator ? 'stack-layer separator' : 'stack-layer' }),
+      // the layer's own colour (as in the editor and the charts) in a strip beside it
+      svg('rect', { x: x0 - geometry.strip - 2, y: yTop, width: geometry.strip, height: Math.max(l.thicknessMm * vPerMm, 0.5), fill: l.colour,
+        class: 'layer-strip', 'data-layer': l.id }),
       svg('polyline', { points: `${x0 + stackW},${ideal[i]} ${geometry.labelX - 8},${y}`, class: 'stack-leader' }),
       svg('text', { x: geometry.labelX, y: y - 3, class: 'stack-label' },
-        svg('tspan', { class: 'stack-id' }, l.id), ` · ${l.material.name}${l.separator ? ' · separator' : ''}`),
+        svg('tspan', { class: 'stack-id', fill: l.colour }, l.id), ` · ${l.material.name}${l.separator ? ' · separator' : ''}`),
       svg('text', { x: geometry.labelX, y: y + 12, class: 'stack-sub' },
         `${formatNumber(l.thicknessMm, { significant: 3 })} mm · mean ${formatNumber(meanC, { decimals: 0 })} °C`),
     ];

@@ -3,6 +3,7 @@
  * separator flag and any volumetric heat source; between neighbours the contact resistance. Test hooks:
  * `layer-row-<i>`, `layer-thickness-<i>`, `layer-material-<i>`, with i the index in the file (0 = bottom).
  */
+import { layerColours } from './colours.ts';
 import type { DraftStore } from './draft.ts';
 import { button, h } from './dom.ts';
 import { checkField, numberField, selectField, stringField } from './fields.ts';
@@ -36,7 +37,7 @@ function contactRow(store: DraftStore, i: number): HTMLElement {
   return h('div', { class: 'contact-row' }, field);
 }
 
-function layerRow(store: DraftStore, i: number, count: number, tell: Tell): HTMLElement {
+function layerRow(store: DraftStore, i: number, count: number, tell: Tell, colour: string | undefined): HTMLElement {
   const d = store.current();
   const layer = asObject(asList(d.layers)[i]);
   const base = `layers[${i}]`;
@@ -58,7 +59,8 @@ function layerRow(store: DraftStore, i: number, count: number, tell: Tell): HTML
     }),
     numberField(store, { path: `${base}.thickness_mm`, label: 'thickness', unit: 'mm', testid: `layer-thickness-${i}` }),
     checkField(store, { path: `${base}.separator`, label: 'separator', hint: 'The molten-salt layer whose melting and freezing set the usable window.' }));
-  return h('div', { class: `layer-row${layer.separator === true ? ' is-separator' : ''}`, 'data-testid': `layer-row-${i}` },
+  return h('div', { class: `layer-row${layer.separator === true ? ' is-separator' : ''}`, 'data-testid': `layer-row-${i}`,
+    style: colour ? `border-left-color: ${colour}` : undefined, 'data-colour': colour },
     h('div', { class: 'layer-head' }, h('span', { class: 'layer-place' }, place), fields, controls),
     materialCard(materialInfo(d, materialName)),
     sourceRows(store, i));
@@ -81,9 +83,11 @@ function structural(store: DraftStore, tell: Tell, edit: (d: JsonObject) => stri
 
 export function renderStackEditor(root: HTMLElement, store: DraftStore, tell: Tell): void {
   const layers = asList(store.current().layers);
+  const ids = layers.map((l, i) => asString(asObject(l).id) ?? `layer ${i + 1}`);
+  const colours = layerColours(ids);
   const rows: HTMLElement[] = [];
   for (let i = layers.length - 1; i >= 0; i--) {
-    rows.push(layerRow(store, i, layers.length, tell));
+    rows.push(layerRow(store, i, layers.length, tell, colours.get(ids[i]!)));
     if (i > 0) rows.push(contactRow(store, i - 1));
   }
   root.replaceChildren(

@@ -5,7 +5,8 @@
 import { byId } from './dom.ts';
 import { formatNumber } from './format.ts';
 
-export type RunState = 'idle' | 'running' | 'done' | 'error' | 'failed' | 'cancelled';
+/** `waiting`: a new row has fields to fill in, so no run is requested. */
+export type RunState = 'idle' | 'running' | 'done' | 'error' | 'failed' | 'cancelled' | 'waiting';
 
 export interface StatusView {
   readonly set: (state: RunState, detail?: string) => void;

@@ -4,6 +4,7 @@
  * in seconds (`959.3`) or `never` inside the test hooks; units and explanations sit beside them.
  */
 import type { Summary, WindowStatus } from '../sim/verdict.ts';
+import { scenarioCautions, type Caution } from './cautions.ts';
 import { h } from './dom.ts';
 import { formatNumber, formatSeconds } from './format.ts';
 import type { ShownResult } from './result.ts';
@@ -30,7 +31,7 @@ function sinceHeatOff(t: number | null, s: Summary): string {
   return `${formatNumber(t - s.heat_off_s, { decimals: 1 })} s after the heater is removed`;
 }
 
-function layerCard(r: ShownResult, id: string): HTMLElement {
+function layerCard(r: ShownResult, id: string, cautions: readonly Caution[]): HTMLElement {
   const v = r.summary.layers[id];
   const binding = r.summary.binding_layer === id;
   const margin = v?.margin_K ?? null;
@@ -44,11 +45,21 @@ function layerCard(r: ShownResult, id: string): HTMLElement {
     h('div', { class: 'card-note' },
       `peak ${formatNumber(v?.peak_C, { decimals: 1 })} °C at ${formatNumber(v?.peak_at_s, { decimals: 0 })} s`,
       limit ? `; ${limit.kind} at ${formatNumber(limit.at_C, { decimals: 0 })} °C` : '; no limit on file'),
-    crossed ? h('div', { class: 'card-warning', role: 'alert' }, `⚠ ${id} reaches its ${limit?.kind ?? ''} limit: not safe as predicted.`) : undefined);
+    crossed ? h('div', { class: 'card-warning', role: 'alert' }, `⚠ ${id} reaches its ${limit?.kind ?? ''} limit: not safe as predicted.`) : undefined,
+    ...cautions.filter((c) => c.layer === id).map((c) =>
+      h('div', { class: 'card-caution', 'data-testid': `caution-${c.kind}-${id}` }, `⚠ ${c.short}`)));
 }
 
-export function renderVerdict(root: HTMLElement, r: ShownResult): void {
+/** The scenario's own cautions, inside the caution box beside the verdict. */
+function renderScenarioCautions(list: HTMLElement, cautions: readonly Caution[]): void {
+  list.replaceChildren(...cautions.map((c) => h('li', { 'data-kind': c.kind }, c.sentence)));
+  list.hidden = cautions.length === 0;
+}
+
+export function renderVerdict(root: HTMLElement, cautionList: HTMLElement, r: ShownResult): void {
   const s = r.summary;
+  const cautions = scenarioCautions(r.layers, s);
+  renderScenarioCautions(cautionList, cautions);
   const sep = s.separator;
   const window = h('div', { class: `card window${s.safe_window_s === null ? ' muted' : ' good'}${s.safe_window_status === 'limit-crossed' ? ' crossed' : ''}` },
     h('div', { class: 'card-label' }, 'usable window'),
@@ -62,5 +73,5 @@ export function renderVerdict(root: HTMLElement, r: ShownResult): void {
       timeCard('separator molten at', 'verdict-molten-at', sep.molten_at_s, sinceHeatOff(sep.molten_at_s, s)),
       timeCard('separator half-frozen at', 'verdict-half-frozen-at', sep.half_frozen_at_s, sinceHeatOff(sep.half_frozen_at_s, s)),
       timeCard('separator frozen at', 'verdict-frozen-at', sep.frozen_at_s, sinceHeatOff(sep.frozen_at_s, s))),
-    h('div', { class: 'cards layers' }, ...r.layers.map((l) => layerCard(r, l.id))));
+    h('div', { class: 'cards layers' }, ...r.layers.map((l) => layerCard(r, l.id, cautions))));
 }

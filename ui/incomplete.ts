@@ -1,0 +1,41 @@
+/**
+ * "To fill in" versus "wrong": a heat-source row just added has empty required fields (its value, its end). Those
+ * are not errors — nothing was typed yet — so the page marks them "to fill in" and requests no run until they are
+ * filled; a value that is there but wrong is the solver's to name, beside its field, as usual. Only an absent key
+ * counts as empty: text or a bad number is sent to the solver.
+ */
+import { h } from './dom.ts';
+import { asList, isObject, type JsonObject } from './json.ts';
+
+/** The keys every interval of a layer's heat source needs (scenario format, DESIGN.md). */
+const REQUIRED = ['value', 'from_s', 'to_s'] as const;
+
+/** Paths of the required fields left empty in heat-source rows, in the solver's path notation. */
+export function fieldsToFill(draft: JsonObject): string[] {
+  const out: string[] = [];
+  asList(draft.layers).forEach((layer, i) => {
+    if (!isObject(layer)) return;
+    asList(layer.source_W_m3).forEach((row, j) => {
+      if (!isObject(row)) return;
+      for (const key of REQUIRED) if (!Object.hasOwn(row, key)) out.push(`layers[${i}].source_W_m3[${j}].${key}`);
+    });
+  });
+  return out;
+}
+
+const TODO_CLASS = 'field-todo';
+
+/** Marks each empty field "to fill in" (replacing earlier marks); returns how many inputs were marked. */
+export function markFieldsToFill(root: ParentNode, paths: readonly string[]): number {
+  for (const e of root.querySelectorAll(`.${TODO_CLASS}`)) e.remove();
+  for (const e of root.querySelectorAll('.to-fill')) e.classList.remove('to-fill');
+  let marked = 0;
+  for (const path of paths) {
+    const input = root.querySelector(`[data-path="${CSS.escape(path)}"]`);
+    if (!input) continue;
+    input.classList.add('to-fill');
+    (input.closest('.field') ?? input.parentElement)?.append(h('span', { class: TODO_CLASS, 'data-testid': TODO_CLASS }, 'to fill in'));
+    marked += 1;
+  }
+  return marked;
+}
