@@ -73,3 +73,34 @@ describe('LiCl–KCl eutectic (materials/licl-kcl-eutectic.json)', () => {
     assertClose(m.melt!.hLiquidus - m.melt!.hSolidus, 1648 * 212000, { rel: 1e-12 }, 'latent heat per volume, J/m³');
   });
 });
+
+describe('library coverage and the computed entries', () => {
+  it('libraryNames() holds at least 26 materials, among them the anodes, pellet, electrolytes, powders and bench surfaces', () => {
+    const names = libraryNames();
+    expect(names.length).toBeGreaterThanOrEqual(26);
+    for (const n of ['lithium-silicon', 'lithium-aluminium', 'fe-kclo4-pellet', 'lif-licl-libr-eutectic', 'libr-kbr-lif-eutectic',
+      'boron-nitride-powder', 'magnesia-powder', 'ceramic-tile', 'mild-steel']) expect(names).toContain(n);
+  });
+
+  it('libraryFile("licl") and libraryFile("kcl") melt at 610 °C / 469 J/g and 771 °C / 353 J/g, as their data pages state', () => {
+    // LiCl: 610 °C, 19.9 kJ/mol (Wikipedia "Lithium chloride"); KCl: 771 °C, 26.28 kJ/mol (you-iggy "Potassium
+    // chloride"). Molar masses from the standard atomic weights (IUPAC, from memory): LiCl 42.394, KCl 74.551 g/mol.
+    const licl = libraryFile('licl')!.melt!;
+    const kcl = libraryFile('kcl')!.melt!;
+    expect([licl.solidus_C, kcl.solidus_C]).toEqual([610, 771]);
+    // Tolerance 0.5 kJ/kg: the files round to three digits.
+    assertClose(licl.latent_J_kg, 19.9e3 / 0.042394, { abs: 500 }, 'LiCl latent heat, J/kg');
+    assertClose(kcl.latent_J_kg, 26.28e3 / 0.074551, { abs: 500 }, 'KCl latent heat, J/kg');
+  });
+
+  it('the Fe/KClO₄ pellet note states 1.26 kJ/g, which follows from KClO₄ + 4 Fe → KCl + 4 FeO at 16 wt % KClO₄', () => {
+    // Formation enthalpies: KClO₄ −433 kJ/mol (Wikipedia "Potassium perchlorate"), KCl −436.747 (you-iggy tables),
+    // FeO −272.0 (CRC Handbook, from memory). Molar mass of KClO₄ 138.55 g/mol (IUPAC atomic weights, from memory).
+    const reactionKJPerMol = -433 - (-436.747 + 4 * -272.0); // heat released per mol KClO₄
+    assertClose(reactionKJPerMol, 1091.7, { abs: 0.1 }, 'heat of reaction, kJ/mol');
+    const kJPerG = (0.16 * reactionKJPerMol) / 138.55;
+    // Tolerance 0.005 kJ/g: the note rounds to 1.26.
+    assertClose(kJPerG, 1.26, { abs: 0.005 }, 'pellet heat, kJ/g');
+    expect(libraryFile('fe-kclo4-pellet')!.notes).toMatch(/1\.26 kJ\/g/);
+  });
+});
