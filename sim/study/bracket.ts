@@ -1,0 +1,107 @@
+/**
+ * Finding where a scanned response enters or leaves a set (margin above the required one; separator fully molten):
+ * a coarse scan gives bracketing pairs of neighbours on either side; each bracket is narrowed to a tolerance by the
+ * Illinois variant of regula falsi (Dowell & Jarratt, BIT 11 (1971) 168–174) with two safeguards from Brent's
+ * zeroin (Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4): a trial point is kept at least
+ * tol/2 from the bracket's ends (so a root near an end closes the bracket in one step), and a step that does not
+ * halve the bracket is followed by a bisection. Every trial point is a full run, so the count of trials matters.
+ *
+ * The response need not be monotonic: every sign change between scan neighbours is refined and reported; a set
+ * narrower than the scan spacing can be missed (the scan spacing says how fine the search looked).
+ */
+
+export interface Sample<P> {
+  readonly x: number;
+  /** The response; its sign (through `inside`) says whether x is in the set. */
+  readonly y: number;
+  readonly point: P;
+}
+
+export interface Crossing<P> {
+  /** The bracket after narrowing: the end inside the set and the end outside it (|inside.x − outside.x| ≤ tol). */
+  readonly inside: Sample<P>;
+  readonly outside: Sample<P>;
+  /** 'enter': the set starts at inside.x (outside lies below); 'leave': the set ends at inside.x. */
+  readonly direction: 'enter' | 'leave';
+}
+
+export interface Interval {
+  /** Ends of the set, both values that were run and found inside. */
+  readonly from: number;
+  readonly to: number;
+  /** Whether the interval reaches the bottom / top of the searched range (so the set may go on beyond it). */
+  readonly fromRangeEnd: boolean;
+  readonly toRangeEnd: boolean;
+}
+
+/** Evenly spaced values from lo to hi, both included, plus extra values; sorted, duplicates removed. */
+export function scanValues(lo: number, hi: number, count: number, extra: readonly number[] = []): number[] {
+  const xs = Array.from({ length: count }, (_, i) => (count === 1 ? lo : lo + ((hi - lo) * i) / (count - 1)));
+  return [...new Set([...xs, ...extra.filter((x) => x >= lo && x <= hi)])].sort((a, b) => a - b);
+}
+
+/**
+ * Narrows one bracket (a and b on opposite sides of the set's edge, a.x < b.x) until the ends are ≤ tol apart.
+ * `sample(x)` runs the model at x.
+ */
+export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number): Crossing<P> {
+  let a = a0;
+  let b = b0;
+  const aInside = inside(a.y);
+  if (aInside === inside(b.y)) throw new RangeError('narrow(): the two ends are on the same side');
+  // Illinois weights: the end that stays put twice running has its value halved, so the next secant moves off it
+  let fa = a.y;
+  let fb = b.y;
+  let kept: 'a' | 'b' | undefined;
+  let bisectNext = false;
+  while (b.x - a.x > tol) {
+    const width = b.x - a.x;
+    const secant = fa !== fb && Number.isFinite(fa) && Number.isFinite(fb) ? a.x + (width * fa) / (fa - fb) : Number.NaN;
+    let x = bisectNext || !Number.isFinite(secant) ? a.x + width / 2 : secant;
+    const guard = Math.min(tol / 2, width / 4);
+    x = Math.min(Math.max(x, a.x + guard), b.x - guard);
+    const s = sample(x);
+    if (inside(s.y) === aInside) {
+      a = s;
+      fa = s.y;
+      if (kept === 'b') fb /= 2;
+      kept = 'b';
+    } else {
+      b = s;
+      fb = s.y;
+      if (kept === 'a') fa /= 2;
+      kept = 'a';
+    }
+    bisectNext = b.x - a.x > width / 2;
+  }
+  return aInside ? { inside: a, outside: b, direction: 'leave' } : { inside: b, outside: a, direction: 'enter' };
+}
+
+/** Every crossing between neighbours of a sorted scan, each narrowed to tol. */
+export function crossings<P>(scan: readonly Sample<P>[], inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number): Crossing<P>[] {
+  const found: Crossing<P>[] = [];
+  for (let i = 1; i < scan.length; i++) {
+    const a = scan[i - 1]!;
+    const b = scan[i]!;
+    if (inside(a.y) !== inside(b.y)) found.push(narrow(a, b, inside, sample, tol));
+  }
+  return found;
+}
+
+/** The intervals of the set, from the scan's first and last samples and the crossings between them (in order). */
+export function intervals<P>(scan: readonly Sample<P>[], found: readonly Crossing<P>[], inside: (y: number) => boolean): Interval[] {
+  const first = scan[0];
+  const last = scan[scan.length - 1];
+  if (!first || !last) return [];
+  const out: Interval[] = [];
+  let start: { x: number; rangeEnd: boolean } | undefined = inside(first.y) ? { x: first.x, rangeEnd: true } : undefined;
+  for (const c of found) {
+    if (c.direction === 'enter') start = { x: c.inside.x, rangeEnd: false };
+    else if (start) {
+      out.push({ from: start.x, to: c.inside.x, fromRangeEnd: start.rangeEnd, toRangeEnd: false });
+      start = undefined;
+    }
+  }
+  if (start) out.push({ from: start.x, to: last.x, fromRangeEnd: start.rangeEnd, toRangeEnd: true });
+  return out;
+}

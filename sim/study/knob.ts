@@ -1,0 +1,145 @@
+/**
+ * The input a window search varies, at the Problem level (SI): a function value → Problem over a range.
+ *
+ *   time   the hold: when the last heat input ends. For a face that is the `from_s` of the segment after the heating
+ *          segment, for a volumetric source the `to_s` of its interval (sim/verdict.ts `lastHeatInput`, the same rule
+ *          as `heat_off_s`). The range runs from the start of that heat input (or the end of any other heat input,
+ *          if later: below it moving this one changes nothing) to the next segment or the end of the run. A hold
+ *          equal to the start removes the heat input (immediate removal). The run is lengthened when needed so that
+ *          it always follows the cell for as long after removal as the scenario itself does.
+ *   power  the strength of the same heat input: a plate's or a held face's temperature (K), else the imposed flux
+ *          (W/m², heater power included) or the source (W/m³), from nothing to `powerDefaults.stretch` times its own.
+ *
+ * Working on the Problem rather than the scenario JSON keeps units out of the search (everything here is SI) and
+ * needs no second pass through validation: only one number changes, inside the range checked here.
+ */
+import type { FaceCondition, FaceSegment, Layer, Problem } from '../problem.ts';
+import { kToC } from '../units.ts';
+import { heatInputs, lastHeatInput, type HeatInput } from '../verdict.ts';
+
+export type Vary = 'time' | 'power';
+
+export interface Knob {
+  readonly vary: Vary;
+  /** The scenario field that is varied, e.g. `bottom[1].from_s`, `bottom[0].plate.temperature_C`. */
+  readonly path: string;
+  /** In words, for a reader: "heater hold", "plate temperature". */
+  readonly label: string;
+  /** Unit of the values as shown (°C for temperatures, held in K inside). */
+  readonly unit: 's' | '°C' | 'W/m²' | 'W/m³';
+  /** Range and the scenario's own value, SI (s, K, W/m², W/m³). */
+  readonly lo: number;
+  readonly hi: number;
+  readonly own: number;
+  /** The problem with the input set to `value` (lo ≤ value ≤ hi). */
+  readonly apply: (value: number) => Problem;
+  /** SI value → the unit shown. */
+  readonly show: (value: number) => number;
+}
+
+export const powerDefaults = {
+  /** A flux or source is varied from 0 to this multiple of its own value: a designer's "up to three times". */
+  stretch: 3,
+  /** A plate or held face is varied from the ambient up to this much above the highest limit of any layer, K. */
+  aboveLimitK: 50,
+} as const;
+
+const where = (h: HeatInput, problem: Problem): string =>
+  (h.kind === 'face' ? `${h.side}[${h.segment}]` : `layers[${h.layer}] (${problem.layers[h.layer]!.id}).source_W_m3[${h.interval}]`);
+
+function lastOrError(problem: Problem): HeatInput | string {
+  const last = lastHeatInput(problem);
+  if (!last) return 'the scenario has no heat input (no plate, held face, positive flux or source): there is nothing to hold or remove';
+  if (last.endS >= problem.durationS) {
+    return `the heat input ${where(last, problem)} lasts to the end of the run: give the face condition that follows the heater's removal (a later segment) so its start can be varied`;
+  }
+  return last;
+}
+
+const withSegments = (problem: Problem, side: 'bottom' | 'top', segments: readonly FaceSegment[]): Problem =>
+  (side === 'bottom' ? { ...problem, bottom: segments } : { ...problem, top: segments });
+
+const withLayer = (problem: Problem, li: number, layer: Layer): Problem =>
+  ({ ...problem, layers: problem.layers.map((l, i) => (i === li ? layer : l)) });
+
+/** The hold knob, or a sentence saying why there is none. */
+export function holdKnob(problem: Problem): Knob | string {
+  const last = lastOrError(problem);
+  if (typeof last === 'string') return last;
+  const others = heatInputs(problem).filter((h) => where(h, problem) !== where(last, problem));
+  const lo = Math.max(last.fromS, ...others.map((h) => h.endS));
+  const afterS = problem.durationS - last.endS;
+  const lengthen = (p: Problem, value: number): Problem =>
+    (value + afterS > p.durationS ? { ...p, durationS: value + afterS } : p);
+  let hi: number;
+  let path: string;
+  let apply: (value: number) => Problem;
+  if (last.kind === 'face') {
+    const segments = problem[last.side];
+    const next = last.next!;
+    hi = Math.min(segments[next + 1]?.fromS ?? problem.durationS, problem.durationS);
+    path = `${last.side}[${next}].from_s`;
+    apply = (value) => {
+      const moved = segments.map((s, i) => (i === next ? { ...s, fromS: value } : s));
+      // removal at the very start: the heating segment never acts, so it is dropped (two segments may not share a start)
+      const kept = value <= last.fromS ? moved.filter((_, i) => i !== last.segment) : moved;
+      return lengthen(withSegments(problem, last.side, kept), value);
+    };
+  } else {
+    const layer = problem.layers[last.layer]!;
+    hi = problem.durationS;
+    path = `layers[${last.layer}].source_W_m3[${last.interval}].to_s`;
+    apply = (value) => {
+      const sources = layer.sources.flatMap((s, k) => (k !== last.interval ? [s] : value <= s.fromS ? [] : [{ ...s, toS: value }]));
+      return lengthen(withLayer(problem, last.layer, { ...layer, sources }), value);
+    };
+  }
+  if (!(hi > lo)) return `the hold cannot be varied: ${path} has no room between ${lo} s and ${hi} s`;
+  return {
+    vary: 'time', path, label: 'heater hold', unit: 's', lo, hi, own: last.endS, show: (v) => v,
+    apply: (value) => {
+      if (!(value >= lo && value <= hi)) throw new RangeError(`hold: must be within [${lo}, ${hi}] s, got ${value}`);
+      return apply(value);
+    },
+  };
+}
+
+/** The power knob (plate or held-face temperature, flux, or source), or a sentence saying why there is none. */
+export function powerKnob(problem: Problem): Knob | string {
+  const last = lastOrError(problem);
+  if (typeof last === 'string') return last;
+  const checked = (lo: number, hi: number, apply: (v: number) => Problem) => (value: number): Problem => {
+    if (!(value >= lo && value <= hi)) throw new RangeError(`power: must be within [${lo}, ${hi}], got ${value}`);
+    return apply(value);
+  };
+  if (last.kind === 'source') {
+    const layer = problem.layers[last.layer]!;
+    const own = layer.sources[last.interval]!.value;
+    const hi = own * powerDefaults.stretch;
+    const apply = (value: number) => withLayer(problem, last.layer,
+      { ...layer, sources: layer.sources.map((s, k) => (k === last.interval ? { ...s, value } : s)) });
+    return { vary: 'power', path: `layers[${last.layer}].source_W_m3[${last.interval}].value`, label: 'heat source', unit: 'W/m³', lo: 0, hi, own, show: (v) => v, apply: checked(0, hi, apply) };
+  }
+  const segments = problem[last.side];
+  const c = segments[last.segment]!.condition;
+  const set = (condition: FaceCondition) =>
+    withSegments(problem, last.side, segments.map((s, i) => (i === last.segment ? { ...s, condition } : s)));
+  const base = `${last.side}[${last.segment}]`;
+  const hottestLimit = Math.max(...problem.layers.flatMap((l) => l.material.limits.map((m) => m.atK)));
+  const coldest = Math.min(problem.ambientK, problem.initialK);
+  const tempRange = (own: number) => ({ lo: coldest, hi: Math.max(own, Number.isFinite(hottestLimit) ? hottestLimit : own) + powerDefaults.aboveLimitK });
+  if (c.kind === 'fixed') {
+    const { lo, hi } = tempRange(c.tK);
+    return { vary: 'power', path: `${base}.fixed_C`, label: 'held face temperature', unit: '°C', lo, hi, own: c.tK, show: kToC,
+      apply: checked(lo, hi, (tK) => set({ kind: 'fixed', tK })) };
+  }
+  if (c.plate) {
+    const plate = c.plate;
+    const { lo, hi } = tempRange(plate.tK);
+    return { vary: 'power', path: `${base}.plate.temperature_C`, label: 'plate temperature', unit: '°C', lo, hi, own: plate.tK, show: kToC,
+      apply: checked(lo, hi, (tK) => set({ ...c, plate: { ...plate, tK } })) };
+  }
+  const hi = c.fluxWPerM2 * powerDefaults.stretch;
+  return { vary: 'power', path: `${base}.flux_W_m2`, label: 'heater flux (power over the footprint)', unit: 'W/m²', lo: 0, hi, own: c.fluxWPerM2, show: (v) => v,
+    apply: checked(0, hi, (fluxWPerM2) => set({ ...c, fluxWPerM2 })) };
+}

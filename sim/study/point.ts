@@ -1,0 +1,94 @@
+/**
+ * One run of a window search, boiled down to what the search and the operating chart read: the smallest margin to
+ * any limit (and which layer and limit it is, and when that layer peaks), whether the separator became fully molten
+ * (as a continuous indicator, so a crossing can be found by interpolation), and the usable window after removal.
+ *
+ * Definitions (README, "The safe operating duration"):
+ *   margin_K      the smallest limit − peak over every limit of every layer (the binding layer's margin_K).
+ *   molten        whether every separator cell was fully liquid at some time (molten_at_s is not null).
+ *   window_s      half_frozen_at_s − heat_off_s (the usable window, whatever the margins: the search judges those).
+ *   until_liquid_s  from heat-off until the separator's mean liquid fraction first falls below the chosen F.
+ *   solidifying_s   from heat-off until the first separator cell starts to solidify (after being fully molten).
+ */
+import type { LimitKind } from '../scenario-schema.ts';
+import type { Problem } from '../problem.ts';
+import { runProblem } from '../run.ts';
+import { firstCrossing, type Summary, type WindowStatus } from '../verdict.ts';
+
+export interface Binding {
+  readonly layer: string;
+  readonly kind: LimitKind;
+  readonly limit_C: number;
+  readonly peak_C: number;
+  /** When the layer peaks (the time the limit binds), s. */
+  readonly at_s: number;
+  readonly margin_K: number;
+}
+
+export interface WindowPoint {
+  /** The varied input, SI (s, K, W/m², W/m³). */
+  readonly value: number;
+  readonly heat_off_s: number | null;
+  /** Smallest margin to any limit, K; null when no layer has a limit. */
+  readonly margin_K: number | null;
+  readonly binding: Binding | null;
+  readonly molten_at_s: number | null;
+  readonly half_frozen_at_s: number | null;
+  readonly window_s: number | null;
+  readonly until_liquid_s: number | null;
+  readonly solidifying_s: number | null;
+  readonly status: WindowStatus;
+  /** The separator layer's id, if there is one. */
+  readonly separator: string | null;
+}
+
+/** Whether a run keeps more than the required margin (K) below every limit; a layer without limits keeps any. */
+export const keepsMargin = (p: Pick<WindowPoint, 'margin_K'>, requiredK: number): boolean => p.margin_K === null || p.margin_K > requiredK;
+
+/** A run that did not finish: the search cannot judge this value, so it stops and says where. */
+export class SolveFailure extends Error {}
+
+function bindingOf(summary: Summary): Binding | null {
+  let best: Binding | null = null;
+  for (const [layer, v] of Object.entries(summary.layers)) {
+    for (const l of v.limits) {
+      if (best === null || l.margin_K < best.margin_K) {
+        best = { layer, kind: l.kind, limit_C: l.at_C, peak_C: v.peak_C, at_s: v.peak_at_s, margin_K: l.margin_K };
+      }
+    }
+  }
+  return best;
+}
+
+/**
+ * Runs the problem once and boils it down. `untilLiquid` is the liquid fraction F, or null. Without F the run keeps
+ * only what the verdicts read (detail 'summary': every event time is exact there, record-trace.ts); the crossing of
+ * another level F needs every recorded point, so then the run keeps its full detail.
+ */
+export function evaluatePoint(problem: Problem, value: number, untilLiquid: number | null): WindowPoint {
+  const out = runProblem(problem, { detail: untilLiquid === null ? 'summary' : 'full' });
+  if (out.status !== 'ok') {
+    throw new SolveFailure(out.status === 'failed' ? `the run at ${value} failed at t = ${out.tS} s: ${out.message}` : `the run at ${value} was cancelled`);
+  }
+  const { summary, record } = out;
+  const sep = record.separator;
+  const off = summary.heat_off_s;
+  const since = (t: number | null) => (t === null || off === null ? null : t - off);
+  const molten = summary.separator.molten_at_s;
+  const half = summary.separator.half_frozen_at_s;
+  const binding = bindingOf(summary);
+  return {
+    value,
+    heat_off_s: off,
+    margin_K: binding ? binding.margin_K : null,
+    binding,
+    molten_at_s: molten,
+    half_frozen_at_s: half,
+    window_s: molten !== null ? since(half) : null,
+    until_liquid_s: sep && molten !== null && off !== null && untilLiquid !== null
+      ? since(firstCrossing(sep.tS, sep.meanLiquid, untilLiquid, off, 'fall-below')) : null,
+    solidifying_s: sep && molten !== null && off !== null ? since(firstCrossing(sep.tS, sep.meltMargin, 0, off, 'fall-below')) : null,
+    status: summary.safe_window_status,
+    separator: problem.layers.find((l) => l.separator)?.id ?? null,
+  };
+}

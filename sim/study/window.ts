@@ -1,0 +1,184 @@
+/**
+ * The safe operating duration of a scenario, by many summary-only runs (definitions in the README, "The safe
+ * operating duration"):
+ *
+ *   longest hold    the latest heater removal for which every layer keeps more than the required margin below every
+ *                   one of its limits (a margin exactly equal to it counts as reaching it, as a zero margin counts as
+ *                   reaching the limit in the verdicts);
+ *   shortest hold   the earliest removal for which the separator becomes fully molten at some time;
+ *   usable window   after removal at a chosen hold (the longest, else the scenario's own): to half-frozen, to a chosen
+ *                   liquid fraction, and until solidification first starts.
+ *
+ * Method: a coarse scan over the range of the varied input (knob.ts), then each change of side between scan
+ * neighbours narrowed to the tolerance (bracket.ts): by regula falsi on the margin, by bisection on molten or not. With `vary: 'power'` the same is done over the strength of the
+ * heat input at the scenario's own hold. Every run is counted in `solves`.
+ */
+import type { Problem } from '../problem.ts';
+import type { WindowStatus } from '../verdict.ts';
+import { crossings, intervals, scanValues, type Interval, type Sample } from './bracket.ts';
+import { holdKnob, powerKnob, type Knob, type Vary } from './knob.ts';
+import { evaluatePoint, keepsMargin, type Binding, type WindowPoint } from './point.ts';
+
+export const windowDefaults = {
+  /** Required margin below every limit, K (the issue's default; README cautions: a few tens of K is no margin). */
+  marginK: 25,
+  /** Coarse scan points over the range: enough to see a thermostat's ups and downs, few enough for ≤ 40 solves. */
+  scanPoints: 12,
+  /** Hold tolerance, s: the accuracy of the run's event times (DEVELOPERS.md, accuracy promise: 0.5 s). */
+  holdToleranceS: 0.5,
+  /** Power tolerance as a share of its range: 0.07 K on a 700 K plate range, below the run's 0.2 K tolerance. */
+  powerToleranceShare: 1e-4,
+  /** The hottest layer has "settled" when its margin moves less than this between the last two scan points, K. */
+  settleK: 1,
+} as const;
+
+export interface WindowOptions {
+  readonly vary?: Vary;
+  readonly marginK?: number;
+  /** Liquid fraction F for the extra window "until the mean liquid fraction falls below F"; null for none. */
+  readonly untilLiquid?: number | null;
+  /** The value (SI) at which the usable window is reported; default the longest hold, else the scenario's own. */
+  readonly at?: number;
+  readonly scanPoints?: number;
+  readonly tolerance?: number;
+}
+
+export interface NoLimit {
+  readonly layer: string;
+  readonly kind: Binding['kind'];
+  /** The binding layer's peak at the top of the range, °C, and its margin there, K. */
+  readonly settles_C: number;
+  readonly margin_K: number;
+  /** Whether it had settled (moved less than `settleK` over the last scan step); if not, the range may be too short. */
+  readonly settled: boolean;
+}
+
+export interface WindowAt {
+  readonly value: number;
+  readonly chosen: 'longest' | 'own' | 'given';
+  readonly point: WindowPoint;
+  /** Whether this value keeps the required margin. */
+  readonly safe: boolean;
+  /** Why there is no window (null when there is one). */
+  readonly reason: string | null;
+}
+
+export interface WindowReport {
+  readonly knob: Omit<Knob, 'apply' | 'show'>;
+  readonly margin_K: number;
+  readonly until_liquid: number | null;
+  readonly tolerance: number;
+  readonly scan_spacing: number;
+  /** Where every margin exceeds the required one; where the separator becomes fully molten. */
+  readonly safe: readonly Interval[];
+  readonly molten: readonly Interval[];
+  /** False when either set has more than one edge (e.g. a thermostat): every interval is reported. */
+  readonly monotonic: boolean;
+  readonly longest: { readonly value: number; readonly binding: Binding | null } | null;
+  readonly no_limit: NoLimit | null;
+  readonly longest_reason: string | null;
+  readonly shortest: { readonly value: number; readonly layer: string; readonly molten_at_s: number | null } | null;
+  readonly shortest_reason: string | null;
+  readonly window: WindowAt | null;
+  /** Every run made, sorted by the varied value: the operating chart. */
+  readonly points: readonly WindowPoint[];
+  readonly solves: number;
+}
+
+export type WindowResult = { readonly ok: true; readonly report: WindowReport } | { readonly ok: false; readonly reason: string };
+
+const NOT_MOLTEN: Partial<Record<WindowStatus, string>> = {
+  'no-separator': 'no layer is marked as the separator',
+  'never-molten': 'the separator is not fully molten at this hold',
+  'still-molten-at-end': 'the separator is still at least half molten at the end of the run',
+};
+
+export function searchWindow(problem: Problem, options: WindowOptions = {}): WindowResult {
+  const knob = options.vary === 'power' ? powerKnob(problem) : holdKnob(problem);
+  if (typeof knob === 'string') return { ok: false, reason: knob };
+  const required = options.marginK ?? windowDefaults.marginK;
+  const untilLiquid = options.untilLiquid ?? null;
+  const count = options.scanPoints ?? windowDefaults.scanPoints;
+  const tol = options.tolerance ?? (knob.vary === 'time' ? windowDefaults.holdToleranceS : (knob.hi - knob.lo) * windowDefaults.powerToleranceShare);
+  const at = options.at;
+  if (at !== undefined && !(at >= knob.lo && at <= knob.hi)) {
+    return { ok: false, reason: `the value asked for (${knob.show(at)} ${knob.unit}) is outside the range of ${knob.path}: ${knob.show(knob.lo)}–${knob.show(knob.hi)} ${knob.unit}` };
+  }
+
+  const cache = new Map<number, WindowPoint>();
+  const pointAt = (x: number): WindowPoint => {
+    let p = cache.get(x);
+    if (!p) { p = evaluatePoint(knob.apply(x), x, untilLiquid); cache.set(x, p); }
+    return p;
+  };
+  const marginY = (p: WindowPoint) => (p.margin_K === null ? Infinity : p.margin_K - required);
+  // molten or not is all a summary-only run tells exactly, so that edge is found by bisection (±1: the secant of
+  // bracket.ts then falls on the midpoint)
+  const meltY = (p: WindowPoint) => (p.molten_at_s !== null ? 1 : -1);
+  const isSafe = (y: number) => y > 0;
+  const isMolten = (y: number) => y >= 0;
+  const samplesOf = (f: (p: WindowPoint) => number) => (x: number): Sample<WindowPoint> => {
+    const p = pointAt(x);
+    return { x, y: f(p), point: p };
+  };
+
+  const scan = scanValues(knob.lo, knob.hi, count, [knob.own]).map(pointAt);
+  const marginScan = scan.map((p) => samplesOf(marginY)(p.value));
+  const meltScan = scan.map((p) => samplesOf(meltY)(p.value));
+  const safeEdges = crossings(marginScan, isSafe, samplesOf(marginY), tol);
+  const meltEdges = crossings(meltScan, isMolten, samplesOf(meltY), tol);
+  const safe = intervals(marginScan, safeEdges, isSafe);
+  const molten = intervals(meltScan, meltEdges, isMolten);
+
+  const first = scan[0]!;
+  const top = scan[scan.length - 1]!;
+  const show = (v: number) => `${knob.show(v)} ${knob.unit}`;
+  let longest: WindowReport['longest'] = null;
+  let noLimit: NoLimit | null = null;
+  let longestReason: string | null = null;
+  const lastSafe = safe[safe.length - 1];
+  if (scan.every((p) => p.margin_K === null)) {
+    longestReason = 'no layer has a limit on file, so none limits the hold';
+  } else if (!lastSafe) {
+    const b = first.binding!;
+    longestReason = `even at ${show(first.value)} ${b.layer} comes within ${b.margin_K.toFixed(1)} K of its ${b.kind} limit (at ${b.at_s.toFixed(0)} s), not more than the ${required} K asked for`;
+  } else if (lastSafe.toRangeEnd) {
+    const below = scan[scan.length - 2];
+    const b = top.binding!;
+    noLimit = {
+      layer: b.layer, kind: b.kind, settles_C: b.peak_C, margin_K: b.margin_K,
+      settled: below?.margin_K != null && Math.abs(below.margin_K - b.margin_K) < windowDefaults.settleK,
+    };
+    longestReason = `no limit for any value up to ${show(knob.hi)}`;
+  } else {
+    longest = { value: lastSafe.to, binding: pointAt(lastSafe.to).binding };
+  }
+
+  const firstMolten = molten[0];
+  const sepId = first.separator;
+  const shortest = firstMolten && sepId !== null ? { value: firstMolten.from, layer: sepId, molten_at_s: pointAt(firstMolten.from).molten_at_s } : null;
+  const shortestReason = shortest ? null : sepId === null ? 'no layer is marked as the separator'
+    : `the separator does not become fully molten for any value up to ${show(knob.hi)}`;
+
+  let window: WindowAt | null = null;
+  const chosen: WindowAt['chosen'] | null = at !== undefined ? 'given' : longest ? 'longest' : lastSafe || longestReason?.startsWith('no layer') ? 'own' : null;
+  if (chosen !== null) {
+    const value = at ?? longest?.value ?? knob.own;
+    const point = pointAt(value);
+    const why = point.window_s !== null ? null : NOT_MOLTEN[point.status] ?? (point.molten_at_s === null ? NOT_MOLTEN['never-molten']! : 'the separator does not half-freeze within the run');
+    window = { value, chosen, point, safe: keepsMargin(point, required), reason: why };
+  }
+
+  const points = [...cache.values()].sort((a, b) => a.value - b.value);
+  return {
+    ok: true,
+    report: {
+      knob: { vary: knob.vary, path: knob.path, label: knob.label, unit: knob.unit, lo: knob.lo, hi: knob.hi, own: knob.own },
+      margin_K: required, until_liquid: untilLiquid, tolerance: tol,
+      scan_spacing: count > 1 ? (knob.hi - knob.lo) / (count - 1) : knob.hi - knob.lo,
+      safe, molten, monotonic: safeEdges.length <= 1 && meltEdges.length <= 1,
+      longest, no_limit: noLimit, longest_reason: longestReason, shortest, shortest_reason: shortestReason,
+      window, points, solves: cache.size,
+    },
+  };
+}
