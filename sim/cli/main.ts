@@ -8,6 +8,7 @@ import { libraryFile, libraryNames } from '../library.ts';
 import { resultDocument } from '../result.ts';
 import { benchProblem } from './bench-run.ts';
 import { EXIT, InputError, readProblem, runOrFail } from './input.ts';
+import { registerSweep } from './cmd-sweep.ts';
 import { seriesCsv } from '../series-csv.ts';
 import { summaryTable } from './table.ts';
 
@@ -63,6 +64,7 @@ function program(): Command {
       else process.stdout.write(`median ${figures.median_ms.toFixed(2)} ms over ${figures.runs} runs; ${figures.cells} cells, ${figures.steps} steps, ${figures.newton_iterations} Newton iterations, ${(figures.cell_updates_per_s / 1e6).toFixed(1)} M cell-updates/s\n`);
     });
   // each study command registers itself from its own file (sim/cli/cmd-*.ts)
+  registerSweep(cli);
   return cli;
 }
 
