@@ -1,18 +1,42 @@
 /**
  * What a run records, step by step: per-layer min/mean/max temperature, the separator's liquid fraction, the face
  * temperatures, the whole node profile (the position–time map, an ndarray), probe values at the requested times, the
- * separator's event indicators at every step point and stage point, and the energy ledger.
+ * separator's event indicators (record-trace.ts) and the energy ledger.
+ * Memory does not grow with the step count: the series are kept to a budget of rows (row-store.ts), with each layer's
+ * peak row and the first and last rows held exactly. With detail 'summary' only what the verdicts read is kept: the
+ * peak, first and last rows (no map), the event points and the ledger.
  * The recorder consumes the StepReports of evolve(); it owns no physics beyond reading the state.
  */
 import ndarray from 'ndarray';
 import type { NdArray } from 'ndarray';
 import { AIR_TABLE_RANGE_K } from './air.ts';
 import type { StepReport } from './evolve.ts';
-import { liquidFractionOf, temperatureOf } from './material.ts';
+import { liquidFractionOf } from './material.ts';
 import type { Grid } from './mesh.ts';
 import { filmTemperature, plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
 import { characteristicLengthM, type FaceCondition, type Problem } from './problem.ts';
+import type { SeparatorTrace } from './record-trace.ts';
+import { createTraceRecorder } from './record-trace.ts';
+import { RowStore } from './row-store.ts';
 import { kToC, mToMm } from './units.ts';
+
+export type { SeparatorTrace } from './record-trace.ts';
+
+/** 'full': series and map for drawing; 'summary': only what summarize() reads (for window searches and sweeps). */
+export type RecordDetail = 'full' | 'summary';
+
+export const recordDefaults = {
+  /** Time points kept in the series: a few thousand draw any curve smoothly on a screen a few thousand pixels wide. */
+  seriesPoints: 4000,
+  /** Numbers kept in the position–time map (rows × nodes): 64 MB of doubles, whatever the grid. */
+  mapValues: 8e6,
+  /** Event-indicator points kept besides the held crossings: two per step (stage point and step end). */
+  tracePoints: 8000,
+  /** Crossings of an event level held exactly; a run that chatters across a level more often keeps the first ones. */
+  heldCrossings: 2000,
+  /** Requested output times honoured; more are refused at validation (scenario.ts): each adds a probe column. */
+  maxOutputTimes: 10000,
+} as const;
 
 export interface LayerSeries {
   readonly id: string;
@@ -21,17 +45,6 @@ export interface LayerSeries {
   readonly maxC: Float64Array;
   /** Volume-mean liquid fraction (separator layers and any layer whose material melts). */
   readonly liquidFraction: Float64Array | undefined;
-}
-
-/** Separator indicators at every step end and stage point, for event times interpolated inside a step. */
-export interface SeparatorTrace {
-  readonly tS: Float64Array;
-  /** min over separator cells of (H − H_liquidus)/(H_liquidus − H_solidus): ≥ 0 when every cell is liquid. */
-  readonly meltMargin: Float64Array;
-  /** Volume-mean liquid fraction of the separator. */
-  readonly meanLiquid: Float64Array;
-  /** max over separator cells of (H − H_solidus)/(H_liquidus − H_solidus): ≤ 0 when every cell is solid. */
-  readonly freezeMargin: Float64Array;
 }
 
 export interface EnergyLedger {
@@ -46,13 +59,16 @@ export interface EnergyLedger {
 }
 
 export interface RunRecord {
+  /** What was kept: 'summary' has no map and only the first, last and peak rows in the series (absent: 'full'). */
+  readonly detail?: RecordDetail;
+  /** Recorded times, s: every step while within the budget, then thinned (row-store.ts); peaks and the end kept. */
   readonly tS: Float64Array;
   readonly layers: readonly LayerSeries[];
   readonly bottomC: Float64Array;
   readonly topC: Float64Array;
   /** Node positions, mm: bottom face, cell centres, top face. */
   readonly nodeXMm: Float64Array;
-  /** Node temperatures, °C, shape [steps, nodes]. */
+  /** Node temperatures, °C, shape [rows of tS, nodes]; [0, nodes] with detail 'summary'. */
   readonly map: NdArray<Float64Array>;
   readonly separator: SeparatorTrace | undefined;
   readonly probes: { readonly xMm: readonly number[]; readonly tS: readonly number[]; readonly tC: number[][] };
@@ -60,53 +76,48 @@ export interface RunRecord {
   readonly warnings: readonly string[];
 }
 
-class Column {
-  private data = new Float64Array(256);
-  length = 0;
-  push(v: number): void {
-    if (this.length === this.data.length) {
-      const grown = new Float64Array(this.data.length * 2);
-      grown.set(this.data);
-      this.data = grown;
-    }
-    this.data[this.length++] = v;
-  }
-  done(): Float64Array { return this.data.slice(0, this.length); }
-}
-
 interface RangeTracker { low: number; high: number; outside: boolean; filmLowK: number; filmHighK: number }
 
 /** Smallest face-to-air temperature difference, K, at which the natural-convection range is watched. */
 const RAYLEIGH_WATCH_MIN_K = 1;
 
-export function createRecorder(problem: Problem, grid: Grid) {
+export interface RecorderOptions {
+  readonly detail?: RecordDetail;
+}
+
+export function createRecorder(problem: Problem, grid: Grid, options: RecorderOptions = {}) {
   const { n } = grid;
   const nodes = n + 2;
+  const detail: RecordDetail = options.detail ?? 'full';
+  const full = detail === 'full';
   const nodeX = new Float64Array(nodes);
   nodeX[0] = 0;
   for (let i = 0; i < n; i++) nodeX[i + 1] = mToMm(grid.xc[i]!);
   nodeX[n + 1] = mToMm(grid.totalM);
-  const t = new Column();
-  const bottom = new Column();
-  const top = new Column();
-  const mapColumn = new Column();
-  const layerCols = problem.layers.map((l) => ({
-    min: new Column(), mean: new Column(), max: new Column(),
-    liquid: l.material.melt ? new Column() : undefined,
-  }));
-  const sepCells: number[] = [];
-  for (let i = 0; i < n; i++) if (problem.layers[grid.layerOf[i]!]!.separator) sepCells.push(i);
-  const trace = sepCells.length > 0
-    ? { t: new Column(), melt: new Column(), mean: new Column(), freeze: new Column() } : undefined;
+  const layerCount = problem.layers.length;
+
+  // one row per recorded time: t, bottom face, top face, per layer min/mean/max (and liquid fraction), then the nodes
+  const layerAt = new Int32Array(layerCount);
+  let width = 3;
+  problem.layers.forEach((l, li) => { layerAt[li] = width; width += l.material.melt ? 4 : 3; });
+  const mapAt = width;
+  if (full) width += nodes;
+  const budget = full ? Math.max(2, Math.min(recordDefaults.seriesPoints, Math.floor(recordDefaults.mapValues / nodes))) : 0;
+  // held rows: each layer's peak row and the first row
+  const rows = new RowStore(width, budget, layerCount + 1);
+  const peakC = new Float64Array(layerCount).fill(-Infinity);
+  const peakSlot = new Int32Array(layerCount).fill(-1);
+  const maxK = new Float64Array(layerCount);
+
+  const trace = createTraceRecorder(problem, grid, full ? recordDefaults.tracePoints : 0, recordDefaults.heldCrossings);
   const probeTimes = [...new Set(problem.outputTimesS)].sort((a, b) => a - b);
+  let nextProbe = 0;
   const probeX = problem.probesM.map(mToMm);
   const probeT: number[][] = probeX.map(() => []);
   const probeTimesSeen: number[] = [];
   const energy = { bottomInJ: 0, bottomOutJ: 0, topInJ: 0, topOutJ: 0, sourceJ: 0 };
   let storedStart = 0;
   let storedEnd = 0;
-  const hint = new Int32Array(n);
-  const scratch = new Float64Array(2);
   const rayleighSeen: Record<'bottom' | 'top', RangeTracker> = {
     bottom: { low: Infinity, high: 0, outside: false, filmLowK: Infinity, filmHighK: -Infinity },
     top: { low: Infinity, high: 0, outside: false, filmLowK: Infinity, filmHighK: -Infinity },
@@ -119,28 +130,57 @@ export function createRecorder(problem: Problem, grid: Grid) {
     return s;
   };
 
-  /** Pushes the separator indicators for state U at time tS. */
-  const traceState = (U: Float64Array, tS: number): void => {
-    if (!trace) return;
-    let meltMargin = Infinity;
-    let freezeMargin = -Infinity;
-    let liquid = 0;
-    let width = 0;
-    for (const i of sepCells) {
-      const mat = grid.materials[i]!;
-      const melt = mat.melt!;
-      const h = U[i + 1]!;
-      hint[i] = temperatureOf(mat.enthalpy, h, hint[i]!, scratch);
-      const span = Math.max(melt.hLiquidus - melt.hSolidus, Number.MIN_VALUE);
-      meltMargin = Math.min(meltMargin, (h - melt.hLiquidus) / span);
-      freezeMargin = Math.max(freezeMargin, (h - melt.hSolidus) / span);
-      liquid += liquidFractionOf(mat, h, scratch[0]!) * grid.dx[i]!;
-      width += grid.dx[i]!;
+  /** Highest node temperature of each layer, K, into maxK (a layer's faces count as its nodes). */
+  const layerMaxima = (T: Float64Array): void => {
+    for (let li = 0; li < layerCount; li++) {
+      let hi = -Infinity;
+      for (let i = grid.layerStart[li]!; i < grid.layerEnd[li]!; i++) if (T[i + 1]! > hi) hi = T[i + 1]!;
+      maxK[li] = hi;
     }
-    trace.t.push(tS);
-    trace.melt.push(meltMargin);
-    trace.mean.push(liquid / width);
-    trace.freeze.push(freezeMargin);
+    maxK[0] = Math.max(maxK[0]!, T[0]!);
+    maxK[layerCount - 1] = Math.max(maxK[layerCount - 1]!, T[n + 1]!);
+  };
+
+  /** Writes the row for the state after a step (T in K, U the enthalpies) at time tS. */
+  const fillRow = (row: Float64Array, T: Float64Array, U: Float64Array, tS: number): void => {
+    row[0] = tS;
+    row[1] = kToC(T[0]!);
+    row[2] = kToC(T[n + 1]!);
+    for (let li = 0; li < layerCount; li++) {
+      const material = problem.layers[li]!.material;
+      let lo = Infinity;
+      let hi = -Infinity;
+      let sum = 0;
+      let thickness = 0;
+      let liquid = 0;
+      for (let i = grid.layerStart[li]!; i < grid.layerEnd[li]!; i++) {
+        const tk = T[i + 1]!;
+        if (tk < lo) lo = tk;
+        if (tk > hi) hi = tk;
+        sum += tk * grid.dx[i]!;
+        thickness += grid.dx[i]!;
+        if (material.melt) liquid += liquidFractionOf(material, U[i + 1]!, tk) * grid.dx[i]!;
+      }
+      if (li === 0) { lo = Math.min(lo, T[0]!); hi = Math.max(hi, T[0]!); }
+      if (li === layerCount - 1) { lo = Math.min(lo, T[n + 1]!); hi = Math.max(hi, T[n + 1]!); }
+      const at = layerAt[li]!;
+      row[at] = kToC(lo);
+      row[at + 1] = kToC(sum / thickness);
+      row[at + 2] = kToC(hi);
+      if (material.melt) row[at + 3] = liquid / thickness;
+    }
+    if (full) for (let j = 0; j < nodes; j++) row[mapAt + j] = kToC(T[j]!);
+  };
+
+  /** Holds the latest row for every layer whose peak it raises (strictly: the first time of a peak is kept). */
+  const holdPeaks = (committed: Float64Array): void => {
+    for (let li = 0; li < layerCount; li++) {
+      const v = committed[layerAt[li]! + 2]!;
+      if (!(v > peakC[li]!)) continue;
+      peakC[li] = v;
+      rows.release(peakSlot[li]!);
+      peakSlot[li] = rows.hold('latest');
+    }
   };
 
   const watchRayleigh = (side: 'bottom' | 'top', c: FaceCondition, faceK: number): void => {
@@ -159,57 +199,44 @@ export function createRecorder(problem: Problem, grid: Grid) {
   function onStep(step: StepReport): void {
     const { ws, buf } = step;
     const T = ws.T;
-    if (step.t1 === 0) {
+    const first = step.t1 === 0;
+    if (first) {
       storedStart = storedOf(buf.U0);
-      traceState(buf.U0, 0);
+      trace?.add(buf.U0, 0);
     } else {
       energy.bottomInJ += Math.max(step.bottomJ, 0);
       energy.bottomOutJ += Math.max(-step.bottomJ, 0);
       energy.topInJ += Math.max(step.topJ, 0);
       energy.topOutJ += Math.max(-step.topJ, 0);
       energy.sourceJ += step.sourceJ;
-      traceState(buf.Ug, step.tg);
-      traceState(buf.U1, step.t1);
+      trace?.add(buf.Ug, step.tg);
+      trace?.add(buf.U1, step.t1);
     }
     storedEnd = storedOf(buf.U1);
-    t.push(step.t1);
-    bottom.push(kToC(T[0]!));
-    top.push(kToC(T[n + 1]!));
-    for (let j = 0; j < nodes; j++) mapColumn.push(kToC(T[j]!));
-    problem.layers.forEach((layer, li) => {
-      const start = grid.layerStart[li]!;
-      const end = grid.layerEnd[li]!;
-      let lo = Infinity;
-      let hi = -Infinity;
-      let sum = 0;
-      let width = 0;
-      let liquid = 0;
-      for (let i = start; i < end; i++) {
-        const tk = T[i + 1]!;
-        lo = Math.min(lo, tk);
-        hi = Math.max(hi, tk);
-        sum += tk * grid.dx[i]!;
-        width += grid.dx[i]!;
-        if (layer.material.melt) liquid += liquidFractionOf(layer.material, buf.U1[i + 1]!, tk) * grid.dx[i]!;
-      }
-      if (li === 0) { lo = Math.min(lo, T[0]!); hi = Math.max(hi, T[0]!); }
-      if (li === problem.layers.length - 1) { lo = Math.min(lo, T[n + 1]!); hi = Math.max(hi, T[n + 1]!); }
-      const cols = layerCols[li]!;
-      cols.min.push(kToC(lo));
-      cols.mean.push(kToC(sum / width));
-      cols.max.push(kToC(hi));
-      cols.liquid?.push(liquid / width);
-    });
+    // a summary keeps only the first, the last and each layer's peak row: find out cheaply whether this is one
+    let wanted = full || first || step.t1 >= problem.durationS;
+    if (!wanted) {
+      layerMaxima(T);
+      for (let li = 0; li < layerCount && !wanted; li++) if (kToC(maxK[li]!) > peakC[li]!) wanted = true;
+    }
+    if (wanted) {
+      const row = rows.row;
+      fillRow(row, T, buf.U1, step.t1);
+      rows.commit();
+      if (first) rows.hold('latest');
+      holdPeaks(row);
+    }
     watchRayleigh('bottom', step.cond.bottom, T[0]!);
     watchRayleigh('top', step.cond.top, T[n + 1]!);
-    if (probeTimes.includes(step.t1) && !probeTimesSeen.includes(step.t1)) {
+    while (nextProbe < probeTimes.length && probeTimes[nextProbe]! < step.t1) nextProbe++;
+    if (nextProbe < probeTimes.length && probeTimes[nextProbe] === step.t1) {
       probeTimesSeen.push(step.t1);
       probeX.forEach((x, p) => probeT[p]!.push(interpolateProfile(nodeX, T, x)));
+      nextProbe++;
     }
   }
 
   function finish(): RunRecord {
-    const steps = t.length;
     const warnings: string[] = [];
     for (const side of ['bottom', 'top'] as const) {
       const r = rayleighSeen[side];
@@ -220,19 +247,26 @@ export function createRecorder(problem: Problem, grid: Grid) {
         warnings.push(`${side} face: natural convection at Rayleigh numbers ${r.low.toPrecision(2)}–${r.high.toPrecision(2)}; for at least part of the run this is outside the correlation's published range (from 10⁴), so its power law was extrapolated`);
       }
     }
+    const kept = rows.finish();
+    const column = (k: number) => Float64Array.from({ length: kept.rows }, (_, r) => kept.data[r * width + k]!);
+    const map = new Float64Array(full ? kept.rows * nodes : 0);
+    if (full) for (let r = 0; r < kept.rows; r++) map.set(kept.data.subarray(r * width + mapAt, (r + 1) * width), r * nodes);
+    const separator = trace?.finish();
+    if (separator && !separator.exact) {
+      warnings.push(`the separator crossed its melt and freeze levels more than ${recordDefaults.heldCrossings} times; event times after that are interpolated between kept points`);
+    }
     return {
-      tS: t.done(),
+      detail,
+      tS: column(0),
       layers: problem.layers.map((l, li) => {
-        const c = layerCols[li]!;
-        return { id: l.id, minC: c.min.done(), meanC: c.mean.done(), maxC: c.max.done(), liquidFraction: c.liquid?.done() };
+        const at = layerAt[li]!;
+        return { id: l.id, minC: column(at), meanC: column(at + 1), maxC: column(at + 2), liquidFraction: l.material.melt ? column(at + 3) : undefined };
       }),
-      bottomC: bottom.done(),
-      topC: top.done(),
+      bottomC: column(1),
+      topC: column(2),
       nodeXMm: nodeX,
-      map: ndarray(mapColumn.done(), [steps, nodes]),
-      separator: trace
-        ? { tS: trace.t.done(), meltMargin: trace.melt.done(), meanLiquid: trace.mean.done(), freezeMargin: trace.freeze.done() }
-        : undefined,
+      map: ndarray(map, [full ? kept.rows : 0, nodes]),
+      separator: separator?.trace,
       probes: { xMm: probeX, tS: probeTimesSeen, tC: probeT },
       energy: { ...energy, storedJ: storedEnd - storedStart },
       warnings,

@@ -1,13 +1,15 @@
 /**
  * One run, end to end: scenario → grid → evolve() driven to the end → record → verdicts. Used by the CLI, the Web
  * Worker, the tests and the benchmark; `onProgress` lets a caller show progress or stop the run (return false).
+ * `detail: 'summary'` records only what the verdicts read (no position–time map, no per-step series): for window
+ * searches and sweeps, which run many times and read only the summary.
  */
 import type { EvolveEnd, EvolveOptions, EvolveStats } from './evolve.ts';
 import { evolve } from './evolve.ts';
 import type { Grid } from './mesh.ts';
 import { buildGrid } from './mesh.ts';
 import type { Problem } from './problem.ts';
-import type { RunRecord } from './record.ts';
+import type { RecordDetail, RunRecord } from './record.ts';
 import { createRecorder } from './record.ts';
 import type { Summary } from './verdict.ts';
 import { summarize } from './verdict.ts';
@@ -17,6 +19,8 @@ export interface RunOptions extends EvolveOptions {
   readonly refine?: number;
   /** Called after each step with the time reached; return false to stop the run. */
   readonly onProgress?: (tS: number) => boolean | void;
+  /** 'full' (default): series and map for drawing. 'summary': only the verdicts' inputs; record.map is empty. */
+  readonly detail?: RecordDetail;
 }
 
 export type RunOutcome =
@@ -26,7 +30,7 @@ export type RunOutcome =
 
 export function runProblem(problem: Problem, options: RunOptions = {}): RunOutcome {
   const grid = buildGrid(problem, options.refine ?? 1);
-  const recorder = createRecorder(problem, grid);
+  const recorder = createRecorder(problem, grid, { detail: options.detail ?? 'full' });
   const loop = evolve(problem, grid, options);
   let end: EvolveEnd;
   for (;;) {

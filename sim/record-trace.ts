@@ -1,0 +1,113 @@
+/**
+ * The separator's event indicators at every step end and stage point, kept to a budget without moving an event time.
+ *
+ * The verdicts (verdict.ts) find each event where an indicator crosses its level between two recorded points and
+ * interpolate linearly there. Any subset of the points that keeps the first point, the last point and both points of
+ * every pair across which some indicator changes side of its level gives the same first crossings after any start
+ * time: between two such pairs every indicator stays on one side, so no crossing is lost or added, and the pair that
+ * brackets a crossing is the original pair. So the two points around each change of side are held exactly, and the
+ * rest is decimated (row-store.ts).
+ */
+import type { Grid } from './mesh.ts';
+import { liquidFractionOf, temperatureOf } from './material.ts';
+import type { Problem } from './problem.ts';
+import { RowStore } from './row-store.ts';
+
+/** Separator indicators at step ends and stage points, for event times interpolated inside a step. */
+export interface SeparatorTrace {
+  readonly tS: Float64Array;
+  /** min over separator cells of (H − H_liquidus)/(H_liquidus − H_solidus): ≥ 0 when every cell is liquid. */
+  readonly meltMargin: Float64Array;
+  /** Volume-mean liquid fraction of the separator. */
+  readonly meanLiquid: Float64Array;
+  /** max over separator cells of (H − H_solidus)/(H_liquidus − H_solidus): ≤ 0 when every cell is solid. */
+  readonly freezeMargin: Float64Array;
+}
+
+/** The levels the verdicts test (verdict.ts summarize): all liquid, half the mean liquid fraction, all solid. */
+const MELT_LEVEL = 0;
+const HALF_LEVEL = 0.5;
+const FREEZE_LEVEL = 0;
+
+/** Which side of its level each indicator is on, as three bits. */
+function sides(melt: number, mean: number, freeze: number): number {
+  return (melt >= MELT_LEVEL ? 1 : 0) | (mean < HALF_LEVEL ? 2 : 0) | (freeze <= FREEZE_LEVEL ? 4 : 0);
+}
+
+/** Indicator points kept to a budget, with the two points around every change of side held exactly. */
+export interface IndicatorStore {
+  add(tS: number, meltMargin: number, meanLiquid: number, freezeMargin: number): void;
+  /** The kept points, and whether every change of side could be held (false: later events are approximate). */
+  finish(): { trace: SeparatorTrace; exact: boolean };
+}
+
+/** `budget` points kept by decimation besides the held ones; up to `heldPairs` changes of side held. */
+export function createIndicatorStore(budget: number, heldPairs: number): IndicatorStore {
+  const store = new RowStore(4, budget, 2 * heldPairs + 1);
+  let lastSides = -1;
+  let exact = true;
+
+  function add(tS: number, meltMargin: number, mean: number, freezeMargin: number): void {
+    const row = store.row;
+    row[0] = tS;
+    row[1] = meltMargin;
+    row[2] = mean;
+    row[3] = freezeMargin;
+    store.commit();
+    const now = sides(meltMargin, mean, freezeMargin);
+    if (lastSides < 0) {
+      store.hold('latest'); // the first point: an indicator may already be past its level at t = 0
+    } else if (now !== lastSides && exact) {
+      const a = store.hold('previous');
+      const b = store.hold('latest');
+      if (a < 0 || b < 0) exact = false;
+    }
+    lastSides = now;
+  }
+
+  function finish(): { trace: SeparatorTrace; exact: boolean } {
+    const { rows, data } = store.finish();
+    const column = (k: number) => Float64Array.from({ length: rows }, (_, r) => data[r * 4 + k]!);
+    return { trace: { tS: column(0), meltMargin: column(1), meanLiquid: column(2), freezeMargin: column(3) }, exact };
+  }
+
+  return { add, finish };
+}
+
+export interface TraceRecorder {
+  /** Records the indicators of state U (n+2 layout) at time tS. */
+  add(U: Float64Array, tS: number): void;
+  finish: IndicatorStore['finish'];
+}
+
+/** A recorder for the separator cells of the grid, or undefined when the stack has no separator. */
+export function createTraceRecorder(problem: Problem, grid: Grid, budget: number, heldPairs: number): TraceRecorder | undefined {
+  const cells: number[] = [];
+  for (let i = 0; i < grid.n; i++) if (problem.layers[grid.layerOf[i]!]!.separator) cells.push(i);
+  if (cells.length === 0) return undefined;
+  const store = createIndicatorStore(budget, heldPairs);
+  const hint = new Int32Array(cells.length);
+  const scratch = new Float64Array(2);
+
+  function add(U: Float64Array, tS: number): void {
+    let meltMargin = Infinity;
+    let freezeMargin = -Infinity;
+    let liquid = 0;
+    let width = 0;
+    for (let c = 0; c < cells.length; c++) {
+      const i = cells[c]!;
+      const mat = grid.materials[i]!;
+      const melt = mat.melt!;
+      const h = U[i + 1]!;
+      hint[c] = temperatureOf(mat.enthalpy, h, hint[c]!, scratch);
+      const span = Math.max(melt.hLiquidus - melt.hSolidus, Number.MIN_VALUE);
+      meltMargin = Math.min(meltMargin, (h - melt.hLiquidus) / span);
+      freezeMargin = Math.max(freezeMargin, (h - melt.hSolidus) / span);
+      liquid += liquidFractionOf(mat, h, scratch[0]!) * grid.dx[i]!;
+      width += grid.dx[i]!;
+    }
+    store.add(tS, meltMargin, liquid / width, freezeMargin);
+  }
+
+  return { add, finish: store.finish };
+}
