@@ -71,7 +71,7 @@ export const noValueWords = {
   molten_at_s: 'never fully molten',
   half_frozen_at_s: 'not half-frozen at the end',
   frozen_at_s: 'not yet frozen at the end',
-  margin_K: 'no limit on file',
+  margin_K: 'no limit',
   limit: 'none on file',
 } as const;
 
@@ -96,12 +96,12 @@ export const terms = {
 /** Outcome words of a stated expectation (sim/expect.ts). */
 export const expectationWords = { pass: 'met', fail: 'NOT MET', unknown: 'not evaluated' } as const;
 
-/** The short hazard list shown at the end of every run, in the report and in the view. */
+/** The short hazard list shown at the end of every run, in the report and in the view; shown as "term: definition". */
 export const hazards: readonly Term[] = [
-  { term: 'Molten salt', definition: 'causes severe burns and splashes violently on contact with water or damp tools; keep water away.' },
-  { term: 'Lithium salts', definition: '(LiCl and its eutectics) are hygroscopic and corrosive; handle them dry and with protection.' },
-  { term: 'Magnesium fires', definition: 'burn extremely hot and react with water: use a class D extinguishing agent, never water or CO₂. Thin magnesium (ribbon, foil, powder) can ignite well below the bulk figure.' },
-  { term: 'Hot surfaces', definition: 'plates, cups and the cell stay hot long after the separator has frozen.' },
+  { term: 'Molten salt', definition: 'Causes severe burns and splashes violently on contact with water or damp tools; keep water away.' },
+  { term: 'Lithium salts', definition: 'LiCl and its eutectics are hygroscopic and corrosive; handle them dry and with protection.' },
+  { term: 'Magnesium fires', definition: 'Burn extremely hot and react with water: use a class D extinguishing agent, never water or CO₂. Thin magnesium (ribbon, foil, powder) can ignite well below the bulk figure.' },
+  { term: 'Hot surfaces', definition: 'Plates, cups and the cell stay hot long after the separator has frozen.' },
 ];
 
 /** The sentence that closes every printout and the view's caution box. */

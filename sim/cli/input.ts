@@ -7,6 +7,7 @@ import { formatFieldError } from '../field-errors.ts';
 import type { Problem } from '../problem.ts';
 import { runProblem } from '../run.ts';
 import { parseScenarioText } from '../scenario.ts';
+import type { ScenarioFile } from '../scenario-schema.ts';
 
 /** A caller error: printed as it is, exit code 2. */
 export class InputError extends Error {}
@@ -23,10 +24,21 @@ export function readText(file: string): string {
 }
 
 export function readProblem(file: string): Problem {
+  return readScenario(file).problem;
+}
+
+/** The file as written (for its `expect` block and other keys the solver does not see) and as the solver's Problem. */
+export function readScenario(file: string): { readonly scenario: ScenarioFile; readonly problem: Problem } {
   const parsed = parseScenarioText(readText(file));
   if (!parsed.ok) throw new InputError(parsed.errors.map((e) => `${file}: ${formatFieldError(e)}`).join('\n'));
-  return parsed.problem;
+  return parsed;
 }
+
+/**
+ * The command ran and printed its output, but a stated expectation or a `--require` condition failed: the message
+ * (one line per failure) goes to stderr and the exit code is EXIT.failedCheck (3).
+ */
+export class CheckFailed extends Error {}
 
 /** One full run; a solver failure or cancellation is an internal error (exit 1). */
 export function runOrFail(problem: Problem) {

@@ -1,15 +1,18 @@
 /**
  * The `freezeline` command. Exit codes: 0 success, 2 invalid input (each message names the field and the value),
- * 1 internal failure. `run --json` writes exactly the result document on stdout and nothing else.
+ * 1 internal failure, 3 the run finished but a stated expectation (the scenario's `expect` block) failed. `run --json` writes exactly the result document on stdout and nothing else.
  */
 import { writeFileSync } from 'node:fs';
 import { Command, CommanderError } from 'commander';
 import { libraryFile, libraryNames } from '../library.ts';
 import { resultDocument } from '../result.ts';
 import { benchProblem } from './bench-run.ts';
-import { EXIT, InputError, readProblem, runOrFail } from './input.ts';
+import { CheckFailed, EXIT, InputError, readProblem, readScenario, runOrFail } from './input.ts';
+import { countExpectations, evaluateExpectations, unmet } from '../expect.ts';
+import { htmlReport } from './report-html.ts';
 import { registerSweep } from './cmd-sweep.ts';
-import { seriesCsv } from '../series-csv.ts';
+import { registerSeek } from './cmd-seek.ts';
+import { outputTimesCsv, seriesCsv } from '../series-csv.ts';
 import { summaryTable } from './table.ts';
 
 function program(): Command {
@@ -22,19 +25,33 @@ function program(): Command {
     .description('simulate a scenario and print the verdicts')
     .option('--json', 'write the result document (JSON) on stdout, nothing else')
     .option('--csv <out>', 'also write the time series to a CSV file')
-    .action((file: string, opts: { json?: boolean; csv?: string }) => {
-      const problem = readProblem(file);
+    .option('--csv-at <rows>', 'CSV rows: "series" (every recorded point) or "output" (the scenario\'s output times, with probes)', 'series')
+    .option('--report <out>', 'also write a one-page, self-contained HTML report')
+    .option('--verbose', 'also print the solver\'s convection details (Rayleigh numbers)')
+    .action((file: string, opts: { json?: boolean; csv?: string; csvAt: string; report?: string; verbose?: boolean }) => {
+      if (opts.csvAt !== 'series' && opts.csvAt !== 'output') throw new InputError(`--csv-at: must be "series" or "output", got ${JSON.stringify(opts.csvAt)}`);
+      const { scenario, problem } = readScenario(file);
       const out = runOrFail(problem);
-      if (opts.csv) writeFileSync(opts.csv, seriesCsv(out.record));
+      const expectations = evaluateExpectations(scenario.expect, out.summary);
+      if (opts.csv) {
+        writeFileSync(opts.csv, opts.csvAt === 'output'
+          ? outputTimesCsv(out.record, problem.outputTimesS, { labels: problem.probeLabels, probes: out.record.probes })
+          : seriesCsv(out.record));
+      }
+      if (opts.report) writeFileSync(opts.report, htmlReport({ file, description: scenario.description, problem, summary: out.summary, record: out.record, expectations }));
       if (opts.json) process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
-      else process.stdout.write(`${summaryTable(problem.name, out.summary, out.record, problem.durationS)}\n`);
+      else process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, verbose: opts.verbose })}\n`);
+      const failed = unmet(expectations);
+      if (failed.length > 0) throw new CheckFailed(failed.map((o) => `${file}: expectation not met: ${o.statement}; the run gave ${o.actual}`).join('\n'));
     });
 
   cli.command('check').argument('<file>', 'scenario file (JSON)')
     .description('validate a scenario without running it')
     .action((file: string) => {
-      const problem = readProblem(file);
-      process.stdout.write(`${file}: valid (${problem.layers.length} layers, ${problem.durationS} s)\n`);
+      const { scenario, problem } = readScenario(file);
+      const stated = countExpectations(scenario.expect);
+      const note = stated > 0 ? `; ${stated} stated expectation${stated === 1 ? '' : 's'} not evaluated (check does not run the solver: use run)` : '';
+      process.stdout.write(`${file}: valid (${problem.layers.length} layers, ${problem.durationS} s)${note}\n`);
     });
 
   cli.command('materials')
@@ -65,6 +82,7 @@ function program(): Command {
     });
   // each study command registers itself from its own file (sim/cli/cmd-*.ts)
   registerSweep(cli);
+  registerSeek(cli);
   return cli;
 }
 
@@ -75,6 +93,7 @@ export function main(argv: readonly string[]): number {
   } catch (e) {
     if (e instanceof CommanderError) return e.exitCode === 0 ? EXIT.ok : EXIT.invalid;
     if (e instanceof InputError) { process.stderr.write(`${e.message}\n`); return EXIT.invalid; }
+    if (e instanceof CheckFailed) { process.stderr.write(`${e.message}\n`); return EXIT.failedCheck; }
     process.stderr.write(`freezeline: internal error: ${(e as Error).message}\n`);
     return EXIT.internal;
   }

@@ -1,53 +1,82 @@
 /**
- * The human summary of a run: a verdict table for the terminal. Plain text, fixed-width columns, units in headers;
- * "never" for an event that did not happen. Numbers pass through one formatter that refuses non-finite values.
+ * The human summary of a run: a verdict table for the terminal. Plain text, fixed-width columns, every value with
+ * its unit; words (from sim/wording.ts) for a verdict with no value; numbers through sim/format.ts, which never
+ * prints NaN. It ends with the stated expectations, the convection note and the same hazard list as the view.
  */
+import { convectionNote } from '../convection-note.ts';
+import type { ExpectationOutcome } from '../expect.ts';
+import { formatEnergy, formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
+import type { Problem } from '../problem.ts';
 import type { RunRecord } from '../record.ts';
 import type { Summary } from '../verdict.ts';
+import {
+  expectationWords, hazards, hazardsHeading, marginWords, noValueWords, predictionNotCertification, terms, verdictTerms,
+  windowStatusWords,
+} from '../wording.ts';
 
-/** A number for a person: fixed decimals, or "never" for null. Throws on NaN/∞ (an internal error, not a value). */
-export function fmt(value: number | null, decimals = 1): string {
-  if (value === null) return 'never';
-  if (!Number.isFinite(value)) throw new Error(`internal error: a non-finite number (${value}) reached the output`);
-  return value.toFixed(decimals);
+export interface TableExtras {
+  /** Outcomes of the scenario's `expect` block (sim/expect.ts); none printed when empty. */
+  readonly expectations?: readonly ExpectationOutcome[];
+  /** Print the solver's own convection warnings (Rayleigh ranges) beside the plain-words note. */
+  readonly verbose?: boolean;
 }
 
 const pad = (s: string, n: number) => s.padEnd(n);
 const lpad = (s: string, n: number) => s.padStart(n);
+const LABEL = 26;
+const VALUE = 13;
 
-const WINDOW_WORDS: Record<Summary['safe_window_status'], string> = {
-  'ok': '',
-  'limit-crossed': 'none: a layer reached its limit',
-  'never-molten': 'none: the separator never became fully molten',
-  'no-separator': 'none: no layer is marked as the separator',
-  'heat-never-off': 'undetermined: the heat stays on to the end of the run',
-  'still-molten-at-end': 'at least until the end of the run: the separator had not half-frozen',
-};
+/** Whether a recorder warning is the Rayleigh-range detail that the plain convection note summarises. */
+const isRayleighDetail = (w: string): boolean => /Rayleigh/.test(w);
 
-export function summaryTable(name: string, summary: Summary, record: RunRecord, durationS: number): string {
+/** The plain-words convection sentence, or undefined when no face was outside its correlation's range. */
+export function convectionSentence(problem: Problem, record: RunRecord): string | undefined {
+  const note = convectionNote(problem, record);
+  if (!note?.outsideRange) return undefined;
+  return `the cell is small, so the still-air correlations are used outside their published range: heat loss from the faces is uncertain by about ${note.faceLossPercent} % (the convective part by about ${note.convectionPercent} %, the spread between published correlations), and freeze times carry part of that.`;
+}
+
+/** The hazard list and the closing sentence, as lines indented by two spaces. */
+export function cautionLines(): string[] {
+  return [`  ${hazardsHeading}:`, ...hazards.map((h) => `  - ${h.term}: ${h.definition}`), '', `  ${predictionNotCertification}`];
+}
+
+export function expectationLines(outcomes: readonly ExpectationOutcome[]): string[] {
+  if (outcomes.length === 0) return [];
+  const lines = ['', '  stated expectations (expect):'];
+  const width = Math.max(...outcomes.map((o) => o.statement.length));
+  for (const o of outcomes) {
+    lines.push(`    ${pad(o.met ? expectationWords.pass : expectationWords.fail, 8)}${pad(o.statement, width)}   run gave ${o.actual}`);
+  }
+  return lines;
+}
+
+export function summaryTable(problem: Problem, summary: Summary, record: RunRecord, extras: TableExtras = {}): string {
   const s = summary.separator;
-  const lines: string[] = [];
-  lines.push(`freezeline — ${name}`);
+  const row = (label: string, value: string) => `  ${pad(label, LABEL)}${lpad(value, VALUE)}`;
+  const lines: string[] = [`freezeline — ${problem.name}`, ''];
+  lines.push(row(verdictTerms.heat_off_s.term, formatTime(summary.heat_off_s, noValueWords.heat_off_s)));
+  lines.push(row(verdictTerms.molten_at_s.term, formatTime(s.molten_at_s, noValueWords.molten_at_s)));
+  lines.push(row(verdictTerms.half_frozen_at_s.term, formatTime(s.half_frozen_at_s, noValueWords.half_frozen_at_s)));
+  lines.push(row(verdictTerms.frozen_at_s.term, formatTime(s.frozen_at_s, noValueWords.frozen_at_s)));
+  lines.push(summary.safe_window_s !== null
+    ? row(verdictTerms.safe_window_s.term, formatTime(summary.safe_window_s, ''))
+    : `  ${pad(verdictTerms.safe_window_s.term, LABEL)}${windowStatusWords[summary.safe_window_status].sentence}`);
   lines.push('');
-  lines.push(`  heat off at              ${lpad(fmt(summary.heat_off_s), 9)} s`);
-  lines.push(`  separator molten at      ${lpad(fmt(s.molten_at_s), 9)} s`);
-  lines.push(`  separator half-frozen at ${lpad(fmt(s.half_frozen_at_s), 9)} s`);
-  lines.push(`  separator frozen at      ${lpad(fmt(s.frozen_at_s), 9)} s`);
-  const words = WINDOW_WORDS[summary.safe_window_status];
-  lines.push(`  safe window              ${summary.safe_window_s !== null ? `${lpad(fmt(summary.safe_window_s), 9)} s` : words}`);
-  lines.push('');
-  lines.push(`  ${pad('layer', 14)}${lpad('peak °C', 9)}${lpad('at s', 9)}  ${pad('binding limit', 24)}${lpad('margin K', 9)}`);
+  lines.push(`  ${pad(terms.layer.term, 14)}${lpad(`${verdictTerms.peak_C.term}`, 10)}${lpad('at', 13)}  ${pad('binding limit', 20)}${lpad(verdictTerms.margin_K.term, 16)}`);
   for (const [id, v] of Object.entries(summary.layers)) {
-    const limit = v.limit ? `${v.limit.kind} ${fmt(v.limit.at_C, 0)} °C` : '—';
-    const flag = v.margin_K !== null && v.margin_K <= 0 ? '  LIMIT REACHED' : id === summary.binding_layer ? '  (binding)' : '';
-    lines.push(`  ${pad(id, 14)}${lpad(fmt(v.peak_C), 9)}${lpad(fmt(v.peak_at_s, 0), 9)}  ${pad(limit, 24)}${lpad(v.margin_K === null ? '—' : fmt(v.margin_K), 9)}${flag}`);
+    const limit = v.limit ? `${v.limit.kind} ${formatNumber(v.limit.at_C, { decimals: 0 })} °C` : noValueWords.limit;
+    const flag = v.margin_K !== null && v.margin_K <= 0 ? `  ${marginWords.reached}` : id === summary.binding_layer ? `  (${marginWords.binding})` : '';
+    lines.push(`  ${pad(id, 14)}${lpad(formatTemperature(v.peak_C, ''), 10)}${lpad(formatTime(v.peak_at_s, ''), 13)}  ${pad(limit, 20)}${lpad(formatMargin(v.margin_K, noValueWords.margin_K), 16)}${flag}`);
   }
   const e = summary.energy;
   lines.push('');
-  lines.push(`  energy: in ${fmt(e.in_J_m2 / 1e3)} kJ/m², out ${fmt(e.out_J_m2 / 1e3)} kJ/m², stored ${fmt(e.stored_J_m2 / 1e3)} kJ/m², imbalance ${e.imbalance_rel.toExponential(1)}`);
-  lines.push(`  run: ${fmt(durationS, 0)} s simulated in ${record.tS.length - 1} steps`);
-  for (const w of record.warnings) lines.push(`  warning: ${w}`);
-  lines.push('');
-  lines.push('  A prediction, not a safety certification: local codes, your lab\'s safety rules and licensed practice come first.');
+  lines.push(`  ${verdictTerms.energy.term}: in ${formatEnergy(e.in_J_m2)}, out ${formatEnergy(e.out_J_m2)}, stored ${formatEnergy(e.stored_J_m2)}, imbalance ${formatNumber(e.imbalance_rel, { significant: 2 })}`);
+  lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${record.tS.length - 1} ${terms.step.term}s`);
+  lines.push(...expectationLines(extras.expectations ?? []));
+  const note = convectionSentence(problem, record);
+  if (note) lines.push('', `  note: ${note}${extras.verbose ? '' : ' (--verbose for the Rayleigh numbers)'}`);
+  for (const w of record.warnings) if (!note || !isRayleighDetail(w) || extras.verbose) lines.push(`  warning: ${w}`);
+  lines.push('', ...cautionLines());
   return lines.join('\n');
 }

@@ -3,6 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { summaryTable } from '../../sim/cli/table.ts';
+import { evaluateExpectations } from '../../sim/expect.ts';
 import { runProblem } from '../../sim/run.ts';
 import { parseScenarioText } from '../../sim/scenario.ts';
 
@@ -15,6 +16,7 @@ describe('README.md example', () => {
     if (!parsed.ok) throw new Error('demo scenario invalid');
     const out = runProblem(parsed.problem);
     if (out.status !== 'ok') throw new Error(out.status);
-    expect(summaryTable(parsed.problem.name, out.summary, out.record, parsed.problem.durationS)).toBe(shown);
+    const expectations = evaluateExpectations(parsed.scenario.expect, out.summary);
+    expect(summaryTable(parsed.problem, out.summary, out.record, { expectations })).toBe(shown);
   });
 });
