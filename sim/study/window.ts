@@ -17,6 +17,7 @@ import type { Problem } from '../problem.ts';
 import type { WindowStatus } from '../verdict.ts';
 import { crossings, intervals, scanValues, type Interval, type Sample } from './bracket.ts';
 import { holdKnob, powerKnob, type Knob, type Vary } from './knob.ts';
+import { showValue } from './words.ts';
 import { evaluatePoint, keepsMargin, type Binding, type WindowPoint } from './point.ts';
 
 export const windowDefaults = {
@@ -102,7 +103,7 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
   const tol = options.tolerance ?? (knob.vary === 'time' ? windowDefaults.holdToleranceS : (knob.hi - knob.lo) * windowDefaults.powerToleranceShare);
   const at = options.at;
   if (at !== undefined && !(at >= knob.lo && at <= knob.hi)) {
-    return { ok: false, reason: `the value asked for (${knob.show(at)} ${knob.unit}) is outside the range of ${knob.path}: ${knob.show(knob.lo)}–${knob.show(knob.hi)} ${knob.unit}` };
+    return { ok: false, reason: `the value asked for (${showValue({ knob }, at)}) is outside the range of ${knob.path}: ${showValue({ knob }, knob.lo)} to ${showValue({ knob }, knob.hi)}` };
   }
 
   const cache = new Map<number, WindowPoint>();
@@ -132,7 +133,7 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
 
   const first = scan[0]!;
   const top = scan[scan.length - 1]!;
-  const show = (v: number) => `${knob.show(v)} ${knob.unit}`;
+  const show = (v: number) => showValue({ knob }, v);
   let longest: WindowReport['longest'] = null;
   let noLimit: NoLimit | null = null;
   let longestReason: string | null = null;

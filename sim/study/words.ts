@@ -65,12 +65,13 @@ export function windowWords(r: WindowReport): WindowWords {
   if (w) {
     const where = `${showValue(r, w.value)} (${w.chosen === 'longest' ? (time ? 'the longest hold' : 'the largest safe value') : w.chosen === 'own' ? "the scenario's own" : 'as asked'})`;
     const p = w.point;
-    if (p.window_s === null) window = `usable window after heat off at ${where}: none — ${w.reason ?? ''}`;
+    if (p.window_s === null) window = `usable window ${time ? 'after heat off at' : `with the ${r.knob.label} at`} ${where}: none — ${w.reason ?? ''}`;
     else {
       const parts = [`usable for ${formatTime(p.window_s, '—')} to half-frozen`];
       if (r.until_liquid !== null) parts.push(`${formatTime(p.until_liquid_s, 'beyond the run')} to liquid fraction ${formatNumber(r.until_liquid, { significant: 3 })}`);
       parts.push(`the first cell starts to solidify after ${formatTime(p.solidifying_s, '—')}`);
-      window = `after heat off at ${where}: ${parts.join('; ')}`;
+      window = time ? `after heat off at ${where}: ${parts.join('; ')}`
+        : `with the ${r.knob.label} at ${where}, after heat off at ${formatTime(p.heat_off_s, '—')}: ${parts.join('; ')}`;
     }
     if (!w.safe) window += ` — NOT within the ${m} margin there`;
   }

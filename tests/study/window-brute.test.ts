@@ -1,0 +1,83 @@
+// The window search (sim/study/window.ts) against a brute-force scan: the same scenario run hold by hold with the
+// hold edited in the scenario JSON (not through the search's own Problem edit), each run judged straight from its
+// summary. The search must put every edge where the scan puts it, within the search tolerance plus the scan step.
+
+import { describe, expect, it } from 'vitest';
+import demo from '../../examples/bench-coupon.json' with { type: 'json' };
+import { searchWindow, windowDefaults } from '../../sim/study/window.ts';
+import type { ScenarioFile } from '../../sim/scenario-schema.ts';
+import { assertClose } from '../support/assert-close.ts';
+import { parseOk, runOk } from '../support/scenarios.ts';
+
+/** The demo with its plate at `plateC` and its plate removed at `holdS` (bottom[1].from_s). */
+function demoWith(plateC: number, holdS?: number): ScenarioFile {
+  const s = structuredClone(demo) as unknown as ScenarioFile;
+  s.bottom[0]!.plate!.temperature_C = plateC;
+  if (holdS !== undefined) s.bottom[1]!.from_s = holdS;
+  return s;
+}
+
+/** Smallest margin to any limit of any layer, K, read from a plain run's summary. */
+function smallestMargin(s: ScenarioFile): number {
+  const { summary } = runOk(s);
+  return Math.min(...Object.values(summary.layers).flatMap((l) => l.limits.map((m) => m.margin_K)));
+}
+
+const M = windowDefaults.marginK;
+const TOL = windowDefaults.holdToleranceS;
+
+describe('searchWindow() against a brute-force scan of the hold', () => {
+  // a plate hot enough (800 °C) that the magnesium anode comes within 25 K of ignition (650 °C) if held long
+  const plateC = 800;
+  const result = searchWindow(parseOk(demoWith(plateC)), { marginK: M });
+
+  it('searchWindow() finds one edge of the margin on the hot-plate demo, and names the anode and its ignition limit', () => {
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    const r = result.report;
+    expect(r.longest).not.toBeNull();
+    expect(r.longest!.binding?.layer).toBe('anode');
+    expect(r.longest!.binding?.kind).toBe('ignition');
+    expect(r.monotonic).toBe(true);
+    expect(r.safe).toHaveLength(1);
+  });
+
+  it('searchWindow() puts the longest hold where a 1 s scan of the hold finds the margin running out', () => {
+    if (!result.ok) throw new Error(result.reason);
+    const found = result.report.longest!.value;
+    // step through whole seconds around the found value until the scan's own edge is bracketed
+    const STEP = 1;
+    let lastSafe = Math.floor(found) - 3;
+    expect(smallestMargin(demoWith(plateC, lastSafe))).toBeGreaterThan(M);
+    let firstUnsafe = lastSafe + STEP;
+    while (smallestMargin(demoWith(plateC, firstUnsafe)) > M) {
+      lastSafe = firstUnsafe;
+      firstUnsafe += STEP;
+      if (firstUnsafe > found + 10) throw new Error(`the scan found no edge near ${found} s`);
+    }
+    // the search's bracket is ≤ TOL wide and the scan's is STEP wide: the two edges agree within TOL + STEP
+    assertClose(found, lastSafe, { abs: TOL + STEP }, 'longest hold vs brute-force scan, s');
+    expect(found).toBeLessThan(firstUnsafe);
+  });
+
+  it('searchWindow() reports at the longest hold the same usable window as a plain run with that hold', () => {
+    if (!result.ok) throw new Error(result.reason);
+    const r = result.report;
+    const hold = r.longest!.value;
+    expect(r.window?.chosen).toBe('longest');
+    const { summary } = runOk(demoWith(plateC, hold));
+    const direct = summary.separator.half_frozen_at_s! - summary.heat_off_s!;
+    // the same hold run two ways (Problem edit vs JSON edit): identical to round-off in the hold
+    assertClose(r.window!.point.window_s ?? Number.NaN, direct, { abs: 1e-6 }, 'usable window, s');
+    assertClose(r.window!.point.heat_off_s ?? Number.NaN, hold, { abs: 1e-9 }, 'heat off at the hold, s');
+  });
+
+  it('searchWindow() puts the shortest hold where a scan of the hold first finds the separator fully molten', () => {
+    if (!result.ok) throw new Error(result.reason);
+    const shortest = result.report.shortest!.value;
+    const molten = (h: number) => runOk(demoWith(plateC, h)).summary.separator.molten_at_s !== null;
+    // bisection brackets it within TOL: molten at the reported hold, not molten TOL + a little below it
+    expect(molten(shortest)).toBe(true);
+    expect(molten(Math.max(0, shortest - TOL - 0.05))).toBe(false);
+  });
+});
