@@ -8,6 +8,7 @@
  * A verdict that does not exist (null: no safe window, never molten, a layer without a limit) fails every target,
  * whatever the operator: a requirement on a quantity that is not there is not met.
  */
+import { formatSignificant } from '../format.ts';
 import type { Summary } from '../verdict.ts';
 import { parsePath, type Outcome, type PathStep } from './scenario-path.ts';
 
@@ -39,6 +40,7 @@ export function parseTarget(text: string): Outcome<Target> {
   const form = 'write PATH OP VALUE, e.g. safe_window_s>=600 or layers.anode.margin_K>=25 (OP: >=, <=, >, <, ==)';
   if (!m) return { ok: false, message: `target ${JSON.stringify(text)}: no comparison found; ${form}` };
   const [, left, op, right] = m as unknown as [string, string, Operator, string];
+  if (/[=!]$/.test(left)) return { ok: false, message: `target ${JSON.stringify(text)}: unknown operator "${left.slice(-1)}${op}"; ${form}` };
   if (left === '') return { ok: false, message: `target ${JSON.stringify(text)}: nothing before ${op}; ${form}` };
   if (right === '') return { ok: false, message: `target ${JSON.stringify(text)}: nothing after ${op}; ${form}` };
   if (/[<>=]/.test(right)) return { ok: false, message: `target ${JSON.stringify(text)}: more than one comparison; ${form}` };
@@ -114,4 +116,10 @@ export function shortfall(target: Target, value: number | string | null): number
   if (target.op === '>=' || target.op === '>') return target.value - value;
   if (target.op === '<=' || target.op === '<') return value - target.value;
   return Math.abs(value - target.value);
+}
+
+/** A reading as a person reads it: a number at about 6 significant figures, a word as it is, or "none" for null. */
+export function readingText(value: number | string | null): string {
+  if (value === null) return 'none (the verdict does not exist in this run)';
+  return typeof value === 'number' ? formatSignificant(value) : value;
 }

@@ -1,0 +1,106 @@
+/**
+ * Goal seeking: the smallest (or largest) value of one input, in [min, max], for which a run meets a target.
+ * Method: a coarse scan of evenly spaced values (both ends included), then bisection on the bracket where the target
+ * changes from unmet to met, until the bracket is narrower than the tolerance; the answer is the bracket's met end,
+ * so it meets the target by construction. Bisection assumes the response is monotonic inside that bracket: when the
+ * scan shows the target met on more than one stretch, the result says the response is not monotonic and lists every
+ * stretch seen, so the user knows the answer is the edge of the first (or last) one.
+ * A target met nowhere in the scan is reported as not met, with the value that came closest.
+ */
+import type { Summary } from '../verdict.ts';
+import type { Resolved } from './scenario-path.ts';
+import { parseScenario } from '../scenario.ts';
+import { formatFieldError } from '../field-errors.ts';
+import { setAt } from './scenario-path.ts';
+import { runSummary } from './sweep.ts';
+import { evaluateTarget, shortfall, type Target } from './target.ts';
+
+export const seekDefaults = {
+  /** Scan points (ends included): fine enough to see a second met stretch, cheap next to the bisection. */
+  scanCount: 9,
+  /** Bisection stops when the bracket is narrower than this share of the range (unless a tolerance is given). */
+  relativeTolerance: 1e-3,
+} as const;
+
+/** One run at one value of the input. */
+export interface Probe {
+  readonly value: number;
+  readonly met: boolean;
+  /** What the target reads there (a number, a word, or null when the verdict does not exist). */
+  readonly reading: number | string | null;
+  /** How far the reading is from the target (≤ 0 met), null for words and missing verdicts: ranks a miss. */
+  readonly shortfall: number | null;
+  readonly summary: (Summary & { readonly warnings: readonly string[] }) | null;
+  readonly error: string | null;
+}
+
+export interface SeekOptions {
+  readonly min: number;
+  readonly max: number;
+  readonly largest: boolean;
+  readonly scanCount?: number;
+  /** Width of the final bracket, in the input's unit. */
+  readonly tolerance?: number;
+}
+
+export interface SeekResult {
+  /** The smallest (largest) value found to meet the target; null when it is met nowhere. */
+  readonly value: number | null;
+  readonly met: boolean;
+  /** Runs made. */
+  readonly solves: number;
+  /** The run at `value`, or at the closest value when the target is not met. */
+  readonly summary: Probe['summary'];
+  /** False when the scan found the target met on more than one stretch of the range. */
+  readonly monotonic: boolean;
+  /** Stretches of the scan where the target is met, [first, last] scan value of each. */
+  readonly met_intervals: readonly (readonly [number, number])[];
+  /** The answer's uncertainty: width of the last bracket (0 when it is an end of the range). */
+  readonly bracket: number;
+  /** When not met: the value that came closest and what the target read there. */
+  readonly best: { readonly value: number; readonly reading: number | string | null } | null;
+}
+
+export function seek(probeAt: (value: number) => Probe, opts: SeekOptions): SeekResult {
+  const n = opts.scanCount ?? seekDefaults.scanCount;
+  const tol = opts.tolerance ?? seekDefaults.relativeTolerance * (opts.max - opts.min);
+  let solves = 0;
+  const at = (v: number) => { solves++; return probeAt(v); };
+  const scan = Array.from({ length: n }, (_, i) => at(i === n - 1 ? opts.max : opts.min + ((opts.max - opts.min) * i) / (n - 1)));
+  const intervals: [number, number][] = [];
+  scan.forEach((p, i) => {
+    if (!p.met) return;
+    if (i > 0 && scan[i - 1]!.met) intervals[intervals.length - 1]![1] = p.value;
+    else intervals.push([p.value, p.value]);
+  });
+  const monotonic = intervals.length <= 1;
+  if (intervals.length === 0) {
+    const best = scan.reduce<Probe | null>((b, p) => (p.shortfall !== null && (b === null || p.shortfall < b.shortfall!) ? p : b), null);
+    return { value: null, met: false, solves, summary: best?.summary ?? null, monotonic, met_intervals: [], bracket: 0, best: best ? { value: best.value, reading: best.reading } : null };
+  }
+  const metAt = scan.flatMap((p, i) => (p.met ? [i] : []));
+  const edge = opts.largest ? metAt[metAt.length - 1]! : metAt[0]!;
+  const outer = opts.largest ? edge + 1 : edge - 1;
+  let good = scan[edge]!;
+  if (outer < 0 || outer >= n) {
+    return { value: good.value, met: true, solves, summary: good.summary, monotonic, met_intervals: intervals, bracket: 0, best: null };
+  }
+  let bad = scan[outer]!.value;
+  while (Math.abs(good.value - bad) > tol) {
+    const mid = at((good.value + bad) / 2);
+    if (mid.met) good = mid; else bad = mid.value;
+  }
+  return { value: good.value, met: true, solves, summary: good.summary, monotonic, met_intervals: intervals, bracket: Math.abs(good.value - bad), best: null };
+}
+
+/** A probe that sets one place of a scenario file, runs it summary-only and checks the target. */
+export function scenarioProbe(doc: unknown, place: Resolved, target: Target): (value: number) => Probe {
+  return (value) => {
+    const parsed = parseScenario(setAt(doc, place, value));
+    if (!parsed.ok) return { value, met: false, reading: null, summary: null, shortfall: null, error: parsed.errors.map(formatFieldError).join('; ') };
+    const run = runSummary(parsed.problem);
+    if (!run.summary) return { value, met: false, reading: null, shortfall: null, summary: null, error: run.error };
+    const check = evaluateTarget(target, run.summary);
+    return { value, met: check.met, reading: check.value, shortfall: shortfall(target, check.value), summary: run.summary, error: null };
+  };
+}
