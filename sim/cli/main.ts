@@ -12,6 +12,7 @@ import { countExpectations, evaluateExpectations, unmet } from '../expect.ts';
 import { htmlReport } from './report-html.ts';
 import { registerSweep } from './cmd-sweep.ts';
 import { registerSeek } from './cmd-seek.ts';
+import { registerAmbient } from './cmd-ambient.ts';
 import { registerWindow } from './cmd-window.ts';
 import { outputTimesCsv, seriesCsv } from '../series-csv.ts';
 import { summaryTable } from './table.ts';
@@ -84,6 +85,7 @@ function program(): Command {
   // each study command registers itself from its own file (sim/cli/cmd-*.ts)
   registerSweep(cli);
   registerSeek(cli);
+  registerAmbient(cli);
   registerWindow(cli);
   return cli;
 }
