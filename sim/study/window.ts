@@ -150,7 +150,7 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
       layer: b.layer, kind: b.kind, settles_C: b.peak_C, margin_K: b.margin_K,
       settled: below?.margin_K != null && Math.abs(below.margin_K - b.margin_K) < windowDefaults.settleK,
     };
-    longestReason = `no limit for any value up to ${show(knob.hi)}`;
+    longestReason = `no limit for any ${knob.vary === 'time' ? 'hold' : 'value'} up to ${show(knob.hi)}`;
   } else {
     longest = { value: lastSafe.to, binding: pointAt(lastSafe.to).binding };
   }
