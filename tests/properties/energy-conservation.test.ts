@@ -23,7 +23,7 @@ describe('energy conservation (random scenarios)', () => {
     let held = 0;
     record.layers.forEach((series, i) => {
       const layer = scenario.layers[i]!;
-      const m = scenario.materials![layer.material]!;
+      const m = scenario.materials![layer.material]! as InlineMaterialFile; // a material given directly (randomScenario)
       const t = layer.thickness_mm / 1000;
       held += m.rho_kg_m3 * constantOf(m.cp_J_kgK) * t * (last(series.meanC) - initial);
       if (m.melt && series.liquidFraction) {
