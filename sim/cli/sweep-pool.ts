@@ -9,7 +9,7 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { SingleBar } from 'cli-progress';
-import { Tinypool } from 'tinypool';
+import type { Tinypool as TinypoolClass } from 'tinypool';
 import { runSweepPoint, type SweepPlan, type SweepRow } from '../study/sweep.ts';
 import type { SweepTask } from './sweep-worker.ts';
 
@@ -30,6 +30,15 @@ export const defaultJobs = (): number => availableParallelism();
 export function workerEntry(): string {
   const js = new URL('./sweep-worker.js', import.meta.url);
   return existsSync(fileURLToPath(js)) ? js.href : new URL('./sweep-worker-source.mjs', import.meta.url).href;
+}
+
+/**
+ * tinypool, loaded from its own package folder at run time: it starts each thread from a script it finds beside
+ * itself (`entry/worker.js`), so it must not be bundled into the CLI (a non-literal specifier keeps esbuild out).
+ */
+async function loadTinypool(): Promise<typeof TinypoolClass> {
+  const name = 'tinypool';
+  return ((await import(name)) as { Tinypool: typeof TinypoolClass }).Tinypool;
 }
 
 export interface PoolOptions {
@@ -59,6 +68,7 @@ export async function runPoints(plan: SweepPlan, indices: readonly number[], opt
     const size = Math.max(1, Math.min(poolDefaults.maxBatch, Math.ceil(indices.length / (threads * poolDefaults.tasksPerThread))));
     const batches: number[][] = [];
     for (let s = 0; s < indices.length; s += size) batches.push(indices.slice(s, s + size));
+    const Tinypool = await loadTinypool();
     const pool = new Tinypool({ filename: workerEntry(), minThreads: threads, maxThreads: threads });
     const done = new Map<number, SweepRow[]>();
     let next = 0;
