@@ -147,7 +147,7 @@ export function pointScenario(plan: SweepPlan, index: number): unknown {
 
 /** A summary-only run of a problem: the verdicts and warnings, or the reason it failed. */
 export function runSummary(problem: Problem): { summary: SweepRow['summary']; error: string | null } {
-  const out = runProblem(problem);
+  const out = runProblem(problem, { detail: 'summary' });
   if (out.status === 'ok') return { summary: { ...out.summary, warnings: out.record.warnings }, error: null };
   if (out.status === 'failed') return { summary: null, error: `the run failed at t = ${out.tS} s: ${out.message}` };
   return { summary: null, error: 'the run was cancelled' };
