@@ -1,0 +1,61 @@
+// Builds the `freezeline` command into plain JavaScript with esbuild, so a call starts without compiling TypeScript:
+// build/cli/main.js (the command) and one file per worker entry sim/cli/*-worker.ts beside it (tinypool loads
+// `<name>-worker.js` from the bundle's own folder). Dependencies are bundled too: one file to load is the fastest
+// start. `npm run build:cli` runs this; `prepare` (npm install / npm ci), `npm start` and `npm test` call it, and
+// sim/cli/bin.js calls buildCli() itself when a source file is newer than the bundle, so a call never runs stale code.
+// Each file is written beside its place and renamed over it, so a command starting meanwhile never reads half a file.
+import { mkdirSync, readdirSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { join } from 'node:path';
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+export const bundlePath = join(root, 'build/cli/main.js');
+/** What the bundle is built from: a change here makes it stale. */
+const SOURCE_DIRS = ['sim', 'materials'];
+
+/** Newest modification time (ms) among the bundle's sources. */
+function newestSourceMs() {
+  let newest = 0;
+  for (const d of SOURCE_DIRS) {
+    for (const f of readdirSync(join(root, d), { recursive: true })) {
+      if (/\.(ts|json|mjs)$/.test(f)) newest = Math.max(newest, statSync(join(root, d, f)).mtimeMs);
+    }
+  }
+  return newest;
+}
+
+/** Whether build/cli/main.js is missing or older than a source file. */
+export function bundleIsStale() {
+  try {
+    return statSync(bundlePath).mtimeMs < newestSourceMs();
+  } catch {
+    return true;
+  }
+}
+
+export async function buildCli() {
+  const { build } = await import('esbuild');
+  const workers = readdirSync(join(root, 'sim/cli')).filter((f) => f.endsWith('-worker.ts')).map((f) => join(root, 'sim/cli', f));
+  const out = await build({
+    entryPoints: [join(root, 'sim/cli/main.ts'), ...workers],
+    outdir: join(root, 'build/cli'),
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    minify: true,
+    // CommonJS dependencies (ndarray, odex, commander) call require(): give the ES module one
+    banner: { js: "import { createRequire as __freezelineRequire } from 'node:module'; const require = __freezelineRequire(import.meta.url);" },
+    logLevel: 'warning',
+    legalComments: 'none',
+    write: false,
+  });
+  mkdirSync(join(root, 'build/cli'), { recursive: true });
+  for (const f of out.outputFiles) {
+    const temp = `${f.path}.${process.pid}.tmp`;
+    writeFileSync(temp, f.contents);
+    renameSync(temp, f.path);
+  }
+}
+
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) await buildCli();

@@ -1,0 +1,90 @@
+// The `freezeline` command as a user calls it (node sim/cli/bin.js → the esbuild bundle): it prints the words of the
+// wording table, ends with the hazard list, reports stated expectations and exits 3 when one is not met, writes the
+// CSV on the output times and a self-contained HTML report. The demo's claims and the words are the references; the
+// exit codes are the ones documented in the README.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { hazards, predictionNotCertification, verdictTerms } from '../../sim/wording.ts';
+
+const root = fileURLToPath(new URL('../../', import.meta.url));
+const demo = join(root, 'examples/bench-coupon.json');
+const work = mkdtempSync(join(tmpdir(), 'freezeline-cli-'));
+
+function freezeline(...args: string[]) {
+  const r = spawnSync(process.execPath, [join(root, 'sim/cli/bin.js'), ...args], { cwd: root, encoding: 'utf8' });
+  return { code: r.status, out: r.stdout, err: r.stderr };
+}
+
+/** The demo with two claims it does not meet (window at least 10 min, anode margin at least 300 K). */
+function failingScenario(): string {
+  const file = JSON.parse(readFileSync(demo, 'utf8')) as { expect: Record<string, unknown> };
+  file.expect.window_at_least_s = 600;
+  file.expect.margin_at_least_K = { anode: 300 };
+  const path = join(work, 'too-hopeful.json');
+  writeFileSync(path, JSON.stringify(file));
+  return path;
+}
+
+describe('freezeline run', () => {
+  it('prints every verdict term of the wording table, the stated expectations as met, and the hazard list', () => {
+    const r = freezeline('run', demo);
+    expect(r.code, r.err).toBe(0);
+    for (const key of ['heat_off_s', 'molten_at_s', 'half_frozen_at_s', 'frozen_at_s', 'safe_window_s'] as const) {
+      expect(r.out).toMatch(new RegExp(`^  ${verdictTerms[key].term} `, 'm'));
+    }
+    expect(r.out).toMatch(/^ {4}met {5}separator molten before 15:00 min:s/m);
+    for (const h of hazards) expect(r.out).toContain(`${h.term}: ${h.definition}`);
+    expect(r.out.trimEnd().endsWith(predictionNotCertification)).toBe(true);
+    expect(r.out).not.toMatch(/NaN|Infinity|never s\b|undetermined|safe window|heater removed/);
+  });
+
+  it('exits 3 when a stated expectation is not met, naming it on stderr, and still writes the CSV and the report', () => {
+    const csv = join(work, 'out.csv');
+    const html = join(work, 'report.html');
+    const r = freezeline('run', failingScenario(), '--csv', csv, '--csv-at', 'output', '--report', html);
+    expect(r.code).toBe(3);
+    expect(r.out).toMatch(/NOT MET +usable window at least 10:00 min:s/);
+    expect(r.err).toContain('expectation not met: anode margin at least 300 K; the run gave');
+    // the demo asks for output at 600, 900 and 1800 s: one row each, probes as columns
+    const rows = readFileSync(csv, 'utf8').trimEnd().split('\r\n');
+    expect(rows.map((l) => l.split(',')[0])).toEqual(['t_s', '600', '900', '1800']);
+    expect(rows[0]).toMatch(/probe_/);
+    const page = readFileSync(html, 'utf8');
+    expect(page).toContain(verdictTerms.safe_window_s.term);
+    expect(page).toContain('NOT MET');
+    for (const h of hazards) expect(page).toContain(h.term);
+    expect(page).toContain(predictionNotCertification);
+    expect(page).toContain('<svg');
+    // self-contained: no script, nothing fetched
+    expect(page).not.toMatch(/<script|<link|\ssrc=|@import|url\(/i);
+  });
+
+  it('refuses an unknown --csv-at choice with exit code 2, naming the option and the value', () => {
+    const r = freezeline('run', demo, '--csv', join(work, 'x.csv'), '--csv-at', 'hourly');
+    expect(r.code).toBe(2);
+    expect(r.err).toContain('--csv-at: must be "series" or "output", got "hourly"');
+  });
+});
+
+describe('freezeline check (the bundle)', () => {
+  it('says that stated expectations are not evaluated without a run, and exits 0 for a valid file', () => {
+    const r = freezeline('check', failingScenario());
+    expect(r.code).toBe(0);
+    expect(r.out).toContain('valid (3 layers, 3600 s); 5 stated expectations not evaluated');
+  });
+
+  it('refuses a bad field with exit code 2 and a message that names it, from the built bundle itself', () => {
+    const file = JSON.parse(readFileSync(demo, 'utf8')) as { layers: { thickness_mm: number }[] };
+    file.layers[1]!.thickness_mm = -1.5;
+    const bad = join(work, 'bad.json');
+    writeFileSync(bad, JSON.stringify(file));
+    freezeline('check', demo); // builds build/cli/main.js if a source is newer
+    const r = spawnSync(process.execPath, [join(root, 'build/cli/main.js'), 'check', bad], { encoding: 'utf8' });
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain('layers[1].thickness_mm: must be > 0, got -1.5');
+  });
+});
