@@ -108,3 +108,21 @@ describe('LiCl–KCl liquidus model', () => {
     expect(melt.liquidusK - K).toBeLessThan(360);
   });
 });
+
+describe('freezeline salt (sim/cli/cmd-salt.ts)', () => {
+  it('saltJson() of pure LiCl prints its published melting point as solidus and liquidus, and the fitted eutectic', async () => {
+    const { saltJson } = await import('../../sim/cli/cmd-salt.ts');
+    const doc = saltJson(1);
+    expect(Object.keys(doc)).toEqual(['solidus_C', 'liquidus_C', 'eutectic_C', 'eutectic_x_LiCl']);
+    expect(doc).toMatchObject({ solidus_C: 610, liquidus_C: 610, eutectic_C: 352 });
+    assertClose(doc.eutectic_x_LiCl!, 0.585, { abs: 0.005 }, 'eutectic x');
+  });
+
+  it('parseParts() reads LiCl=0.8 KCl=0.2, fills in the missing salt, and refuses anything else by name', async () => {
+    const { parseParts } = await import('../../sim/cli/cmd-salt.ts');
+    expect(parseParts(['LiCl=0.8', 'KCl=0.2'])).toEqual({ LiCl: 0.8, KCl: 0.2 });
+    expect(parseParts(['KCl=0.25'])).toEqual({ LiCl: 0.75, KCl: 0.25 });
+    expect(() => parseParts(['NaCl=0.5'])).toThrow(/"NaCl=0.5"/);
+    expect(() => parseParts(['LiCl=1.5'])).toThrow(/LiCl must be a fraction in \[0, 1\], got "1.5"/);
+  });
+});
