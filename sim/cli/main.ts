@@ -1,6 +1,6 @@
 /**
  * The `freezeline` command. Exit codes: 0 success, 2 invalid input (each message names the field and the value),
- * 1 internal failure, 3 the run finished but a stated expectation (the scenario's `expect` block) failed. `run --json` writes exactly the result document on stdout and nothing else.
+ * 1 internal failure, 3 the run finished but a stated expectation (the scenario's `expect` block) or a `run --require` condition failed. `run --json` writes exactly the result document on stdout and nothing else.
  */
 import { writeFileSync } from 'node:fs';
 import { Command, CommanderError } from 'commander';
@@ -10,6 +10,7 @@ import { benchProblem } from './bench-run.ts';
 import { CheckFailed, EXIT, InputError, readProblem, readScenario, runOrFail } from './input.ts';
 import { countExpectations, evaluateExpectations, unmet } from '../expect.ts';
 import { htmlReport } from './report-html.ts';
+import { collectRequirement, parseRequirements, reportRequirements } from './require-check.ts';
 import { registerSweep } from './cmd-sweep.ts';
 import { registerSeek } from './cmd-seek.ts';
 import { registerAmbient } from './cmd-ambient.ts';
@@ -31,9 +32,11 @@ function program(): Command {
     .option('--csv-at <rows>', 'CSV rows: "series" (every recorded point) or "output" (the scenario\'s output times, with probes)', 'series')
     .option('--report <out>', 'also write a one-page, self-contained HTML report')
     .option('--verbose', 'also print the solver\'s convection details (Rayleigh numbers)')
-    .action((file: string, opts: { json?: boolean; csv?: string; csvAt: string; report?: string; verbose?: boolean }) => {
+    .option('--require <EXPR>', 'a condition on the verdicts, e.g. "safe_window_s>=60" or "margin_K>=25" (repeatable); exit 3 if one is not met', collectRequirement, [])
+    .action((file: string, opts: { json?: boolean; csv?: string; csvAt: string; report?: string; verbose?: boolean; require: string[] }) => {
       if (opts.csvAt !== 'series' && opts.csvAt !== 'output') throw new InputError(`--csv-at: must be "series" or "output", got ${JSON.stringify(opts.csvAt)}`);
       const { scenario, problem } = readScenario(file);
+      const requirements = parseRequirements(opts.require, problem);
       const out = runOrFail(problem);
       const expectations = evaluateExpectations(scenario.expect, out.summary);
       if (opts.csv) {
@@ -44,8 +47,10 @@ function program(): Command {
       if (opts.report) writeFileSync(opts.report, htmlReport({ file, description: scenario.description, problem, summary: out.summary, record: out.record, expectations }));
       if (opts.json) process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
       else process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, verbose: opts.verbose })}\n`);
+      const unmetRequirements = reportRequirements(requirements, out.summary, file, (s) => (opts.json ? process.stderr : process.stdout).write(s));
       const failed = unmet(expectations);
       if (failed.length > 0) throw new CheckFailed(failed.map((o) => `${file}: expectation not met: ${o.statement}; the run gave ${o.actual}`).join('\n'));
+      if (unmetRequirements.length > 0) throw new CheckFailed(unmetRequirements.join('\n'));
     });
 
   cli.command('check').argument('<file>', 'scenario file (JSON)')
