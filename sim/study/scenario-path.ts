@@ -83,11 +83,12 @@ export function resolvePath(doc: unknown, path: ScenarioPath): Outcome<Resolved>
       node = node[index];
     } else if (isObject(node)) {
       if (step.kind === 'index') return fail(`${where()} is an object, not a list; its keys are ${Object.keys(node).join(', ') || '(none)'}`);
-      concrete.push(step.key);
       if (!Object.hasOwn(node, step.key)) {
-        if (last) return { ok: true, value: { concrete, concreteText: formatPath(concrete), value: undefined } };
-        return fail(`no key "${step.key}" in ${where()} (keys there: ${Object.keys(node).join(', ') || 'none'})`);
+        if (!last) return fail(`no key "${step.key}" in ${where()} (keys there: ${Object.keys(node).join(', ') || 'none'})`);
+        concrete.push(step.key);
+        return { ok: true, value: { concrete, concreteText: formatPath(concrete), value: undefined } };
       }
+      concrete.push(step.key);
       node = node[step.key];
     } else {
       return fail(`${where()} is ${kindOf(node)}, so it has no "${step.kind === 'key' ? step.key : step.index}" inside it`);

@@ -38,9 +38,10 @@ export function parseTarget(text: string): Outcome<Target> {
   const src = text.trim();
   const m = /^(.*?)\s*(>=|<=|==|>|<)\s*(.*)$/.exec(src);
   const form = 'write PATH OP VALUE, e.g. safe_window_s>=600 or layers.anode.margin_K>=25 (OP: >=, <=, >, <, ==)';
+  const odd = /!=|=>|=<|(?<![<>=])=(?!=)/.exec(src);
+  if (odd) return { ok: false, message: `target ${JSON.stringify(text)}: unknown operator "${odd[0]}"; ${form}` };
   if (!m) return { ok: false, message: `target ${JSON.stringify(text)}: no comparison found; ${form}` };
   const [, left, op, right] = m as unknown as [string, string, Operator, string];
-  if (/[=!]$/.test(left)) return { ok: false, message: `target ${JSON.stringify(text)}: unknown operator "${left.slice(-1)}${op}"; ${form}` };
   if (left === '') return { ok: false, message: `target ${JSON.stringify(text)}: nothing before ${op}; ${form}` };
   if (right === '') return { ok: false, message: `target ${JSON.stringify(text)}: nothing after ${op}; ${form}` };
   if (/[<>=]/.test(right)) return { ok: false, message: `target ${JSON.stringify(text)}: more than one comparison; ${form}` };
