@@ -48,9 +48,9 @@ function program(): Command {
       if (opts.json) process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
       else process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, verbose: opts.verbose })}\n`);
       const unmetRequirements = reportRequirements(requirements, out.summary, file, (s) => (opts.json ? process.stderr : process.stdout).write(s));
-      const failed = unmet(expectations);
-      if (failed.length > 0) throw new CheckFailed(failed.map((o) => `${file}: expectation not met: ${o.statement}; the run gave ${o.actual}`).join('\n'));
-      if (unmetRequirements.length > 0) throw new CheckFailed(unmetRequirements.join('\n'));
+      // every unmet expectation and requirement on stderr, then exit 3
+      const failed = [...unmet(expectations).map((o) => `${file}: expectation not met: ${o.statement}; the run gave ${o.actual}`), ...unmetRequirements];
+      if (failed.length > 0) throw new CheckFailed(failed.join('\n'));
     });
 
   cli.command('check').argument('<file>', 'scenario file (JSON)')
