@@ -79,6 +79,11 @@ export const materialEntrySchema = z.strictObject({
 }).superRefine((m, ctx) => {
   const kind = m.salt ? 'salt' : m.composite ? 'composite' : undefined;
   if (m.salt && m.composite) ctx.addIssue({ code: 'custom', path: ['composite'], input: m.composite, message: 'a material is a salt mixture or a composite, not both' });
+  for (const key of MODEL_KEYS) {
+    if (kind && m[key] !== undefined) ctx.addIssue({ code: 'custom', path: [key], input: m[key], message: `comes from the ${kind} model here; remove it` });
+    if (!kind && key !== 'melt' && m[key] === undefined) ctx.addIssue({ code: 'custom', path: [key], input: undefined, message: 'is required (a number or a table) unless the material is a "salt" or a "composite"' });
+  }
+});
 
 export const libraryMaterialSchema = z.strictObject({
   freezeline_material: z.literal(1, { error: 'must be 1 (the material format version)' }),
