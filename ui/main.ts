@@ -23,6 +23,7 @@ import { firstNonFinite } from './protocol.ts';
 import { shownResult } from './result.ts';
 import { createResultsView } from './results-view.ts';
 import { createRunner } from './runner.ts';
+import { createOperatingPanel } from './operating-view.ts';
 import { renderSetupEditor, type SetupEditor } from './setup-editor.ts';
 import { refreshSourceNotes } from './source-rows.ts';
 import { renderStackEditor } from './stack-editor.ts';
@@ -57,6 +58,7 @@ function renderEditors(): void {
 }
 
 const results = createResultsView();
+const operating = createOperatingPanel(byId('operating'));
 const status = createStatusView(() => runner.cancel());
 const runner = createRunner({
   onStart: () => {
@@ -82,6 +84,8 @@ const runner = createRunner({
     const drawn = results.show(shownResult(job, scenario as JsonObject, record, summary));
     performance.mark('freezeline:verdict');
     void drawn.then(() => performance.mark('freezeline:plotted'));
+    // the window search (many runs) starts once the charts are drawn, in its own worker
+    void drawn.then(() => operating.request(scenario));
   },
   onErrors: (errors) => {
     lastErrors = errors;
