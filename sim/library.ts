@@ -3,7 +3,7 @@
  * A broken library file is a programming error (the test suite checks every file), so it throws here.
  */
 import { libraryMaterialFiles } from '../materials/index.ts';
-import { formatFieldError, formatZodIssue, type FieldError } from './field-errors.ts';
+import { clip, formatFieldError, formatZodIssue, nearestWord, quote, type FieldError } from './field-errors.ts';
 import type { Material } from './material.ts';
 import { materialFromFile } from './material-file.ts';
 import { type LibraryMaterialFile, libraryMaterialSchema } from './scenario-schema.ts';
@@ -38,4 +38,16 @@ export function libraryMaterial(name: string): Material | undefined {
   if (errors.length > 0) throw new Error(errors.map(formatFieldError).join('; '));
   cache.set(name, material);
   return material;
+}
+
+/**
+ * Words for a material name found neither in the scenario nor in the library: the nearest known name (a likely typo),
+ * then every name the scenario could use.
+ */
+export function unknownMaterialMessage(name: string, ownNames: readonly string[]): string {
+  const library = libraryNames();
+  const hint = nearestWord(name, [...ownNames, ...library]);
+  const listed = ownNames.length > 20 ? `${ownNames.slice(0, 20).map((n) => clip(n)).join(', ')}, … (${ownNames.length} in all)` : ownNames.map((n) => clip(n)).join(', ');
+  const own = ownNames.length > 0 ? `this file's materials: ${listed}; ` : '';
+  return `unknown material${hint ? ` (did you mean "${hint}"?)` : ''}; ${own}the library's: ${library.join(', ')}; got ${quote(name)}`;
 }

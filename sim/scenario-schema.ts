@@ -8,12 +8,17 @@
  */
 import { z } from 'zod';
 import { ZERO_CELSIUS_K } from './units.ts';
+import { scenarioLimitDefaults as LIMIT } from './scenario-limits.ts';
 import { compositeSchema, heatPerKgSchema, jouleSchema, pelletSchema, saltMixtureSchema } from './rig-schema.ts';
 
 /** The coldest temperature a °C field may hold: absolute zero. */
 const ABSOLUTE_ZERO_C = -ZERO_CELSIUS_K;
 
-const celsius = () => z.number().gte(ABSOLUTE_ZERO_C, { error: `must be ≥ ${ABSOLUTE_ZERO_C} °C (absolute zero)` });
+const celsius = () => z.number().gte(ABSOLUTE_ZERO_C, { error: `must be ≥ ${ABSOLUTE_ZERO_C} °C (absolute zero)` })
+  .lte(LIMIT.maxTemperatureC, { error: `must be ≤ ${LIMIT.maxTemperatureC} °C (scenarioLimitDefaults.maxTemperatureC: above every solid's melting point)` });
+/** A layer id or material name: it heads table columns and chart legends, so it is short. */
+const shortName = () => z.string().min(1, { error: 'must not be empty' })
+  .max(LIMIT.maxIdChars, { error: `must hold at most ${LIMIT.maxIdChars} characters (scenarioLimitDefaults.maxIdChars)` });
 const positive = () => z.number().gt(0, { error: 'must be > 0' });
 const nonNegative = () => z.number().gte(0, { error: 'must be ≥ 0' });
 const timeS = () => z.number().gte(0, { error: 'must be ≥ 0 s' });
@@ -95,8 +100,8 @@ export const libraryMaterialSchema = z.strictObject({
 const scheduledValue = z.strictObject({ from_s: timeS(), to_s: timeS(), value: z.number() });
 
 const layerSchema = z.strictObject({
-  id: z.string().min(1, { error: 'must not be empty' }),
-  material: z.string().min(1, { error: 'must not be empty' }),
+  id: shortName(),
+  material: shortName(),
   thickness_mm: positive(),
   separator: z.boolean().optional(),
   /** Volumetric heat source, W/m³: a constant, or intervals [from_s, to_s) each with a value. */
@@ -104,7 +109,8 @@ const layerSchema = z.strictObject({
     error: 'must be a number or a list of { from_s, to_s, value }',
   }).optional(),
   /** Optional override of the cell count in this layer (default: chosen from the layer's thickness). */
-  cells: z.number().int({ error: 'must be a whole number' }).gte(1, { error: 'must be ≥ 1' }).optional(),
+  cells: z.number().int({ error: 'must be a whole number' }).gte(1, { error: 'must be ≥ 1' })
+    .lte(LIMIT.maxCells, { error: `must be ≤ ${LIMIT.maxCells} (scenarioLimitDefaults.maxCells, the most cells a whole stack may hold)` }).optional(),
   /** Internal heat in the user's terms, converted to W/m³ at the edge (heat-sources.ts; additions to the contract). */
   pellet: pelletSchema.optional(),
   joule: jouleSchema.optional(),
@@ -142,11 +148,11 @@ const footprintSchema = z.union([
 
 export const scenarioSchema = z.strictObject({
   freezeline: z.literal(1, { error: 'must be 1 (the only scenario format version this program reads)' }),
-  name: z.string().optional(),
+  name: z.string().max(LIMIT.maxNameChars, { error: `must hold at most ${LIMIT.maxNameChars} characters (scenarioLimitDefaults.maxNameChars)` }).optional(),
   description: z.string().optional(),
   ambient_C: celsius(),
   initial_C: celsius().optional(),
-  duration_s: positive(),
+  duration_s: positive().lte(LIMIT.maxDurationS, { error: `must be ≤ ${LIMIT.maxDurationS} s (scenarioLimitDefaults.maxDurationS, about three years)` }),
   footprint: footprintSchema.optional(),
   materials: z.record(z.string(), materialEntrySchema).optional(),
   layers: z.array(layerSchema).min(1, { error: 'must hold at least one layer' }),
@@ -172,8 +178,12 @@ export const scenarioSchema = z.strictObject({
   }).optional(),
   /** Numerical settings; the defaults meet the accuracy stated in DEVELOPERS.md. */
   numerics: z.strictObject({
-    tolerance_K: positive().optional(),
-    liquid_fraction_tolerance: positive().optional(),
+    tolerance_K: z.number().gte(LIMIT.minToleranceK, {
+      error: `must be ≥ ${LIMIT.minToleranceK} K (scenarioLimitDefaults.minToleranceK: below it rounding in double precision, not the step, sets the error)`,
+    }).optional(),
+    liquid_fraction_tolerance: z.number().gte(LIMIT.minLiquidFractionTolerance, {
+      error: `must be ≥ ${LIMIT.minLiquidFractionTolerance} (scenarioLimitDefaults.minLiquidFractionTolerance: below it rounding in double precision sets the error)`,
+    }).optional(),
     cells_per_mm: positive().optional(),
     min_cells_per_layer: z.number().int().gte(1).optional(),
     separator_cells_per_mm: positive().optional(),

@@ -7,15 +7,18 @@
 import type { Material } from './material.ts';
 import { layerHeatSources } from './heat-sources.ts';
 import { inlineMaterial } from './material-kinds.ts';
-import type { FaceCondition, FaceSegment, Footprint, Layer, Problem } from './problem.ts';
-import { formatZodIssue, type FieldError } from './field-errors.ts';
-import { libraryMaterial } from './library.ts';
+import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from './problem.ts';
+import { capErrors, formatPath, formatZodIssue, quote, type FieldError } from './field-errors.ts';
+import { readJsonText } from './json-text.ts';
+import { libraryMaterial, unknownMaterialMessage } from './library.ts';
+import { scenarioLimitDefaults, sizeErrors, workErrors } from './scenario-limits.ts';
 import type { FaceSegmentFile, ScenarioFile } from './scenario-schema.ts';
 import { labelDepths, stackProbes } from './probes.ts';
 import { scenarioSchema } from './scenario-schema.ts';
 import { cToK, mmToM } from './units.ts';
 
-const show = (v: unknown): string => JSON.stringify(v);
+/** A value as written in the file; a long text is cut (field-errors.ts). */
+const show = (v: unknown): string => (typeof v === 'string' ? quote(v) : JSON.stringify(v));
 
 export type { FieldError } from './field-errors.ts';
 
@@ -46,25 +49,35 @@ export type ParseResult =
 
 const MATERIAL_NAME = /^[A-Za-z0-9][A-Za-z0-9_.+-]*$/;
 
-/** Parses scenario JSON text. */
+/**
+ * Parses scenario JSON text (json-text.ts: a byte-order mark is skipped; a key given twice is refused with both lines;
+ * a syntax error gives its line and column). At most about 20 errors are listed, then "and N more".
+ */
 export function parseScenarioText(text: string): ParseResult {
-  if (text.trim() === '') return fail('(file)', 'is empty; expected a JSON object');
-  let value: unknown;
-  try {
-    value = JSON.parse(text);
-  } catch (e) {
-    return fail('(file)', `is not valid JSON (${(e as Error).message})`);
-  }
-  return parseScenario(value);
+  if (text.trim() === '' && text.length <= scenarioLimitDefaults.maxTextChars) return fail('(file)', 'is empty; expected a JSON object');
+  const read = readJsonText(text, { maxChars: scenarioLimitDefaults.maxTextChars, maxDepth: scenarioLimitDefaults.maxNestingDepth });
+  if (!read.ok) return { ok: false, errors: capErrors(read.errors) };
+  return parseScenario(read.value);
 }
 
-/** Checks a parsed JSON value against the contract and builds the Problem. */
+/**
+ * Checks a parsed JSON value against the contract and the limits of scenario-limits.ts, and builds the Problem.
+ * At most about 20 errors are listed, then "and N more".
+ */
 export function parseScenario(value: unknown): ParseResult {
+  const result = parseUncapped(value);
+  return result.ok ? result : { ok: false, errors: capErrors(result.errors) };
+}
+
+function parseUncapped(value: unknown): ParseResult {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) {
     return fail('(file)', `must be a JSON object, got ${value === null ? 'null' : Array.isArray(value) ? 'an array' : typeof value}`);
   }
   // material names are checked on the raw keys: a schema's record output silently drops a key such as `__proto__`
   const nameErrors = materialNameErrors((value as { materials?: unknown }).materials);
+  // oversized lists are refused before the schema walks them: one message, not one per entry
+  const sizes = sizeErrors(value);
+  if (sizes.length > 0) return { ok: false, errors: [...nameErrors, ...sizes] };
   const shape = scenarioSchema.safeParse(value, { reportInput: true });
   if (!shape.success) return { ok: false, errors: [...nameErrors, ...shape.error.issues.flatMap(formatZodIssue)] };
   if (nameErrors.length > 0) return { ok: false, errors: nameErrors };
@@ -76,9 +89,12 @@ export function parseScenario(value: unknown): ParseResult {
 
 function materialNameErrors(materials: unknown): FieldError[] {
   if (typeof materials !== 'object' || materials === null || Array.isArray(materials)) return [];
-  return Object.keys(materials).filter((name) => !MATERIAL_NAME.test(name)).map((name) => ({
-    path: `materials.${name}`,
-    message: `a material name starts with a letter or digit and holds only letters, digits and _ . + -, got ${show(name)}`,
+  const maxChars = scenarioLimitDefaults.maxIdChars;
+  return Object.keys(materials).filter((name) => !MATERIAL_NAME.test(name) || name.length > maxChars).map((name) => ({
+    path: formatPath(['materials', name]),
+    message: name.length > maxChars
+      ? `a material name holds at most ${maxChars} characters (scenarioLimitDefaults.maxIdChars), got ${show(name)}`
+      : `a material name starts with a letter or digit and holds only letters, digits and _ . + -, got ${show(name)}`,
   }));
 }
 
@@ -145,10 +161,11 @@ function resolveMaterials(s: ScenarioFile, errors: FieldError[]): Map<string, Ma
     if (built) found.set(name, built);
   }
   s.layers.forEach((layer, i) => {
-    if (found.has(layer.material)) return;
+    // an inline material that failed to build has its own errors already: it is not unknown
+    if (found.has(layer.material) || Object.hasOwn(inline, layer.material)) return;
     const lib = MATERIAL_NAME.test(layer.material) ? libraryMaterial(layer.material) : undefined;
     if (lib) found.set(layer.material, lib);
-    else errors.push({ path: `layers[${i}].material`, message: `unknown material (not in this file's materials nor in the library), got ${show(layer.material)}` });
+    else errors.push({ path: `layers[${i}].material`, message: unknownMaterialMessage(layer.material, Object.keys(inline)) });
   });
   return found;
 }
@@ -160,13 +177,21 @@ function buildLayers(s: ScenarioFile, materials: Map<string, Material>, errors: 
     seen.add(l.id);
     const material = materials.get(l.material);
     if (l.separator && material && !material.melt) {
-      errors.push({ path: `layers[${i}].separator`, message: `the separator's material must have melt data, got ${show(l.material)} without` });
+      errors.push({
+        path: `layers[${i}].separator`,
+        message: `layer ${show(l.id)} is marked as the separator, but its material ${show(l.material)} has no melt data; a separator holds the salt that melts and freezes`,
+      });
     }
     const src = l.source_W_m3;
     const sources = src === undefined ? [] : typeof src === 'number' ? [{ fromS: 0, toS: s.duration_s, value: src }]
       : src.map((iv, j) => {
         if (!(iv.to_s > iv.from_s)) {
           errors.push({ path: `layers[${i}].source_W_m3[${j}].to_s`, message: `must be > from_s (${iv.from_s}), got ${iv.to_s}` });
+        }
+        for (const key of ['from_s', 'to_s'] as const) {
+          if (iv[key] > s.duration_s) {
+            errors.push({ path: `layers[${i}].source_W_m3[${j}].${key}`, message: `must be ≤ duration_s (${s.duration_s}): the run ends before it, got ${iv[key]}` });
+          }
         }
         return { fromS: iv.from_s, toS: iv.to_s, value: iv.value };
       });
@@ -200,7 +225,25 @@ function contactResistances(s: ScenarioFile, errors: FieldError[]): number[] {
   return resistances;
 }
 
+/** The scenario's numerical settings with the defaults filled in. */
+function numericsOf(s: ScenarioFile): Numerics {
+  const num = s.numerics ?? {};
+  return {
+    toleranceK: num.tolerance_K ?? scenarioDefaults.toleranceK,
+    liquidFractionTolerance: num.liquid_fraction_tolerance ?? scenarioDefaults.liquidFractionTolerance,
+    cellsPerMm: num.cells_per_mm ?? scenarioDefaults.cellsPerMm,
+    minCellsPerLayer: num.min_cells_per_layer ?? scenarioDefaults.minCellsPerLayer,
+    separatorCellsPerMm: num.separator_cells_per_mm ?? scenarioDefaults.separatorCellsPerMm,
+    minSeparatorCells: num.min_separator_cells ?? scenarioDefaults.minSeparatorCells,
+    maxStepS: num.max_step_s ?? s.duration_s * scenarioDefaults.maxStepShare,
+  };
+}
+
 function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefined {
+  const numerics = numericsOf(s);
+  // cells and forced steps beyond the limits are refused alone: the rest of the file may be fine
+  const work = workErrors(s, numerics);
+  if (work.length > 0) { errors.push(...work); return undefined; }
   const materials = resolveMaterials(s, errors);
   const layers = buildLayers(s, materials, errors);
   const contacts = contactResistances(s, errors);
@@ -219,7 +262,6 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
   // without depths of the user's own, the probes follow the layers (they can never fall outside the stack)
   const probes = ownProbes ? labelDepths(ownProbes, s.layers) : stackProbes(s.layers);
   if (errors.length > 0) return undefined;
-  const num = s.numerics ?? {};
   return {
     name: s.name ?? 'untitled scenario',
     ambientK: cToK(s.ambient_C),
@@ -233,14 +275,6 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
     outputTimesS: times,
     probesM: probes.map((p) => mmToM(p.xMm)),
     probeLabels: probes.map((p) => p.label),
-    numerics: {
-      toleranceK: num.tolerance_K ?? scenarioDefaults.toleranceK,
-      liquidFractionTolerance: num.liquid_fraction_tolerance ?? scenarioDefaults.liquidFractionTolerance,
-      cellsPerMm: num.cells_per_mm ?? scenarioDefaults.cellsPerMm,
-      minCellsPerLayer: num.min_cells_per_layer ?? scenarioDefaults.minCellsPerLayer,
-      separatorCellsPerMm: num.separator_cells_per_mm ?? scenarioDefaults.separatorCellsPerMm,
-      minSeparatorCells: num.min_separator_cells ?? scenarioDefaults.minSeparatorCells,
-      maxStepS: num.max_step_s ?? s.duration_s * scenarioDefaults.maxStepShare,
-    },
+    numerics,
   };
 }

@@ -1,0 +1,154 @@
+/**
+ * What one run may ask of the machine, checked before any computation. A scenario over a limit is refused with the
+ * field, the value and the limit named (`layers[0].cells: …; the limit is 10000 cells in all`): never a crash, an
+ * out-of-memory stop or a run of hours. Sizes of lists are checked on the raw JSON value, before the schema walks
+ * them, so two million output times cost one message and no more memory than the file itself.
+ *
+ * Every limit lives in `scenarioLimitDefaults`. Speeds quoted below were measured with `freezeline bench` on the
+ * demo refined to 1800 cells: 4.5 M cell-updates/s, 1995 steps in 9.5 s (one core of the 2-core CI machine).
+ */
+import type { FieldError } from './field-errors.ts';
+import { cellsInLayer } from './mesh.ts';
+import type { Numerics } from './problem.ts';
+import type { ScenarioFile } from './scenario-schema.ts';
+import { mmToM } from './units.ts';
+
+export const scenarioLimitDefaults = {
+  /** Characters of scenario text: a scenario within every other limit is well under 1 MB; this bounds the reader's memory. */
+  maxTextChars: 16 * 2 ** 20,
+  /** Nesting of objects and lists: a scenario nests 5 deep; deeper text is not a scenario and would exhaust the stack. */
+  maxNestingDepth: 32,
+  /** Layers in a stack: a stack of tens of cells fits; each layer adds series, verdicts and at least one cell. */
+  maxLayers: 200,
+  /** Cells in all: 10 µm resolution across 100 mm; the step costs O(cells) and the map keeps cells × recorded times. */
+  maxCells: 10_000,
+  /** Requested output times: each one keeps a full temperature profile and a column of every probe in the result. */
+  maxOutputTimes: 10_000,
+  /** Probe depths: each is a row of the result across every output time. */
+  maxProbes: 200,
+  /** Segments of one face's schedule: each is a breakpoint the steps must land on. */
+  maxFaceSegments: 1_000,
+  /** Intervals of one layer's heat source: each is a breakpoint the steps must land on. */
+  maxSourceIntervals: 1_000,
+  /** Rows of one property table: a handbook table has tens; the lookup is searched at every cell and step. */
+  maxTableRows: 1_000,
+  /** Materials defined in one scenario: each is built and checked even if no layer uses it. */
+  maxMaterials: 200,
+  /** Characters of a layer id or material name: they head table columns, chart legends and file columns. */
+  maxIdChars: 64,
+  /** Characters of the scenario's name: it titles the printout and the view. */
+  maxNameChars: 200,
+  /** Longest run, s (about three years): a stack of millimetres reaches steady state within hours. */
+  maxDurationS: 1e8,
+  /** Steps forced by max_step_s (duration_s / max_step_s): at ~0.25 ms a step on the demo, half a minute of work. */
+  maxForcedSteps: 100_000,
+  /** Cells × forced steps: about 45 s at the measured 4.5 M cell-updates/s. */
+  maxForcedCellSteps: 2e8,
+  /**
+   * Smallest temperature tolerance, K. The Newton iterations stop at 1 % of it; below ~1e-6 K that meets the rounding
+   * of the enthalpy (ε·ρc·T ≈ 2e-16 × 4e9 J/m³ ≈ 1e-6 J/m³, stiffly amplified), and the steps (∝ tol^−1/3) already
+   * number ~60× the default's.
+   */
+  minToleranceK: 1e-6,
+  /** Smallest liquid-fraction tolerance: the same rounding over ρL (≈ 4e8 J/m³), with the same margin. */
+  minLiquidFractionTolerance: 1e-8,
+  /** Hottest temperature a field may hold, °C: above every solid's melting point (tungsten 3422 °C, from memory). */
+  maxTemperatureC: 10_000,
+} as const;
+
+const L = scenarioLimitDefaults;
+
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const field = (v: unknown, key: string): unknown => (isRecord(v) && Object.hasOwn(v, key) ? v[key] : undefined);
+
+function tooMany(path: string, list: unknown, max: number, what: string, errors: FieldError[]): boolean {
+  if (!Array.isArray(list) || list.length <= max) return false;
+  errors.push({ path, message: `holds ${list.length} ${what}; the limit is ${max} (scenarioLimitDefaults, sim/scenario-limits.ts)` });
+  return true;
+}
+
+/**
+ * Lists longer than their limit, read off the raw JSON value (anything of the wrong shape is left to the schema).
+ * Empty when every list is within its limit.
+ */
+export function sizeErrors(raw: unknown): FieldError[] {
+  const errors: FieldError[] = [];
+  const layers = field(raw, 'layers');
+  if (!tooMany('layers', layers, L.maxLayers, 'layers', errors) && Array.isArray(layers)) {
+    layers.forEach((layer, i) => {
+      tooMany(`layers[${i}].source_W_m3`, field(layer, 'source_W_m3'), L.maxSourceIntervals, 'source intervals', errors);
+    });
+  }
+  tooMany('contacts', field(raw, 'contacts'), L.maxLayers, 'contacts', errors);
+  tooMany('bottom', field(raw, 'bottom'), L.maxFaceSegments, 'segments', errors);
+  tooMany('top', field(raw, 'top'), L.maxFaceSegments, 'segments', errors);
+  const output = field(raw, 'output');
+  tooMany('output.times_s', field(output, 'times_s'), L.maxOutputTimes, 'output times', errors);
+  tooMany('output.probes_mm', field(output, 'probes_mm'), L.maxProbes, 'probe depths', errors);
+  const materials = field(raw, 'materials');
+  if (isRecord(materials)) {
+    const names = Object.keys(materials);
+    if (names.length > L.maxMaterials) {
+      errors.push({ path: 'materials', message: `holds ${names.length} materials; the limit is ${L.maxMaterials} (scenarioLimitDefaults, sim/scenario-limits.ts)` });
+    } else {
+      for (const name of names) {
+        for (const key of ['k_W_mK', 'cp_J_kgK']) {
+          tooMany(`materials.${name}.${key}`, field(materials[name], key), L.maxTableRows, 'table rows', errors);
+        }
+      }
+    }
+  }
+  return errors;
+}
+
+/** The knob that set a layer's cell count, as a path a person can change. */
+function cellKnob(s: ScenarioFile, i: number, count: number): string {
+  const layer = s.layers[i]!;
+  if (layer.cells !== undefined) return `layers[${i}].cells`;
+  const num = s.numerics ?? {};
+  const [perMm, min] = layer.separator
+    ? [num.separator_cells_per_mm, num.min_separator_cells] as const
+    : [num.cells_per_mm, num.min_cells_per_layer] as const;
+  const minKey = layer.separator ? 'min_separator_cells' : 'min_cells_per_layer';
+  const perMmKey = layer.separator ? 'separator_cells_per_mm' : 'cells_per_mm';
+  if (min !== undefined && count === min) return `numerics.${minKey}`;
+  if (perMm !== undefined) return `numerics.${perMmKey}`;
+  return `layers[${i}].thickness_mm`;
+}
+
+/**
+ * Work a valid scenario would ask for beyond the limits: total cells, and steps forced by `max_step_s`. `numerics`
+ * are the scenario's own settings with the defaults filled in.
+ */
+export function workErrors(s: ScenarioFile, numerics: Numerics): FieldError[] {
+  const counts = s.layers.map((l) => cellsInLayer(mmToM(l.thickness_mm), l.cells,
+    l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
+    l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer));
+  const total = counts.reduce((a, b) => a + b, 0);
+  if (total > L.maxCells) {
+    // the schema has passed, so the id is at most maxIdChars long and is echoed whole
+    const worst = counts.indexOf(Math.max(...counts));
+    const layer = s.layers[worst]!;
+    return [{
+      path: cellKnob(s, worst, counts[worst]!),
+      message: `the stack would hold ${total} cells, ${counts[worst]} of them in layer ${JSON.stringify(layer.id)}; ` +
+        `the limit is ${L.maxCells} cells in all (scenarioLimitDefaults.maxCells)`,
+    }];
+  }
+  const steps = s.duration_s / numerics.maxStepS;
+  if (steps > L.maxForcedSteps) {
+    return [{
+      path: 'numerics.max_step_s',
+      message: `duration_s / max_step_s forces at least ${steps.toPrecision(3)} steps; the limit is ${L.maxForcedSteps} ` +
+        `(scenarioLimitDefaults.maxForcedSteps): raise max_step_s to ≥ ${(s.duration_s / L.maxForcedSteps).toPrecision(3)} s, got ${numerics.maxStepS}`,
+    }];
+  }
+  if (steps * total > L.maxForcedCellSteps) {
+    return [{
+      path: 'numerics.max_step_s',
+      message: `${total} cells × ${Math.ceil(steps)} forced steps = ${(steps * total).toPrecision(3)} cell-steps; the limit is ` +
+        `${L.maxForcedCellSteps} (scenarioLimitDefaults.maxForcedCellSteps): raise max_step_s or use fewer cells, got ${numerics.maxStepS}`,
+    }];
+  }
+  return [];
+}
