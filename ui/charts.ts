@@ -1,5 +1,5 @@
 /**
- * The three charts. Plotly (≈4.6 MB) arrives through a dynamic import requested only once the first verdict is on
+ * The charts. Plotly (≈4.6 MB) arrives through a dynamic import requested only once the first verdict is on
  * screen, so neither its download nor its start-up delays the numbers; until then each chart box says it is
  * loading. Charts are drawn one per task (temperatures first), so the page answers input between them. Only the
  * newest result is drawn; the time cursor moves without redrawing the data.
@@ -7,8 +7,10 @@
 import type { Layout } from 'plotly.js-dist-min';
 import { h } from './dom.ts';
 import { chartConfig, cursorShape, type Figure } from './plot-common.ts';
+import { freezeFigure } from './plot-freeze.ts';
 import { liquidFigure } from './plot-liquid.ts';
 import { mapFigure } from './plot-map.ts';
+import { marginFigure } from './plot-margin.ts';
 import { temperatureFigure } from './plot-temperatures.ts';
 import type { ShownResult } from './result.ts';
 
@@ -31,6 +33,10 @@ export interface ChartElements {
   readonly temperatures: HTMLElement;
   readonly liquid: HTMLElement;
   readonly map: HTMLElement;
+  /** The freeze, zoomed on the minutes after heat off. */
+  readonly freeze: HTMLElement;
+  /** Margin to each layer's binding limit against time. */
+  readonly margin: HTMLElement;
   /** Where limits too far above the curves to draw are listed. */
   readonly offScale: HTMLElement;
 }
@@ -41,10 +47,11 @@ export interface Charts {
   readonly moveCursor: (tS: number) => void;
 }
 
-const FILE_NAMES = ['freezeline-temperatures', 'freezeline-liquid-fraction', 'freezeline-map'] as const;
+/** PNG names, in drawing order (temperatures first: it is the chart most people look at). */
+const FILE_NAMES = ['freezeline-temperatures', 'freezeline-liquid-fraction', 'freezeline-freeze', 'freezeline-margin', 'freezeline-map'] as const;
 
 export function createCharts(el: ChartElements): Charts {
-  const boxes = [el.temperatures, el.liquid, el.map] as const;
+  const boxes = [el.temperatures, el.liquid, el.freeze, el.margin, el.map] as const;
   for (const b of boxes) b.append(h('div', { class: 'chart-loading' }, 'loading the chart library…'));
   let latest = 0;
   let figures: (Figure | undefined)[] = [];
@@ -52,7 +59,7 @@ export function createCharts(el: ChartElements): Charts {
   let frame = 0;
 
   const layoutWithCursor = (f: Figure): Partial<Layout> =>
-    ({ ...f.layout, shapes: cursor === undefined ? f.shapes : [...f.shapes, cursorShape(cursor)] });
+    ({ ...f.layout, shapes: cursor === undefined || !f.axis ? f.shapes : [...f.shapes, cursorShape(cursor, f.axis)] });
 
   const failed = (e: unknown): void => {
     for (const b of boxes) b.replaceChildren(h('div', { class: 'chart-loading' }, `The chart library did not load: ${(e as Error).message}`));
@@ -74,7 +81,7 @@ export function createCharts(el: ChartElements): Charts {
       cursor = cursorS;
       const temp = temperatureFigure(r);
       el.offScale.textContent = temp.offScale.length > 0 ? `Limits above the chart: ${temp.offScale.map((o) => o.text).join('; ')}.` : '';
-      const build = [() => temp, () => liquidFigure(r), () => mapFigure(r)] as const;
+      const build = [() => temp, () => liquidFigure(r), () => freezeFigure(r), () => marginFigure(r), () => mapFigure(r)] as const;
       figures = [];
       for (let i = 0; i < boxes.length; i++) {
         if (i > 0) await nextTask();
@@ -93,7 +100,7 @@ export function createCharts(el: ChartElements): Charts {
         frame = 0;
         void loadPlotly().then((api) => {
           figures.forEach((f, i) => {
-            if (!f || (i === 1 && f.data.length === 0)) return;
+            if (!f || !f.axis || f.data.length === 0) return;
             void api.relayout(boxes[i]!, { shapes: layoutWithCursor(f).shapes ?? [] });
           });
         });

@@ -1,15 +1,31 @@
-/** The energy ledger (per square metre of footprint, and for the whole footprint when it is given) and the warnings. */
+/**
+ * The energy balance (per square metre of footprint, and for the whole footprint when it is given) and the warnings.
+ * Figures at about 6 significant figures, as in the CLI and the CSV (sim/format.ts).
+ */
 import { h } from './dom.ts';
-import { formatNumber, NO_VALUE } from './format.ts';
+import { formatDefaults, formatNumber, NO_VALUE } from './format.ts';
 import type { ShownResult } from './result.ts';
+
+const ledgerDefaults = {
+  /** Significant figures of the largest term: the CSV's precision (sim/format.ts). */
+  significant: formatDefaults.csvSignificant,
+} as const;
 
 export function renderLedger(root: HTMLElement, r: ShownResult): void {
   const e = r.record.energy;
   const area = r.areaM2;
+  // about 6 significant figures on the largest term, the same decimals for all (round-off shows as 0, not 4e-18)
+  const terms = [e.bottomInJ, e.topInJ, e.sourceJ, e.bottomOutJ, e.topOutJ, e.storedJ].map(Math.abs);
+  const places = (scale: number): number => {
+    const big = Math.max(...terms) * scale;
+    return big > 0 && Number.isFinite(big) ? Math.max(0, ledgerDefaults.significant - 1 - Math.floor(Math.log10(big))) : 0;
+  };
+  const perM2 = places(1e-3);
+  const total = area === undefined ? 0 : places(area);
   const row = (label: string, jPerM2: number) => h('tr', {},
     h('th', {}, label),
-    h('td', {}, formatNumber(jPerM2 / 1000, { decimals: 1 })),
-    h('td', {}, area === undefined ? NO_VALUE : formatNumber(jPerM2 * area, { decimals: 1 })));
+    h('td', {}, formatNumber(jPerM2 / 1000, { decimals: perM2 })),
+    h('td', {}, area === undefined ? NO_VALUE : formatNumber(jPerM2 * area, { decimals: total })));
   root.replaceChildren(h('table', { class: 'ledger' },
     h('thead', {}, h('tr', {}, h('th', {}, ''), h('th', {}, 'kJ/m²'), h('th', {}, 'J over the footprint'))),
     h('tbody', {},

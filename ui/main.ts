@@ -17,13 +17,13 @@ import { fieldsToFill, markFieldsToFill } from './incomplete.ts';
 import { download, fileStem, readScenarioFile, scenarioText } from './files.ts';
 import { seriesCsv } from '../sim/series-csv.ts';
 import { formatNumber } from './format.ts';
+import { terms } from '../sim/wording.ts';
 import { asNumber, isObject, type JsonObject } from './json.ts';
 import { autosave, forgetAutosaved, fromHash, loadAutosaved, shareLink } from './persist.ts';
 import { firstNonFinite } from './protocol.ts';
 import { shownResult } from './result.ts';
 import { createResultsView } from './results-view.ts';
 import { createRunner } from './runner.ts';
-import { createOperatingPanel } from './operating-view.ts';
 import { renderSetupEditor, type SetupEditor } from './setup-editor.ts';
 import { refreshSourceNotes } from './source-rows.ts';
 import { renderStackEditor } from './stack-editor.ts';
@@ -58,7 +58,6 @@ function renderEditors(): void {
 }
 
 const results = createResultsView();
-const operating = createOperatingPanel(byId('operating'));
 const status = createStatusView(() => runner.cancel());
 const runner = createRunner({
   onStart: () => {
@@ -80,12 +79,11 @@ const runner = createRunner({
     clearFieldErrors(editorRoot, generalErrors);
     results.stale(undefined);
     performance.mark('freezeline:result');
-    status.set('done', `${record.tS.length} steps, ${record.nodeXMm.length} nodes, solved in ${formatNumber(solveMs, { decimals: 0 })} ms`);
+    // nodes are the cell centres plus the two face points (sim/record.ts)
+    status.set('done', `${record.nodeXMm.length - 2} ${terms.cell.term}s, ${record.tS.length} time points, solved in ${formatNumber(solveMs, { decimals: 0 })} ms`);
     const drawn = results.show(shownResult(job, scenario as JsonObject, record, summary));
     performance.mark('freezeline:verdict');
     void drawn.then(() => performance.mark('freezeline:plotted'));
-    // the window search (many runs) starts once the charts are drawn, in its own worker
-    void drawn.then(() => operating.request(scenario));
   },
   onErrors: (errors) => {
     lastErrors = errors;

@@ -1,6 +1,7 @@
-/** What the three charts share: configuration (hover, zoom, PNG export), base layout, and marker lines. */
+/** What the charts share: configuration (hover, zoom, PNG export), base layout, and marker lines. */
 import type { Annotation, Config, Data, Layout, Shape } from 'plotly.js-dist-min';
-import { formatNumber } from './format.ts';
+import { formatTime } from './format.ts';
+import { xAxisLayout, xOf, type TimeAxis } from './time-axis.ts';
 
 export function chartConfig(filename: string): Partial<Config> {
   return {
@@ -12,26 +13,27 @@ export function chartConfig(filename: string): Partial<Config> {
   };
 }
 
-export function baseLayout(yTitle: string, extra: Partial<Layout> = {}): Partial<Layout> {
+export function baseLayout(yTitle: string, axis: TimeAxis, extra: Partial<Layout> = {}): Partial<Layout> {
   return {
     margin: { l: 64, r: 24, t: 16, b: 48 },
     font: { family: 'system-ui, -apple-system, "Segoe UI", sans-serif', size: 12, color: '#1f2933' },
     paper_bgcolor: '#ffffff',
     plot_bgcolor: '#ffffff',
-    xaxis: { title: { text: 'time, s' }, zeroline: false, gridcolor: '#e4e8ec' },
+    xaxis: xAxisLayout(axis),
     yaxis: { title: { text: yTitle }, zeroline: false, gridcolor: '#e4e8ec' },
     legend: { orientation: 'h', y: -0.18, x: 0 },
     ...extra,
   };
 }
 
-/** A vertical line across the plot at time t, with its label at the top. */
-export function timeLine(tS: number, label: string, colour = '#52606d'): { shape: Partial<Shape>; annotation: Partial<Annotation> } {
+/** A vertical line across the plot at time t (s), with its label and time at the top. */
+export function timeLine(tS: number, label: string, axis: TimeAxis, colour = '#52606d'): { shape: Partial<Shape>; annotation: Partial<Annotation> } {
+  const x = xOf(axis, tS);
   return {
-    shape: { type: 'line', xref: 'x', yref: 'paper', x0: tS, x1: tS, y0: 0, y1: 1, line: { color: colour, width: 1.5, dash: 'dash' } },
+    shape: { type: 'line', xref: 'x', yref: 'paper', x0: x, x1: x, y0: 0, y1: 1, line: { color: colour, width: 1.5, dash: 'dash' } },
     annotation: {
-      xref: 'x', yref: 'paper', x: tS, y: 1, yanchor: 'bottom', xanchor: 'left', showarrow: false,
-      text: `${label} ${formatNumber(tS, { decimals: 0 })} s`, font: { size: 11, color: colour },
+      xref: 'x', yref: 'paper', x, y: 1, yanchor: 'bottom', xanchor: 'left', showarrow: false,
+      text: `${label} ${formatTime(tS, '')}`, font: { size: 11, color: colour },
     },
   };
 }
@@ -48,9 +50,10 @@ export function levelLine(y: number, label: string, colour: string, dash: 'dash'
   };
 }
 
-/** The thin cursor line for the time chosen with the slider (its `name` lets it be replaced alone). */
-export function cursorShape(tS: number): Partial<Shape> {
-  return { type: 'line', name: 'cursor', xref: 'x', yref: 'paper', x0: tS, x1: tS, y0: 0, y1: 1, line: { color: '#1f2933', width: 1 } };
+/** The thin cursor line for the time chosen with the slider, t in s (its `name` lets it be replaced alone). */
+export function cursorShape(tS: number, axis: TimeAxis): Partial<Shape> {
+  const x = xOf(axis, tS);
+  return { type: 'line', name: 'cursor', xref: 'x', yref: 'paper', x0: x, x1: x, y0: 0, y1: 1, line: { color: '#1f2933', width: 1 } };
 }
 
 export interface Figure {
@@ -58,4 +61,6 @@ export interface Figure {
   readonly layout: Partial<Layout>;
   /** Shapes without the time cursor, so moving the cursor only appends one. */
   readonly shapes: Partial<Shape>[];
+  /** How the chart's x reads time (undefined: x is not time, no cursor). */
+  readonly axis: TimeAxis | undefined;
 }

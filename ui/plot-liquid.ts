@@ -1,18 +1,22 @@
 /** The separator's liquid fraction against time, with the half-frozen level and the three events marked. */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
-import { formatNumber } from './format.ts';
+import { formatTime } from './format.ts';
 import { baseLayout, levelLine, timeLine, type Figure } from './plot-common.ts';
+import { heatOffLabel } from './plot-temperatures.ts';
 import type { ShownResult } from './result.ts';
+import { hoverTime, timeAxis, xAxisLayout, xOf, xsOf } from './time-axis.ts';
 
 export function liquidFigure(r: ShownResult): Figure {
   const { record, summary } = r;
+  const endS = record.tS[record.tS.length - 1] ?? 0;
+  const axis = timeAxis(endS);
   const data: Data[] = [];
   for (const layer of r.layers) {
     const series = record.layers[layer.index]?.liquidFraction;
     if (!layer.separator || !series) continue;
     data.push({
-      type: 'scatter', mode: 'lines', x: record.tS, y: series, name: `${layer.id} liquid fraction`, line: { width: 2, color: layer.colour },
-      hovertemplate: `<b>${layer.id}</b> liquid fraction %{y:.3f}<br>t = %{x:.1f} s<extra></extra>`,
+      type: 'scatter', mode: 'lines', x: xsOf(axis, record.tS), y: series, name: `${layer.id} liquid fraction`, line: { width: 2, color: layer.colour },
+      hovertemplate: `${hoverTime(axis)}<br><b>${layer.id}</b> liquid fraction %{y:.3f}<extra></extra>`,
     });
   }
   const ev = summary.separator;
@@ -20,8 +24,8 @@ export function liquidFigure(r: ShownResult): Figure {
   const shown = events.filter((e): e is [number, number, string] => e[0] !== null);
   if (data.length > 0 && shown.length > 0) {
     data.push({
-      type: 'scatter', mode: 'text+markers', x: shown.map((e) => e[0]), y: shown.map((e) => e[1]), name: 'events',
-      text: shown.map((e) => `${e[2]} ${formatNumber(e[0], { decimals: 1 })} s`), textposition: 'top right',
+      type: 'scatter', mode: 'text+markers', x: shown.map((e) => xOf(axis, e[0])), y: shown.map((e) => e[1]), name: 'events',
+      text: shown.map((e) => `${e[2]} ${formatTime(e[0], '')}`), textposition: 'top right',
       marker: { size: 9, color: '#1f2933', symbol: 'diamond' }, hovertemplate: '%{text}<extra></extra>', showlegend: false,
     });
   }
@@ -31,7 +35,7 @@ export function liquidFigure(r: ShownResult): Figure {
   shapes.push(half.shape);
   annotations.push(half.annotation);
   if (summary.heat_off_s !== null && summary.heat_off_s > 0) {
-    const off = timeLine(summary.heat_off_s, 'heater removed');
+    const off = timeLine(summary.heat_off_s, heatOffLabel, axis);
     shapes.push(off.shape);
     annotations.push(off.annotation);
   }
@@ -39,13 +43,13 @@ export function liquidFigure(r: ShownResult): Figure {
     annotations.push({ xref: 'paper', yref: 'paper', x: 0.5, y: 0.5, showarrow: false, text: 'No separator layer: tick “separator” on the salt layer.' });
   }
   return {
-    data, shapes,
-    layout: baseLayout('separator liquid fraction (0–1)', {
+    data, shapes, axis,
+    layout: baseLayout('separator liquid fraction (0–1)', axis, {
       hovermode: 'closest',
       yaxis: { title: { text: 'liquid fraction (0–1)' }, range: [-0.05, 1.12], zeroline: false, gridcolor: '#e4e8ec' },
       margin: { l: 64, r: 24, t: 28, b: 48 },
       showlegend: false,
-      xaxis: { title: { text: 'time, s' }, range: [0, record.tS[record.tS.length - 1] ?? 1], zeroline: false, gridcolor: '#e4e8ec' },
+      xaxis: xAxisLayout(axis, { range: [0, xOf(axis, endS) || 1] }),
       shapes, annotations,
     }),
   };

@@ -5,9 +5,14 @@
  */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
 import { translucent } from './colours.ts';
-import { formatNumber } from './format.ts';
+import { verdictTerms } from '../sim/wording.ts';
+import { formatMargin, formatNumber } from './format.ts';
 import { baseLayout, levelLine, timeLine, type Figure } from './plot-common.ts';
 import type { ShownResult } from './result.ts';
+import { timeAxis, xsOf } from './time-axis.ts';
+
+/** The words of the vertical line at heat off ("heat off"), from the wording table's "heat off at". */
+export const heatOffLabel = verdictTerms.heat_off_s.term.replace(/ at$/, '');
 
 const defaults = {
   /** Limits further above the hottest curve than this share of the curves' span (or 100 K) are listed, not drawn. */
@@ -20,6 +25,8 @@ export interface OffScaleLimit { readonly text: string }
 
 export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScaleLimit[] } {
   const { record, summary } = r;
+  const axis = timeAxis(record.tS[record.tS.length - 1] ?? 0);
+  const x = xsOf(axis, record.tS);
   const data: Data[] = [];
   let low = Infinity;
   let high = -Infinity;
@@ -30,10 +37,10 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
     for (const v of s.maxC) high = Math.max(high, v);
     const customdata = Array.from(s.meanC, (_, j) => [s.minC[j]!, s.maxC[j]!]);
     data.push(
-      { type: 'scatter', mode: 'lines', x: record.tS, y: s.maxC, line: { width: 0, color: layer.colour }, legendgroup: layer.id, showlegend: false, hoverinfo: 'skip', name: `${layer.id} max` },
-      { type: 'scatter', mode: 'lines', x: record.tS, y: s.minC, line: { width: 0, color: layer.colour }, fill: 'tonexty', fillcolor: translucent(layer.colour, defaults.bandAlpha), legendgroup: layer.id, showlegend: false, hoverinfo: 'skip', name: `${layer.id} min` },
+      { type: 'scatter', mode: 'lines', x, y: s.maxC, line: { width: 0, color: layer.colour }, legendgroup: layer.id, showlegend: false, hoverinfo: 'skip', name: `${layer.id} max` },
+      { type: 'scatter', mode: 'lines', x, y: s.minC, line: { width: 0, color: layer.colour }, fill: 'tonexty', fillcolor: translucent(layer.colour, defaults.bandAlpha), legendgroup: layer.id, showlegend: false, hoverinfo: 'skip', name: `${layer.id} min` },
       {
-        type: 'scatter', mode: 'lines', x: record.tS, y: s.meanC, customdata, line: { width: 2, color: layer.colour }, legendgroup: layer.id,
+        type: 'scatter', mode: 'lines', x, y: s.meanC, customdata, line: { width: 2, color: layer.colour }, legendgroup: layer.id,
         name: `${layer.id} (${layer.material.name})`,
         hovertemplate: `<b>${layer.id}</b> mean %{y:.1f} °C, min %{customdata[0]:.1f}, max %{customdata[1]:.1f}<extra></extra>`,
       });
@@ -60,7 +67,7 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
         add(levelLine(atC, text, layer.colour, 'dash'));
         top = Math.max(top, atC);
       } else {
-        offScale.push({ text: `${text} (margin ${formatNumber(entry.marginK, { decimals: 0 })} K)` });
+        offScale.push({ text: `${text} (${verdictTerms.margin_K.term} ${formatMargin(entry.marginK, '')})` });
       }
     }
   }
@@ -73,13 +80,14 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
       add(levelLine(m.liquidusC, `${layer.id} liquidus ${formatNumber(m.liquidusC, { decimals: 0 })} °C`, '#52606d', 'dot'));
     }
   }
-  if (summary.heat_off_s !== null && summary.heat_off_s > 0) add(timeLine(summary.heat_off_s, 'heater removed'));
+  if (summary.heat_off_s !== null && summary.heat_off_s > 0) add(timeLine(summary.heat_off_s, heatOffLabel, axis));
   const pad = (top - low) * 0.06 || 1;
   return {
     data,
     shapes,
     offScale,
-    layout: baseLayout('temperature, °C', {
+    axis,
+    layout: baseLayout('temperature, °C', axis, {
       hovermode: 'x unified',
       yaxis: { title: { text: 'temperature, °C' }, range: [low - pad, top + pad], zeroline: false, gridcolor: '#e4e8ec' },
       margin: { l: 64, r: 24, t: 28, b: 48 },

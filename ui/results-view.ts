@@ -2,12 +2,14 @@
  * Everything that shows a result: verdict cards, cross-section with its time slider, charts, ledger, warnings. A new
  * result replaces all of them together; an error leaves them as they are, marked as the last good result.
  */
+import { renderCautionBox } from './caution-box.ts';
 import { createCharts } from './charts.ts';
 import { byId, h } from './dom.ts';
-import { formatNumber } from './format.ts';
+import { formatTime } from './format.ts';
 import { renderLedger, renderWarnings } from './ledger-view.ts';
 import { stepNear, type ShownResult } from './result.ts';
 import { drawStack } from './stack-drawing.ts';
+import { renderSummaryBar } from './summary-bar.ts';
 import { renderVerdict } from './verdict-view.ts';
 
 export const resultsDefaults = {
@@ -28,18 +30,22 @@ export interface ResultsView {
 export function createResultsView(): ResultsView {
   const charts = createCharts({
     temperatures: byId('plot-temperatures'), liquid: byId('plot-liquid'), map: byId('plot-map'), offScale: byId('off-scale'),
+    freeze: byId('plot-freeze'), margin: byId('plot-margin'),
   });
   const slider = byId<HTMLInputElement>('time-slider');
   const sliderValue = byId<HTMLOutputElement>('time-value');
   const staleNote = byId('stale-note');
   const drawing = byId('stack-drawing');
+  const cautionList = renderCautionBox(byId('cautions'));
+  // the print stylesheet lays out the scenario, verdict, charts and cautions on one page
+  byId('print-report').addEventListener('click', () => window.print());
   let shown: ShownResult | undefined;
   let chosenS: number | undefined;
   drawStack(drawing, undefined, 0);
 
   const showStep = (r: ShownResult, step: number): void => {
     drawStack(drawing, r, step);
-    sliderValue.textContent = `${formatNumber(r.record.tS[step], { decimals: 1 })} s`;
+    sliderValue.textContent = formatTime(r.record.tS[step] ?? null, '—');
   };
 
   // the slider moves in time (its value is seconds), not in solver steps: the drawing shows the recorded step nearest
@@ -63,7 +69,7 @@ export function createResultsView(): ResultsView {
       slider.max = String(endS);
       slider.step = String(endS / resultsDefaults.sliderPositions || 1);
       slider.value = String(wanted);
-      renderVerdict(byId('verdict'), byId('scenario-cautions'), r);
+      renderSummaryBar(byId('summary-bar'), r, renderVerdict(byId('verdict'), cautionList, r));
       renderLedger(byId('ledger'), r);
       renderWarnings(byId('warnings'), r);
       showStep(r, step);
