@@ -1,0 +1,79 @@
+// Goal seeking (sim/study/seek.ts): the smallest convection coefficient that warms a lumped slab to a temperature,
+// against the closed form solved for h (Incropera 6th ed. eq. 5.6, see lumped-slab.ts) and against a brute-force scan
+// of the same runs; a target that cannot be met; and the search itself on step functions whose answer is known exactly.
+import { describe, expect, it } from 'vitest';
+import { resolveLeaf, parsePath } from '../../sim/study/scenario-path.ts';
+import { scenarioProbe, seek, type Probe } from '../../sim/study/seek.ts';
+import { parseTarget, type Target } from '../../sim/study/target.ts';
+import { assertClose } from '../support/assert-close.ts';
+import { SLAB, hForEndC, slabFile } from './lumped-slab.ts';
+
+const doc = slabFile();
+const target = (t: string): Target => { const r = parseTarget(t); if (!r.ok) throw new Error(r.message); return r.value; };
+const place = (() => {
+  const p = parsePath('top.0.convection_W_m2K');
+  const r = p.ok ? resolveLeaf(doc, p.value) : p;
+  if (!r.ok) throw new Error(r.message);
+  return r.value;
+})();
+
+/** A probe from a plain rule, no solver: met where `rule` holds. */
+const ruleProbe = (rule: (v: number) => boolean) => (value: number): Probe => ({ value, met: rule(value), reading: value, shortfall: null, summary: null, error: null });
+
+describe('seek() on a lumped slab', () => {
+  it('finds the smallest h that warms the slab to 80 °C in 600 s, as the closed form gives', () => {
+    const r = seek(scenarioProbe(doc, place, target('layers.slab.peak_C>=80')), { min: 1, max: 20, largest: false, tolerance: 1e-3 });
+    expect(r.met).toBe(true);
+    expect(r.monotonic).toBe(true);
+    // h* = ρcL/t·ln(80/20) = 4.621 W/m²K. Error budget: the final bracket (1e-3) plus the solver's end-temperature
+    // error (< 0.02 K) divided by dT/dh there (= 0.3·20 = 6 K per W/m²K), about 0.004; allow 0.01.
+    assertClose(r.value!, hForEndC(80), { abs: 0.01 }, 'h meeting peak ≥ 80 °C');
+    expect(r.summary!.layers.slab!.peak_C).toBeGreaterThanOrEqual(80);
+    expect(r.solves).toBeLessThan(30);
+  });
+
+  it('agrees with a brute-force scan of the same runs to within the scan step', () => {
+    const probe = scenarioProbe(doc, place, target('layers.slab.peak_C>=70'));
+    const step = 0.25;
+    let firstMet: number | null = null;
+    for (let h = 1; h <= 8 && firstMet === null; h += step) if (probe(h).met) firstMet = h;
+    const r = seek(probe, { min: 1, max: 8, largest: false, tolerance: 1e-3 });
+    expect(firstMet).not.toBeNull();
+    // the scan's first met value is within one step above the true edge; the seek value must lie in that step
+    expect(r.value!).toBeGreaterThan(firstMet! - step);
+    expect(r.value!).toBeLessThanOrEqual(firstMet! + 1e-3);
+  });
+
+  it('says a target above the fluid temperature cannot be met, with the value that came closest', () => {
+    const r = seek(scenarioProbe(doc, place, target(`layers.slab.peak_C>=${SLAB.fluidC + 20}`)), { min: 1, max: 20, largest: false });
+    expect(r.met).toBe(false);
+    expect(r.value).toBeNull();
+    // the largest h warms the slab the most: it is the closest miss
+    expect(r.best!.value).toBe(20);
+    expect(r.summary).not.toBeNull();
+  });
+});
+
+describe('seek() on known step functions', () => {
+  it('bisects to the edge of a single met stretch, smallest and largest', () => {
+    const rule = (v: number) => v >= 3.3 && v <= 7.7;
+    const small = seek(ruleProbe(rule), { min: 0, max: 10, largest: false, tolerance: 1e-6 });
+    const large = seek(ruleProbe(rule), { min: 0, max: 10, largest: true, tolerance: 1e-6 });
+    assertClose(small.value!, 3.3, { abs: 1e-6 }, 'smallest'); // the bracket width is the stated tolerance
+    assertClose(large.value!, 7.7, { abs: 1e-6 }, 'largest');
+    expect(rule(small.value!) && rule(large.value!)).toBe(true);
+  });
+
+  it('reports a non-monotonic response with every met stretch the scan saw', () => {
+    const rule = (v: number) => (v >= 2.2 && v <= 3.6) || (v >= 6 && v <= 7.2);
+    const r = seek(ruleProbe(rule), { min: 0, max: 10, largest: false, scanCount: 11, tolerance: 1e-6 });
+    expect(r.monotonic).toBe(false);
+    expect(r.met_intervals).toEqual([[3, 3], [6, 7]]);
+    assertClose(r.value!, 2.2, { abs: 1e-6 }, 'smallest edge of the first stretch');
+  });
+
+  it('returns an end of the range with a zero bracket when the target is met there', () => {
+    const r = seek(ruleProbe((v) => v <= 4), { min: 0, max: 10, largest: false });
+    expect([r.value, r.bracket, r.solves]).toEqual([0, 0, 9]);
+  });
+});
