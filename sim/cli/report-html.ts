@@ -15,7 +15,7 @@ import {
   windowStatusWords,
 } from '../wording.ts';
 import { lineChart } from './report-svg.ts';
-import { convectionSentence } from './table.ts';
+import { convectionSentence, isRayleighDetail } from './table.ts';
 
 export const reportDefaults = {
   /** Colours of our own for the layer lines (distinct on screen and on a grey-scale print). */
@@ -55,7 +55,9 @@ export function htmlReport(r: ReportInput): string {
     title: 'Hottest point of each layer', xLabel, yLabel: 'temperature (°C)', xScale, markers,
     series: record.layers.map((l, i) => ({ name: l.id, x: record.tS, y: l.maxC, colour: colour(i) })),
   });
-  const melting = record.layers.map((l, i) => ({ l, i })).filter(({ l }) => l.liquidFraction);
+  // layers that melt at some time in this run (or are the separator): a line stuck at 0 says nothing
+  const melting = record.layers.map((l, i) => ({ l, i }))
+    .filter(({ l, i }) => l.liquidFraction && (p.layers[i]!.separator || l.liquidFraction.some((f) => f > 0)));
   const liquid = melting.length === 0 ? '' : lineChart({
     title: `${terms.liquidFraction.term} (volume mean)`, xLabel, yLabel: `${terms.liquidFraction.term} (0–1)`, xScale, markers,
     series: melting.map(({ l, i }) => ({ name: l.id, x: record.tS, y: l.liquidFraction!, colour: colour(i) })),
@@ -95,7 +97,8 @@ ${temperatures}
 ${liquid}
 <p class="small">${esc(verdictTerms.energy.term)}: in ${esc(formatEnergy(e.in_J_m2))}, out ${esc(formatEnergy(e.out_J_m2))}, stored ${esc(formatEnergy(e.stored_J_m2))}, relative imbalance ${esc(formatNumber(e.imbalance_rel, { significant: 2 }))}.</p>
 ${note ? `<p class="small">Note: ${esc(note)}</p>` : ''}
-${record.warnings.map((w) => `<p class="small">Warning: ${esc(w)}</p>`).join('\n')}
+${record.warnings.filter((w) => !(note && isRayleighDetail(w))).map((w) => `<p class="small">Warning: ${esc(w)}</p>`).join('\n')}
+${note ? `<details class="small"><summary>Convection details</summary>${record.warnings.filter(isRayleighDetail).map((w) => `<p>${esc(w)}</p>`).join('')}</details>` : ''}
 <h2>${esc(hazardsHeading)}</h2>
 <div class="caution"><ul>${hazards.map((h) => `<li><strong>${esc(h.term)}:</strong> ${esc(h.definition)}</li>`).join('')}</ul>
 <p><strong>${esc(predictionNotCertification)}</strong></p></div>

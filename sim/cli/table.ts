@@ -27,7 +27,7 @@ const LABEL = 26;
 const VALUE = 13;
 
 /** Whether a recorder warning is the Rayleigh-range detail that the plain convection note summarises. */
-const isRayleighDetail = (w: string): boolean => /Rayleigh/.test(w);
+export const isRayleighDetail = (w: string): boolean => /Rayleigh/.test(w);
 
 /** The plain-words convection sentence, or undefined when no face was outside its correlation's range. */
 export function convectionSentence(problem: Problem, record: RunRecord): string | undefined {
