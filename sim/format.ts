@@ -21,6 +21,8 @@ export const formatDefaults = {
   /** Below this magnitude (and above 1/this) a significant-figures number switches to exponent form. */
   exponentBelow: 1e-3,
   exponentFrom: 1e7,
+  /** A relative energy imbalance below this is floating-point round-off (the ledger closes exactly otherwise). */
+  roundOffBelow: 1e-12,
 } as const;
 
 export interface NumberStyle {
@@ -88,6 +90,12 @@ export function csvNumber(v: number): string {
 
 /** An energy per area, J/m², as kJ/m² at about 6 significant figures with the unit. */
 export const formatEnergy = (jPerM2: number): string => `${formatSignificant(jPerM2 / 1e3)} kJ/m²`;
+
+/** The energy ledger's relative imbalance: two figures, or "below 1e-12 (round-off)" where its digits are noise. */
+export function formatImbalance(rel: number): string {
+  if (!Number.isFinite(rel)) return NO_VALUE;
+  return Math.abs(rel) < formatDefaults.roundOffBelow ? `below ${formatDefaults.roundOffBelow.toExponential(0)} (round-off)` : formatNumber(rel, { significant: 2 });
+}
 
 /** A value for an input box: the number exactly as stored, a string as typed, empty for anything else. */
 export function inputText(v: unknown): string {

@@ -5,7 +5,7 @@
  * exactly what the terminal table says.
  */
 import type { ExpectationOutcome } from '../expect.ts';
-import { formatEnergy, formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
+import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
 import type { Problem } from '../problem.ts';
 import type { RunRecord } from '../record.ts';
 import { kToC, mToMm } from '../units.ts';
@@ -95,7 +95,7 @@ ${r.expectations.map((o) => `<tr${o.met ? '' : ' class="unmet"'}><td>${esc(o.met
 <h2>Charts</h2>
 ${temperatures}
 ${liquid}
-<p class="small">${esc(verdictTerms.energy.term)}: in ${esc(formatEnergy(e.in_J_m2))}, out ${esc(formatEnergy(e.out_J_m2))}, stored ${esc(formatEnergy(e.stored_J_m2))}, relative imbalance ${esc(formatNumber(e.imbalance_rel, { significant: 2 }))}.</p>
+<p class="small">${esc(verdictTerms.energy.term)}: in ${esc(formatEnergy(e.in_J_m2))}, out ${esc(formatEnergy(e.out_J_m2))}, stored ${esc(formatEnergy(e.stored_J_m2))}, relative imbalance ${esc(formatImbalance(e.imbalance_rel))}.</p>
 ${note ? `<p class="small">Note: ${esc(note)}</p>` : ''}
 ${record.warnings.filter((w) => !(note && isRayleighDetail(w))).map((w) => `<p class="small">Warning: ${esc(w)}</p>`).join('\n')}
 ${note ? `<details class="small"><summary>Convection details</summary>${record.warnings.filter(isRayleighDetail).map((w) => `<p>${esc(w)}</p>`).join('')}</details>` : ''}

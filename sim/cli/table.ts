@@ -5,7 +5,7 @@
  */
 import { convectionNote } from '../convection-note.ts';
 import type { ExpectationOutcome } from '../expect.ts';
-import { formatEnergy, formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
+import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
 import type { Problem } from '../problem.ts';
 import type { RunRecord } from '../record.ts';
 import type { Summary } from '../verdict.ts';
@@ -71,7 +71,7 @@ export function summaryTable(problem: Problem, summary: Summary, record: RunReco
   }
   const e = summary.energy;
   lines.push('');
-  lines.push(`  ${verdictTerms.energy.term}: in ${formatEnergy(e.in_J_m2)}, out ${formatEnergy(e.out_J_m2)}, stored ${formatEnergy(e.stored_J_m2)}, imbalance ${formatNumber(e.imbalance_rel, { significant: 2 })}`);
+  lines.push(`  ${verdictTerms.energy.term}: in ${formatEnergy(e.in_J_m2)}, out ${formatEnergy(e.out_J_m2)}, stored ${formatEnergy(e.stored_J_m2)}, imbalance ${formatImbalance(e.imbalance_rel)}`);
   lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${record.tS.length - 1} ${terms.step.term}s`);
   lines.push(...expectationLines(extras.expectations ?? []));
   const note = convectionSentence(problem, record);

@@ -2,7 +2,7 @@
 // 6 significant figures for CSV and energy, words for a missing value and never "NaN". Expected strings are written
 // out by hand from the stated rules (60 s to the minute; rounding half away from zero as a person does it).
 import { describe, expect, it } from 'vitest';
-import { csvNumber, formatEnergy, formatMargin, formatNumber, formatSignificant, formatTime, NO_VALUE } from '../../sim/format.ts';
+import { csvNumber, formatEnergy, formatImbalance, formatMargin, formatNumber, formatSignificant, formatTime, NO_VALUE } from '../../sim/format.ts';
 
 const NOT_NUMBERS = [Number.NaN, Infinity, -Infinity];
 
@@ -54,5 +54,13 @@ describe('sim/format', () => {
         expect(text).toContain(NO_VALUE);
       }
     }
+  });
+});
+
+describe('formatImbalance()', () => {
+  it('writes an imbalance at round-off level as words, and a real one to two figures', () => {
+    expect(formatImbalance(6.3e-15)).toBe('below 1e-12 (round-off)');
+    expect(formatImbalance(2.345e-6)).toBe('2.3e-6');
+    expect(formatImbalance(Number.NaN)).toBe(NO_VALUE);
   });
 });
