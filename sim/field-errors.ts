@@ -151,6 +151,13 @@ export function formatZodIssue(issue: core.$ZodIssue): FieldError[] {
       return [{ path, message: `${issue.message}, got ${describe(input)}` }];
     case 'too_big':
       return [{ path, message: `${issue.message}, got ${describe(input)}` }];
+    case 'invalid_union': {
+      // a branch that failed only inside the value (a table whose row holds "hot") matched its kind: report its
+      // issues where they are, rather than "must be a number or a table" about the whole value
+      const inside = issue.errors.find((branch) => branch.length > 0 && branch.every((sub) => sub.path.length > 0));
+      if (inside) return inside.flatMap((sub) => formatZodIssue({ ...sub, path: [...issue.path, ...sub.path] } as core.$ZodIssue));
+      return [{ path, message: `${issue.message}, got ${describe(input)}` }];
+    }
     default:
       return [{ path, message: `${issue.message}, got ${describe(input)}` }];
   }
