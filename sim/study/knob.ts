@@ -1,12 +1,13 @@
 /**
  * The input a window search varies, at the Problem level (SI): a function value → Problem over a range.
  *
- *   time   the hold: when the last heat input ends. For a face that is the `from_s` of the segment after the heating
- *          segment, for a volumetric source the `to_s` of its interval (sim/verdict.ts `lastHeatInput`, the same rule
- *          as `heat_off_s`). The range runs from the start of that heat input (or the end of any other heat input,
- *          if later: below it moving this one changes nothing) to the next segment or the end of the run. A hold
- *          equal to the start removes the heat input (immediate removal). The run is lengthened when needed so that
- *          it always follows the cell for as long after removal as the scenario itself does.
+ *   time   the hold: when the heat ends. Every heat input that ends at heat off moves together (sim/verdict.ts
+ *          `heatInputs`, the rule of `heat_off_s`): for a face the `from_s` of the segment after the heating segment,
+ *          for a volumetric source the `to_s` of its interval. The range runs from the start of the heating face
+ *          segments (or the end of any heat input that ends earlier, if later: below it the heat off would not move)
+ *          to the next face segment or the end of the run. At the start the heating segment is dropped (immediate
+ *          removal); a source interval that would end before it starts is dropped. The run is lengthened when needed
+ *          so that it always follows the cell for as long after removal as the scenario itself does.
  *   power  the strength of the same heat input: a plate's or a held face's temperature (K), else the imposed flux
  *          (W/m², heater power included) or the source (W/m³), from nothing to `powerDefaults.stretch` times its own.
  *
@@ -66,34 +67,34 @@ const withLayer = (problem: Problem, li: number, layer: Layer): Problem =>
 export function holdKnob(problem: Problem): Knob | string {
   const last = lastOrError(problem);
   if (typeof last === 'string') return last;
-  const others = heatInputs(problem).filter((h) => where(h, problem) !== where(last, problem));
-  const lo = Math.max(last.fromS, ...others.map((h) => h.endS));
+  // every heat input that ends at heat off moves with it ("the heat is removed"); the others bound the range below
+  const all = heatInputs(problem);
+  const group = all.filter((h) => h.endS === last.endS);
+  const faces = group.filter((h): h is Extract<HeatInput, { kind: 'face' }> => h.kind === 'face');
+  const sources = group.filter((h): h is Extract<HeatInput, { kind: 'source' }> => h.kind === 'source');
+  const lo = Math.max(0, ...all.filter((h) => h.endS !== last.endS).map((h) => h.endS), ...faces.map((h) => h.fromS));
+  const hi = Math.min(problem.durationS, ...faces.map((h) => problem[h.side][h.next! + 1]?.fromS ?? problem.durationS));
   const afterS = problem.durationS - last.endS;
-  const lengthen = (p: Problem, value: number): Problem =>
-    (value + afterS > p.durationS ? { ...p, durationS: value + afterS } : p);
-  let hi: number;
-  let path: string;
-  let apply: (value: number) => Problem;
-  if (last.kind === 'face') {
-    const segments = problem[last.side];
-    const next = last.next!;
-    hi = Math.min(segments[next + 1]?.fromS ?? problem.durationS, problem.durationS);
-    path = `${last.side}[${next}].from_s`;
-    apply = (value) => {
-      const moved = segments.map((s, i) => (i === next ? { ...s, fromS: value } : s));
+  const path = [
+    ...faces.map((h) => `${h.side}[${h.next!}].from_s`),
+    ...sources.map((h) => `layers[${h.layer}].source_W_m3[${h.interval}].to_s`),
+  ].join(', ');
+  const apply = (value: number): Problem => {
+    let p = problem;
+    for (const f of faces) {
+      const moved = p[f.side].map((s, i) => (i === f.next ? { ...s, fromS: value } : s));
       // removal at the very start: the heating segment never acts, so it is dropped (two segments may not share a start)
-      const kept = value <= last.fromS ? moved.filter((_, i) => i !== last.segment) : moved;
-      return lengthen(withSegments(problem, last.side, kept), value);
-    };
-  } else {
-    const layer = problem.layers[last.layer]!;
-    hi = problem.durationS;
-    path = `layers[${last.layer}].source_W_m3[${last.interval}].to_s`;
-    apply = (value) => {
-      const sources = layer.sources.flatMap((s, k) => (k !== last.interval ? [s] : value <= s.fromS ? [] : [{ ...s, toS: value }]));
-      return lengthen(withLayer(problem, last.layer, { ...layer, sources }), value);
-    };
-  }
+      p = withSegments(p, f.side, value <= f.fromS ? moved.filter((_, i) => i !== f.segment) : moved);
+    }
+    for (const li of new Set(sources.map((h) => h.layer))) {
+      const moving = new Set(sources.filter((h) => h.layer === li).map((h) => h.interval));
+      const layer = p.layers[li]!;
+      // an interval that would end before it starts never acts: it is dropped
+      const kept = layer.sources.flatMap((s, k) => (!moving.has(k) ? [s] : value <= s.fromS ? [] : [{ ...s, toS: value }]));
+      p = withLayer(p, li, { ...layer, sources: kept });
+    }
+    return value + afterS > p.durationS ? { ...p, durationS: value + afterS } : p;
+  };
   if (!(hi > lo)) return `the hold cannot be varied: ${path} has no room between ${lo} s and ${hi} s`;
   return {
     vary: 'time', path, label: 'heater hold', unit: 's', lo, hi, own: last.endS, show: (v) => v,

@@ -35,6 +35,19 @@ describe('holdKnob()', () => {
     expect(heatOffTime(k.apply(250))).toBe(250);
   });
 
+  it('holdKnob() moves every heat input that ends at heat off together, and drops a source that would end before it starts', () => {
+    const p = parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 1800,
+      bottom: [plate, { from_s: 900, convection_W_m2K: 6 }], source_W_m3: [{ from_s: 300, to_s: 900, value: 1e5 }] }));
+    const k = holdKnob(p);
+    if (typeof k === 'string') throw new Error(k);
+    expect([k.path, k.lo, k.hi, k.own]).toEqual(['bottom[1].from_s, layers[0].source_W_m3[0].to_s', 0, 1800, 900]);
+    const at600 = k.apply(600);
+    expect([at600.bottom[1]!.fromS, at600.layers[0]!.sources[0]!.toS]).toEqual([600, 600]);
+    expect(heatOffTime(at600)).toBe(600);
+    expect(k.apply(200).layers[0]!.sources).toEqual([]);
+    expect(heatOffTime(k.apply(200))).toBe(200);
+  });
+
   it('holdKnob() explains why there is nothing to vary', () => {
     expect(holdKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 60, bottom: [{ from_s: 0, convection_W_m2K: 6 }] }))))
       .toMatch(/no heat input/);
