@@ -65,7 +65,10 @@ function ambientText(study: ReturnType<typeof ambientStudy>, o: AmbientOptions):
   if (study.passing.length === 0) lines.push('  both pass nowhere in this range');
   else {
     const parts = study.passing.map(([a, b]) => (a === b ? `at ${c(a)}` : `from ${c(a)} to ${c(b)}`));
-    lines.push(`  both pass ${parts.join(' and ')} (at the points run; an edge lies within ${formatNumber(study.spacing_K, { decimals: 1 })} K of the last passing point)`);
+    const all = study.passing.length === 1 && study.points.every((p) => p.pass);
+    lines.push(all
+      ? `  both pass at every ambient run, ${parts[0]}`
+      : `  both pass ${parts.join(' and ')} (ambients run ${formatNumber(study.spacing_K, { decimals: 1 })} K apart: each edge lies within one spacing outside its stretch)`);
   }
   lines.push('', `  ${predictionNotCertification}`);
   return lines.join('\n');
