@@ -45,9 +45,15 @@ function program(): Command {
           : seriesCsv(out.record));
       }
       if (opts.report) writeFileSync(opts.report, htmlReport({ file, description: scenario.description, problem, summary: out.summary, record: out.record, expectations }));
-      if (opts.json) process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
-      else process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, verbose: opts.verbose })}\n`);
-      const unmetRequirements = reportRequirements(requirements, out.summary, file, (s) => (opts.json ? process.stderr : process.stdout).write(s));
+      // requirement lines go beside the expectations, before the hazard list that closes the table (stderr with --json)
+      const requirementLines: string[] = [];
+      const unmetRequirements = reportRequirements(requirements, out.summary, file, (s) => requirementLines.push(s.replace(/\n$/, '')));
+      if (opts.json) {
+        process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
+        for (const line of requirementLines) process.stderr.write(`${line}\n`);
+      } else {
+        process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, requirements: requirementLines, verbose: opts.verbose })}\n`);
+      }
       // every unmet expectation and requirement on stderr, then exit 3
       const failed = [...unmet(expectations).map((o) => `${file}: expectation not met: ${o.statement}; the run gave ${o.actual}`), ...unmetRequirements];
       if (failed.length > 0) throw new CheckFailed(failed.join('\n'));

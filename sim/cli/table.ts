@@ -17,6 +17,8 @@ import {
 export interface TableExtras {
   /** Outcomes of the scenario's `expect` block (sim/expect.ts); none printed when empty. */
   readonly expectations?: readonly ExpectationOutcome[];
+  /** Lines of `run --require` (sim/cli/require-check.ts), printed after the expectations. */
+  readonly requirements?: readonly string[];
   /** Print the solver's own convection warnings (Rayleigh ranges) beside the plain-words note. */
   readonly verbose?: boolean;
 }
@@ -74,6 +76,7 @@ export function summaryTable(problem: Problem, summary: Summary, record: RunReco
   lines.push(`  ${verdictTerms.energy.term}: in ${formatEnergy(e.in_J_m2)}, out ${formatEnergy(e.out_J_m2)}, stored ${formatEnergy(e.stored_J_m2)}, imbalance ${formatImbalance(e.imbalance_rel)}`);
   lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${record.tS.length - 1} ${terms.step.term}s`);
   lines.push(...expectationLines(extras.expectations ?? []));
+  if (extras.requirements?.length) lines.push('', ...extras.requirements);
   const note = convectionSentence(problem, record);
   if (note) lines.push('', `  note: ${note}${extras.verbose ? '' : ' (--verbose for the Rayleigh numbers)'}`);
   for (const w of record.warnings) if (!note || !isRayleighDetail(w) || extras.verbose) lines.push(`  warning: ${w}`);
