@@ -1,5 +1,17 @@
-/** Saving and loading scenario files, and downloading the series as CSV. */
-import { parseJsonObject, type JsonObject } from './json.ts';
+/**
+ * Saving and loading scenario files, and downloading the series as CSV. A loaded file is read by the solver's own
+ * strict reader (sim/json-text.ts), so the view and the CLI refuse the same files in the same words: a key given
+ * twice, a syntax error with its line and column; a leading byte-order mark is skipped.
+ */
+import { capErrors, formatFieldError } from '../sim/field-errors.ts';
+import { readJsonText } from '../sim/json-text.ts';
+import { scenarioLimitDefaults } from '../sim/scenario-limits.ts';
+import { isObject, type JsonObject } from './json.ts';
+
+export const filesDefaults = {
+  /** Errors named in the one-line status after a failed load; the rest are counted ("and N more"). */
+  maxLoadErrors: 3,
+} as const;
 
 export function download(filename: string, text: string, type: string): void {
   const url = URL.createObjectURL(new Blob([text], { type }));
@@ -21,9 +33,20 @@ export function fileStem(draft: JsonObject): string {
 
 export const scenarioText = (draft: JsonObject): string => `${JSON.stringify(draft, null, 2)}\n`;
 
-export async function readScenarioFile(file: File): Promise<{ ok: true; value: JsonObject } | { ok: false; message: string }> {
-  const text = await file.text();
-  if (text.trim() === '') return { ok: false, message: `${file.name} is empty` };
-  const parsed = parseJsonObject(text);
-  return parsed.ok ? parsed : { ok: false, message: `${file.name} ${parsed.message}` };
+export type LoadResult = { ok: true; value: JsonObject } | { ok: false; message: string };
+
+/** The text of a scenario file → its JSON object, or one line saying why not (the file's name first). */
+export function scenarioFromText(fileName: string, text: string): LoadResult {
+  if (text.trim() === '' && text.length < scenarioLimitDefaults.maxTextChars) return { ok: false, message: `${fileName} is empty` };
+  const read = readJsonText(text, { maxChars: scenarioLimitDefaults.maxTextChars, maxDepth: scenarioLimitDefaults.maxNestingDepth });
+  if (!read.ok) {
+    const [first, ...rest] = capErrors(read.errors, filesDefaults.maxLoadErrors);
+    if (first!.path === '(file)' && rest.length === 0) return { ok: false, message: `${fileName} ${first!.message}` };
+    return { ok: false, message: `${fileName}: ${[first!, ...rest].map(formatFieldError).join('; ')}` };
+  }
+  return isObject(read.value) ? { ok: true, value: read.value as JsonObject } : { ok: false, message: `${fileName} must hold a JSON object` };
+}
+
+export async function readScenarioFile(file: File): Promise<LoadResult> {
+  return scenarioFromText(file.name, await file.text());
 }

@@ -8,6 +8,7 @@ import type { FieldError } from '../../sim/field-errors.ts';
 import { parseScenario, parseScenarioText } from '../../sim/scenario.ts';
 import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario-limits.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
+import { scenarioFromText } from '../../ui/files.ts';
 
 type Json = Record<string, unknown>;
 
@@ -200,5 +201,21 @@ describe('parseScenario() refusals', () => {
     expect(errors.map((e) => e.path)).toEqual(['duration_s', 'bottom[0].fixed_C']);
     expect(errors[0]!.message).toBe(`must be ≤ ${LIMIT.maxDurationS} s (scenarioLimitDefaults.maxDurationS, about three years), got 1000000000000`);
     expect(errors[1]!.message).toContain(`≤ ${LIMIT.maxTemperatureC} °C`);
+  });
+
+  it('scenarioFromText() (the view\'s file loader) refuses the same files as the CLI, in one line naming lines and columns', () => {
+    const text = JSON.stringify(valid(), null, 2);
+    expect(scenarioFromText('a.json', `\uFEFF${text}`)).toEqual({ ok: true, value: valid() });
+    const twice = text.replace('"duration_s": 1200,', '"duration_s": -5,\n  "duration_s": 1200,');
+    const dup = scenarioFromText('a.json', twice);
+    expect(dup.ok).toBe(false);
+    if (!dup.ok) expect(dup.message).toMatch(/^a\.json: duration_s: this key is given twice in the same object \(lines \d+ and \d+\)/);
+    const broken = scenarioFromText('b.json', '{\n  "name": "x",\n}');
+    expect(broken).toEqual({ ok: false, message: expect.stringMatching(/^b\.json is not valid JSON: line 3, column 1: .*comma after the last entry/) });
+    // many duplicates: three named, the rest counted
+    const many = `{${Array.from({ length: 10 }, (_, i) => `"k${i}": 1, "k${i}": 2`).join(', ')}}`;
+    const capped = scenarioFromText('c.json', many);
+    if (!capped.ok) expect(capped.message).toContain('and 7 more errors');
+    expect(capped.ok).toBe(false);
   });
 });
