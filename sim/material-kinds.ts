@@ -5,11 +5,12 @@
 import { compositeMaterial } from './composite.ts';
 import type { FieldError } from './field-errors.ts';
 import { libraryMaterial } from './library.ts';
-import type { Material } from './material.ts';
+import type { Limit, Material } from './material.ts';
 import { materialFromFile } from './material-file.ts';
 import type { CompositeFile } from './rig-schema.ts';
 import { liclMoleFraction, saltMixtureMaterial } from './salt-mixture.ts';
 import type { InlineMaterialFile, MaterialEntryFile } from './scenario-schema.ts';
+import { cToK } from './units.ts';
 
 const show = (v: unknown): string => JSON.stringify(v);
 
@@ -36,11 +37,18 @@ function compositeOf(name: string, c: CompositeFile, path: string, errors: Field
 
 /** Builds an inline material; undefined (with errors pushed) when it cannot be built. */
 export function inlineMaterial(name: string, entry: MaterialEntryFile, path: string, errors: FieldError[]): Material | undefined {
-  if (entry.salt) {
-    const x = liclMoleFraction(entry.salt, `${path}.salt`, errors);
-    return x === undefined ? undefined : saltMixtureMaterial(name, x, entry.title);
+  if (entry.salt || entry.composite) {
+    const built = entry.salt
+      ? (() => {
+        const x = liclMoleFraction(entry.salt, `${path}.salt`, errors);
+        return x === undefined ? undefined : saltMixtureMaterial(name, x);
+      })()
+      : compositeOf(name, entry.composite!, `${path}.composite`, errors);
+    if (!built) return undefined;
+    // the entry's own title and limits apply to a modelled material too (nothing given is ignored)
+    const own: Limit[] = (entry.limits ?? []).map((l) => ({ kind: l.kind, atK: cToK(l.at_C), source: l.source, note: l.note }));
+    return { ...built, title: entry.title ?? built.title, limits: [...built.limits, ...own] };
   }
-  if (entry.composite) return compositeOf(name, entry.composite, `${path}.composite`, errors);
   const { salt: _s, composite: _c, k_W_mK, rho_kg_m3, cp_J_kgK, ...rest } = entry;
   // the schema has already required the three properties of a material given directly
   if (k_W_mK === undefined || rho_kg_m3 === undefined || cp_J_kgK === undefined) return undefined;

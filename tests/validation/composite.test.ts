@@ -87,6 +87,11 @@ describe('compositeMaterial() of LiCl–KCl eutectic in E-glass cloth', () => {
     };
     const problem = parseOk({ ...base, materials: { cloth: { composite: { matrix: 'e-glass', salt: { LiCl: 0.44, KCl: 0.56, basis: 'mass' }, porosity: 0.6 } } } });
     assertClose(problem.layers[0]!.material.melt!.solidusK - K, 352, { abs: 1e-6 }, 'solidus, °C');
+    // the entry's own limits join the matrix's (E-glass: service 700 °C, softening 844 °C); nothing given is ignored
+    const limited = parseOk({ ...base, materials: { cloth: { title: 'my cloth', limits: [{ kind: 'service', at_C: 500 }], composite: { matrix: 'e-glass', salt: 'licl-kcl-eutectic', porosity: 0.6 } } } });
+    const m = limited.layers[0]!.material;
+    expect(m.title).toBe('my cloth');
+    expect(m.limits.map((l) => Math.round(l.atK - K))).toEqual([700, 844, 500]);
     expect(() => parseOk({ ...base, materials: { cloth: { composite: { matrix: 'licl-kcl-eutectic', salt: 'licl-kcl-eutectic', porosity: 0.6 } } } }))
       .toThrow(/materials\.cloth\.composite\.matrix: the matrix must be a material that does not melt/);
     expect(() => parseOk({ ...base, materials: { cloth: { composite: { matrix: 'e-glass', salt: 'licl-kcl-eutectic', porosity: 0 } } } }))
