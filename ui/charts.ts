@@ -45,7 +45,16 @@ export interface Charts {
   /** Draws a result; resolves when every chart shows it (or a newer result took its place). */
   readonly draw: (r: ShownResult, cursorS: number | undefined) => Promise<void>;
   readonly moveCursor: (tS: number) => void;
+  /** Sizes the charts for the one-page printed report (on) or back to their boxes (off); resolves when redrawn. */
+  readonly forPrint: (on: boolean) => Promise<void>;
 }
+
+export const printDefaults = {
+  /** Two charts side by side on an A4 page with 10 mm margins (718 px of 96 dpi across), px. */
+  widthPx: 350,
+  /** Low enough that four charts, the scenario, the verdict and the cautions fit one page, px. */
+  heightPx: 205,
+} as const;
 
 /** PNG names, in drawing order (temperatures first: it is the chart most people look at). */
 const FILE_NAMES = ['freezeline-temperatures', 'freezeline-liquid-fraction', 'freezeline-freeze', 'freezeline-margin', 'freezeline-map'] as const;
@@ -92,6 +101,23 @@ export function createCharts(el: ChartElements): Charts {
         await api.react(boxes[i]!, f.data, layoutWithCursor(f), chartConfig(FILE_NAMES[i]!));
         if (i === 0) performance.mark('freezeline:temperatures-plotted');
       }
+    },
+    async forPrint(on) {
+      if (figures.length === 0) return;
+      const api = await loadPlotly();
+      await Promise.all(boxes.map(async (b, i) => {
+        if (!figures[i]) return;
+        // on paper the legend gives way to the plot: the layer colours are keyed in the printed scenario table
+        if (on) {
+          await api.relayout(b, { width: printDefaults.widthPx, height: printDefaults.heightPx, showlegend: false, 'font.size': 9,
+            'margin.t': 22, 'margin.b': 30, 'margin.l': 48 } as Partial<Layout>);
+        } else {
+          const f = figures[i]!;
+          await api.relayout(b, { width: null, height: null, showlegend: f.layout.showlegend ?? null, 'font.size': 12,
+            'margin.t': f.layout.margin?.t ?? null, 'margin.b': f.layout.margin?.b ?? null, 'margin.l': f.layout.margin?.l ?? null } as unknown as Partial<Layout>);
+          await api.Plots.resize(b);
+        }
+      }));
     },
     moveCursor(tS) {
       cursor = tS;

@@ -8,6 +8,7 @@ import { byId, h } from './dom.ts';
 import { formatTime } from './format.ts';
 import { renderLedger, renderWarnings } from './ledger-view.ts';
 import { stepNear, type ShownResult } from './result.ts';
+import { renderPrintScenario } from './print-scenario.ts';
 import { drawStack } from './stack-drawing.ts';
 import { renderSummaryBar } from './summary-bar.ts';
 import { renderVerdict } from './verdict-view.ts';
@@ -38,7 +39,9 @@ export function createResultsView(): ResultsView {
   const drawing = byId('stack-drawing');
   const cautionList = renderCautionBox(byId('cautions'));
   // the print stylesheet lays out the scenario, verdict, charts and cautions on one page
-  byId('print-report').addEventListener('click', () => window.print());
+  byId('print-report').addEventListener('click', () => { void charts.forPrint(true).then(() => window.print()); });
+  window.addEventListener('beforeprint', () => { void charts.forPrint(true); });
+  window.addEventListener('afterprint', () => { void charts.forPrint(false); });
   let shown: ShownResult | undefined;
   let chosenS: number | undefined;
   drawStack(drawing, undefined, 0);
@@ -71,6 +74,7 @@ export function createResultsView(): ResultsView {
       slider.value = String(wanted);
       renderSummaryBar(byId('summary-bar'), r, renderVerdict(byId('verdict'), cautionList, r));
       renderLedger(byId('ledger'), r);
+      renderPrintScenario(byId('print-scenario'), r);
       renderWarnings(byId('warnings'), r);
       showStep(r, step);
       return charts.draw(r, wanted);
