@@ -53,11 +53,13 @@ export function layerHeatSources(layer: LayerHeatInput, densityKgM3: number, thi
     } else {
       const jPerKg = p.heat_J_g !== undefined ? p.heat_J_g * 1e3 : pelletHeatJPerKg(p.KClO4_fraction!);
       const from = p.from_s ?? 0;
+      if (from + p.burn_s > durationS) errors.push({ path: `${path}.pellet.burn_s`, message: `the burn must end by duration_s (${durationS}): the run ends before it, got from_s + burn_s = ${from + p.burn_s}` });
       out.push({ fromS: from, toS: from + p.burn_s, value: (densityKgM3 * jPerKg) / p.burn_s });
     }
   }
   const j = layer.joule;
   if (j) {
+    if (j.to_s > durationS) errors.push({ path: `${path}.joule.to_s`, message: `must be ≤ duration_s (${durationS}): the run ends before it, got ${j.to_s}` });
     if (!(j.to_s > j.from_s)) errors.push({ path: `${path}.joule.to_s`, message: `must be > from_s (${j.from_s}), got ${j.to_s}` });
     else if (!footprint) errors.push({ path: `${path}.joule`, message: 'needs the scenario\'s footprint (the heat is spread over footprint × thickness), got none' });
     else out.push({ fromS: j.from_s, toS: j.to_s, value: (j.current_A * j.current_A * j.resistance_ohm) / (footprint.areaM2 * thicknessM) });
@@ -67,6 +69,7 @@ export function layerHeatSources(layer: LayerHeatInput, densityKgM3: number, thi
     if (typeof w === 'number') out.push({ fromS: 0, toS: durationS, value: densityKgM3 * w });
     else {
       w.forEach((iv, i) => {
+        if (iv.to_s > durationS) errors.push({ path: `${path}.heat_W_kg[${i}].to_s`, message: `must be ≤ duration_s (${durationS}): the run ends before it, got ${iv.to_s}` });
         if (!(iv.to_s > iv.from_s)) errors.push({ path: `${path}.heat_W_kg[${i}].to_s`, message: `must be > from_s (${iv.from_s}), got ${iv.to_s}` });
         else out.push({ fromS: iv.from_s, toS: iv.to_s, value: densityKgM3 * iv.value });
       });

@@ -54,6 +54,8 @@ describe('layer heat sources', () => {
     expect(() => parseOk(oneLayer({ pellet: { burn_s: 2, heat_J_g: 1, KClO4_fraction: 0.1 } }))).toThrow(/got both/);
     const noFootprint = { ...oneLayer({ joule: { current_A: 1, resistance_ohm: 1, from_s: 0, to_s: 1 } }) } as Record<string, unknown>;
     delete noFootprint.footprint;
+    // a burn past the end of the run would leave heat out of the run silently: refused (duration 20 s)
+    expect(() => parseOk(oneLayer({ pellet: { heat_J_g: 1, from_s: 19, burn_s: 2 } }))).toThrow(/layers\[0\]\.pellet\.burn_s: the burn must end by duration_s \(20\)/);
     expect(() => parseOk(noFootprint)).toThrow(/layers\[0\]\.joule: needs the scenario's footprint/);
   });
 });
