@@ -33,6 +33,20 @@ export function bundleIsStale() {
   }
 }
 
+/**
+ * zod ships error messages in ~40 languages and re-exports them all as `z.locales`, which a bundler cannot drop (a
+ * namespace). freezeline only uses zod's default English, so the list is replaced by English alone: the bundle loses
+ * ~300 KB that every call would compile. English stays the default through zod's own `config(en())`.
+ */
+const englishOnlyZod = {
+  name: 'english-only-zod',
+  setup(b) {
+    b.onResolve({ filter: /^\.\.\/locales\/index\.js$/ }, (args) => (args.importer.includes(`${'node_modules'}/zod/`)
+      ? { path: 'zod-locales-en', namespace: 'freezeline' } : undefined));
+    b.onLoad({ filter: /.*/, namespace: 'freezeline' }, () => ({ contents: "export { default as en } from 'zod/v4/locales/en.js';", resolveDir: root }));
+  },
+};
+
 export async function buildCli() {
   const { build } = await import('esbuild');
   const workers = readdirSync(join(root, 'sim/cli')).filter((f) => f.endsWith('-worker.ts')).map((f) => join(root, 'sim/cli', f));
@@ -48,6 +62,7 @@ export async function buildCli() {
     banner: { js: "import { createRequire as __freezelineRequire } from 'node:module'; const require = __freezelineRequire(import.meta.url);" },
     logLevel: 'warning',
     legalComments: 'none',
+    plugins: [englishOnlyZod],
     write: false,
   });
   mkdirSync(join(root, 'build/cli'), { recursive: true });
