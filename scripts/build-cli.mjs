@@ -73,4 +73,12 @@ export async function buildCli() {
   }
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) await buildCli();
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  try {
+    await buildCli();
+  } catch (e) {
+    // an install must not fail for want of the bundle: the command then runs from source (bin.js says so)
+    process.stderr.write(`freezeline: the CLI bundle was not built (${String(e.message).split('\n')[0]})\n`);
+    process.exitCode = process.env.npm_lifecycle_event === 'prepare' ? 0 : 1;
+  }
+}
