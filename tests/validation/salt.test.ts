@@ -60,6 +60,13 @@ describe('LiCl–KCl liquidus model', () => {
     expect(leverLiquidFraction(x0, meltingRange(x0).liquidusK + 0.01)).toBe(1);
   });
 
+  it('leverLiquidFraction() just above the eutectic is (1 − x₀)/(1 − x_e) in moles, with the measured x_e = 0.585: 55 % by mass at x₀ = 0.8', () => {
+    const molesLiquid = (1 - 0.8) / (1 - 0.585); // 0.482
+    const byHand = (molesLiquid * (0.585 * M_LICL + 0.415 * M_KCL)) / (0.8 * M_LICL + 0.2 * M_KCL); // 0.550
+    // Tolerance 0.005: the model's eutectic composition lies within 0.001 of the measured one (test above).
+    assertClose(leverLiquidFraction(0.8, 352 + K + 1e-6), byHand, { abs: 0.005 }, 'liquid mass fraction at the eutectic');
+  });
+
   it('mixtureLatentJPerKg() at the eutectic is the DSC fit 26.95 − 50.20x + 43.06x² kJ/mol over the molar mass', () => {
     const x = 0.585;
     const byHand = ((26.95 - 50.2 * x + 43.06 * x * x) * 1e3) / ((x * M_LICL + (1 - x) * M_KCL) * 1e-3); // ≈ 221 kJ/kg
