@@ -131,8 +131,9 @@ export function formatZodIssue(issue: core.$ZodIssue): FieldError[] {
   const input = (issue as { input?: unknown }).input;
   switch (issue.code) {
     case 'unrecognized_keys':
-      return issue.keys.map((key) => {
-        const hint = suggestKey(key);
+      return issue.keys.map((key, i) => {
+        // only the first errors are listed (capErrors), so only they need the search for a nearest key
+        const hint = i < fieldErrorDefaults.maxMessages ? suggestKey(key) : undefined;
         return {
           path: formatPath([...issue.path, key]),
           message: `unknown key${hint ? ` (did you mean "${hint}"?)` : ''}; misspelt keys are refused, not ignored`,
