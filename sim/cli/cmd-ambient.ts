@@ -51,7 +51,7 @@ export function registerAmbient(cli: Command): void {
 function ambientText(study: ReturnType<typeof ambientStudy>, o: AmbientOptions): string {
   const c = (v: number) => `${formatNumber(v, { decimals: 1 })} °C`;
   const lines = [
-    `ambient study: ${study.points.length} runs from ${c(o.fromC)} to ${c(o.toC)}; pass = a ${verdictTerms.safe_window_s.term} of at least ${formatTime(o.minWindowS, '')} and every margin at least ${o.marginK} K`,
+    `ambient study: ${study.points.length} runs from ${c(o.fromC)} to ${c(o.toC)}; pass = a ${verdictTerms.safe_window_s.term} ${o.minWindowS > 0 ? `of at least ${formatTime(o.minWindowS, '')}` : '(any length)'} and every margin at least ${o.marginK} K`,
     study.initial_follows ? '  the cell starts at the ambient (initial_C follows it)' : '  the cell starts at the initial_C of the file (it differs from its ambient_C, so it is kept)',
     '',
     `  ambient °C   ${verdictTerms.safe_window_s.term.padEnd(26)}  binding margin             pass`,

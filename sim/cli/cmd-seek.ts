@@ -9,6 +9,7 @@ import { orRefuse, parseNumberOption, readScenario } from './study-input.ts';
 import { formatSignificant } from '../format.ts';
 import { parsePath, resolveLeaf } from '../study/scenario-path.ts';
 import { scenarioProbe, seek, seekDefaults } from '../study/seek.ts';
+import { predictionNotCertification } from '../wording.ts';
 import { checkTarget, parseTarget, readingText, targetValue } from '../study/target.ts';
 
 interface SeekCliOptions { adjust: string; min: string; max: string; target: string; largest?: boolean; json?: boolean; scan?: string; tolerance?: string }
@@ -59,7 +60,7 @@ export function registerSeek(cli: Command): void {
       if (!result.monotonic) {
         lines.push(`  the response is not monotonic: the target is met on ${result.met_intervals.map(([a, b]) => (a === b ? formatSignificant(a) : `${formatSignificant(a)}…${formatSignificant(b)}`)).join(', ')} (scan points); the answer is the ${which} edge`);
       }
-      lines.push(`  ${result.solves} runs`);
+      lines.push(`  ${result.solves} runs`, '', `  ${predictionNotCertification}`);
       process.stdout.write(`${lines.join('\n')}\n`);
     });
 }
