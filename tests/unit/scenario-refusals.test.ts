@@ -9,6 +9,7 @@ import { parseScenario, parseScenarioText } from '../../sim/scenario.ts';
 import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario-limits.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
 import { scenarioFromText } from '../../ui/files.ts';
+import { recordDefaults } from '../../sim/record.ts';
 
 type Json = Record<string, unknown>;
 
@@ -155,6 +156,10 @@ describe('parseScenario() refusals', () => {
     const s = valid();
     s.layers = cut(Array.from({ length: 100_000 }, (_, i) => ({ id: `L${i}`, material: 'metal', thickness_mm: -1 })));
     expect(onlyError(s, 'layers')).toBe(`holds 100000 layers; the limit is ${LIMIT.maxLayers} (scenarioLimitDefaults, sim/scenario-limits.ts)`);
+  });
+
+  it('scenarioLimitDefaults admits no more output times than the recorder keeps exactly (recordDefaults)', () => {
+    expect(LIMIT.maxOutputTimes).toBeLessThanOrEqual(recordDefaults.maxOutputTimes);
   });
 
   it('parseScenario() refuses two million output times in one line', () => {
