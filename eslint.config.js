@@ -2,7 +2,7 @@
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'sim/cli/bin.js'] },
+  { ignores: ['dist/**', 'build/**', 'node_modules/**', 'sim/cli/bin.js'] },
   ...tseslint.configs.recommended,
   {
     rules: {
