@@ -3,7 +3,7 @@
 // CSV on the output times and a self-contained HTML report. The demo's claims and the words are the references; the
 // exit codes are the ones documented in the README.
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -86,5 +86,11 @@ describe('freezeline check (the bundle)', () => {
     const r = spawnSync(process.execPath, [join(root, 'build/cli/main.js'), 'check', bad], { encoding: 'utf8' });
     expect(r.status).toBe(2);
     expect(r.stderr).toContain('layers[1].thickness_mm: must be > 0, got -1.5');
+  });
+
+  it('ships every worker entry sim/cli/*-worker.ts as its own file beside the bundle, where tinypool looks for it', () => {
+    freezeline('check', demo);
+    const workers = readdirSync(join(root, 'sim/cli')).filter((f) => f.endsWith('-worker.ts'));
+    for (const w of workers) expect(existsSync(join(root, 'build/cli', w.replace(/\.ts$/, '.js'))), w).toBe(true);
   });
 });
