@@ -12,7 +12,7 @@
 import type { FaceContext } from './faces.ts';
 import { faceHeatIn } from './faces.ts';
 import type { EnthalpyCurve } from './material.ts';
-import { conductivityAt, sensibleCapacity, temperatureOf } from './material.ts';
+import { conductivityAt, conductivitySlopeAt, sensibleCapacity, temperatureOf } from './material.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from './problem.ts';
 
@@ -37,7 +37,7 @@ export interface Workspace {
   readonly tau: Float64Array;
   /** Conductance between node j and j+1, W·m⁻²·K⁻¹ (n+1). */
   readonly G: Float64Array;
-  /** d(half-cell resistance)/dU per node (n+2): nonzero only in two-phase cells, whose k follows the liquid fraction. */
+  /** d(half-cell resistance)/dU per node (n+2): from the liquid fraction in two-phase cells, from k(T) elsewhere. */
   readonly dHalf: Float64Array;
   /** Net heat rate into each cell per unit area, W/m² (n). */
   readonly F: Float64Array;
@@ -103,7 +103,9 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
         : tau[i + 1]! / (melt.liquidusK - melt.solidusK);
       dHalf[i + 1] = 0.5 * dx[i]! * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
     } else {
-      dHalf[i + 1] = 0;
+      // half = Δx/(2k(T)): d(half)/dH = −Δx/(2k²)·dk/dT·dT/dH
+      const slope = conductivitySlopeAt(material, h, tC);
+      dHalf[i + 1] = slope === 0 ? 0 : (-0.5 * dx[i]! * slope * tau[i + 1]!) / (k * k);
     }
     const half = (0.5 * dx[i]!) / k;
     if (i === 0) G[0] = 1 / half;
@@ -153,7 +155,7 @@ export function stageResidual(ws: Workspace, U: Float64Array, B: Float64Array, h
 /**
  * Jacobian of stageResidual() with respect to U. The flux through face j (node j to j+1), Q_j = G_j·(T_j − T_{j+1}),
  * has slopes a_j = ∂Q_j/∂U_j and b_j = ∂Q_j/∂U_{j+1}, which include the change of G through the half-cell resistance
- * of two-phase cells; the tabulated k(T) of single-phase cells is held for the step (the Newton iterations absorb it).
+ * of two-phase cells (k follows the liquid fraction) and of single-phase cells (tabulated k(T)).
  * Overwrites ws.lower, ws.diag, ws.upper.
  */
 export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): void {

@@ -12,6 +12,7 @@ import type { Problem } from './problem.ts';
 import { characteristicLengthM, conditionAt, sourceAt } from './problem.ts';
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
 import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
+import { belowAbsoluteZeroMessage, budgetMessage, coldestK, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
   /**
@@ -33,8 +34,6 @@ export const evolveDefaults = {
   maxNewtonIterations: 12,
   /** Newton failure: cut the step by this factor. */
   newtonCut: 0.25,
-  /** Smallest step, as a share of the duration, before the run reports failure. */
-  minStepShare: 1e-12,
   /** A step that would end within this share of a breakpoint is stretched onto it. */
   landShare: 1e-6,
 } as const;
@@ -64,6 +63,8 @@ export interface EvolveStats {
   steps: number;
   rejected: number;
   newtonIterations: number;
+  /** Steps accepted at the smallest step (step-guards.ts) although the error estimate asked for less. */
+  forced: number;
 }
 
 export type EvolveEnd =
@@ -104,7 +105,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const buf = createStepBuffers(grid.n);
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
-  const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0 };
+  const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0 };
   const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
   const backwardEuler = options.backwardEuler === true;
   const breaks = breakpoints(problem);
@@ -114,47 +115,71 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   let nextBreak = 0;
   let cond = conditionsAt(problem, grid, t, source);
   initialState(problem, grid, buf.U0);
+  let floorS = 0;
   const settle = (): boolean => {
     if (!settleFaces(ws, buf.U0, cond, newton.toleranceK)) return false;
     buf.F0.set(ws.F);
     buf.q0.set(ws.faceQ);
     buf.T0.set(ws.T);
     updateCapacity(ws);
+    floorS = stepGuardDefaults.floorShare * smallestRelaxationS(ws);
     return true;
   };
-  if (!settle()) return { status: 'failed', message: 'the face balance did not converge at t = 0 s', tS: 0, stats };
+  const unsettled = (tS: number): EvolveEnd => ({
+    status: 'failed', tS, stats,
+    message: coldestK(ws.T) < 0 ? belowAbsoluteZeroMessage(problem, ws, cond, ws.faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
+  });
+  if (!settle()) return unsettled(0);
   // report the initial state as a step of zero length
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
   yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0 };
 
   let h = options.fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
-  const minStep = durationS * d.minStepShare;
+  const adaptive = options.fixedStepS === undefined;
+  const maxSteps = stepGuardDefaults.maxCellSteps / grid.n;
   while (t < durationS) {
     while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
     const target = breaks[nextBreak] ?? durationS;
-    let step = Math.min(options.fixedStepS ?? h, numerics.maxStepS);
+    const floor = Math.max(floorS, stepGuardDefaults.floorRelative * t);
+    let step = Math.min(options.fixedStepS ?? Math.max(h, floor), numerics.maxStepS);
     let landing = false;
     if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
-    else if (options.fixedStepS === undefined && t + 2 * step > target) step = 0.5 * (target - t);
-
+    else if (adaptive && t + 2 * step > target) step = Math.max(0.5 * (target - t), Math.min(floor, target - t));
+    if (stats.steps + stats.rejected >= maxSteps) {
+      return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, t, durationS, step), tS: t, stats };
+    }
+    // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
+    const atFloor = adaptive && step <= floor;
     takeStep(ws, buf, step, cond, newton, scale, backwardEuler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
-    if (outcome.status !== 'ok' || (options.fixedStepS === undefined && outcome.errorNorm > 1)) {
-      if (options.fixedStepS !== undefined) {
+    if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {
+      // an iterate below 0 K on a long step may still come back; on the smallest step it is the physics
+      if ((atFloor || !adaptive) && coldestK(ws.T) < 0) {
+        return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q0, t), tS: t, stats };
+      }
+      if (!adaptive) {
         return { status: 'failed', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
+      }
+      if (atFloor) {
+        return { status: 'failed', message: `the solver could not converge at t = ${t} s even with its smallest step, ${step.toPrecision(2)} s (${outcome.status})`, tS: t, stats };
       }
       stats.rejected++;
       rejectedLast = true;
       h = outcome.status === 'ok'
         ? step * Math.max(d.shrink, d.safety * outcome.errorNorm ** (-1 / 3))
         : step * d.newtonCut;
-      if (h < minStep) {
-        return { status: 'failed', message: `the time step fell below ${minStep.toExponential(1)} s at t = ${t.toFixed(3)} s (${outcome.status})`, tS: t, stats };
-      }
       continue;
     }
+    if (atFloor && outcome.errorNorm > 1) stats.forced++;
     const t1 = landing ? target : t + step;
+    if (coldestK(ws.T) < 0) {
+      // where the coldest node crossed 0 K, by linear interpolation over the step
+      const before = coldestK(buf.T0);
+      const after = coldestK(ws.T);
+      const at = before > 0 ? t + (step * before) / (before - after) : t;
+      return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q1, at), tS: at, stats };
+    }
     stats.steps++;
     let sourceJ = 0;
     for (let i = 0; i < grid.n; i++) sourceJ += step * source[i]! * grid.dx[i]!;
@@ -170,7 +195,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     buf.q0.set(buf.q1);
     buf.T0.set(ws.T);
     updateCapacity(ws);
-    if (options.fixedStepS === undefined) {
+    if (adaptive) {
       const ratio = outcome.errorNorm > 0 ? d.safety * outcome.errorNorm ** (-1 / 3) : d.grow;
       // no growth right after a rejection (Hairer & Wanner II, §IV.8): the step that failed is still near
       const growth = rejectedLast ? 1 : d.grow;
@@ -183,9 +208,9 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       const before = cond;
       cond = conditionsAt(problem, grid, t, source);
       if (cond.bottom !== before.bottom || cond.top !== before.top) {
-        if (options.fixedStepS === undefined) h = Math.min(h, d.stepAfterChangeS);
+        if (adaptive) h = Math.min(h, d.stepAfterChangeS);
       }
-      if (!settle()) return { status: 'failed', message: `the face balance did not converge at t = ${t} s`, tS: t, stats };
+      if (!settle()) return unsettled(t);
     }
   }
   return { status: 'ok', stats };

@@ -205,6 +205,36 @@ export function conductivityAt(material: Material, hJ: number, tK: number): numb
   return mushConductivity(melt, liquidFractionOf(material, hJ, tK));
 }
 
+/** Slope dy/dT of a table at T (K): the slope of the row interval holding T, 0 outside the table (held flat). */
+export function tableSlope(table: Table, tK: number): number {
+  const { tK: xs, y } = table;
+  const n = xs.length;
+  if (n === 1 || tK <= xs[0]! || tK >= xs[n - 1]!) return 0;
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid]! <= tK) lo = mid;
+    else hi = mid;
+  }
+  return (y[hi]! - y[lo]!) / (xs[hi]! - xs[lo]!);
+}
+
+/**
+ * dk/dT (W·m⁻¹·K⁻²) of a single-phase cell, read as conductivityAt() reads k: 0 where the table is held flat, and 0
+ * in a two-phase cell (whose k follows the liquid fraction, handled by the caller). For Newton's Jacobian: a steep
+ * k(T) left out of it turns Newton into a slow fixed-point iteration.
+ */
+export function conductivitySlopeAt(material: Material, hJ: number, tK: number): number {
+  const melt = material.melt;
+  const table = material.conductivity;
+  if (table.y.length === 1) return 0;
+  if (melt === undefined) return tableSlope(table, tK);
+  if (hJ <= melt.hSolidus) return tK < melt.solidTableK ? tableSlope(table, tK) : 0;
+  if (hJ >= melt.hLiquidus) return tK > melt.liquidTableK ? tableSlope(table, tK) : 0;
+  return 0;
+}
+
 /**
  * Conductivity of a two-phase cell with liquid fraction f: its solid and liquid parts in series across the cell,
  * 1/k = (1 − f)/k_s + f/k_l (a plane front parallel to the layers, as in a 1D stack). Without it, a cell sitting at an
@@ -212,6 +242,23 @@ export function conductivityAt(material: Material, hJ: number, tK: number): numb
  */
 export function mushConductivity(melt: Melt, liquidFraction: number): number {
   return 1 / ((1 - liquidFraction) / melt.kSolid + liquidFraction / melt.kLiquid);
+}
+
+/**
+ * The same material with its volumetric enthalpy measured from `originJ` (J/m³): every enthalpy of the curve and of
+ * the melt moves by −originJ, nothing else changes. The solver measures each cell from its initial state, so the
+ * stored energy it books is a difference of small numbers and round-off scales with what moves, not with the
+ * arbitrary zero of the curve (a cell at rest would otherwise book ε·H of noise per step).
+ */
+export function withEnthalpyOrigin(material: Material, originJ: number): Material {
+  const e = material.enthalpy;
+  const shift = (a: Float64Array) => Float64Array.from(a, (v) => v - originJ);
+  const melt = material.melt;
+  return {
+    ...material,
+    enthalpy: { tK: e.tK, h: shift(e.h), cLeft: e.cLeft, cRight: e.cRight, kinks: shift(e.kinks) },
+    melt: melt ? { ...melt, hSolidus: melt.hSolidus - originJ, hLiquidus: melt.hLiquidus - originJ } : undefined,
+  };
 }
 
 /** H(T), J/m³, for T in K. */

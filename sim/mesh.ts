@@ -5,6 +5,7 @@
  * smoothly, which keeps the scheme second order. A contact resistance sits on the face between two layers.
  */
 import type { Material } from './material.ts';
+import { enthalpyAt, withEnthalpyOrigin } from './material.ts';
 import type { Problem } from './problem.ts';
 import { METRES_PER_MM } from './units.ts';
 
@@ -24,6 +25,7 @@ export interface Grid {
   readonly totalM: number;
   /** Layer index of each cell. */
   readonly layerOf: Int32Array;
+  /** Material of each cell, its enthalpy measured from the initial temperature (withEnthalpyOrigin). */
   readonly materials: readonly Material[];
   /** Contact resistance on the face above cell i (between cells i and i+1), m²·K/W; 0 inside a layer. */
   readonly contactAbove: Float64Array;
@@ -67,6 +69,7 @@ export function buildGrid(problem: Problem, refine = 1): Grid {
   layers.forEach((layer, li) => {
     const m = counts[li]!;
     const faces = gradedFaces(m);
+    const material = withEnthalpyOrigin(layer.material, enthalpyAt(layer.material.enthalpy, problem.initialK));
     layerStart[li] = cell;
     for (let j = 0; j < m; j++) {
       const lo = base + faces[j]! * layer.thicknessM;
@@ -74,7 +77,7 @@ export function buildGrid(problem: Problem, refine = 1): Grid {
       dx[cell] = hi - lo;
       xc[cell] = 0.5 * (lo + hi);
       layerOf[cell] = li;
-      materials.push(layer.material);
+      materials.push(material);
       cell++;
     }
     layerEnd[li] = cell;

@@ -147,7 +147,7 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
     row[1] = kToC(T[0]!);
     row[2] = kToC(T[n + 1]!);
     for (let li = 0; li < layerCount; li++) {
-      const material = problem.layers[li]!.material;
+      const material = grid.materials[grid.layerStart[li]!]!; // the grid's own enthalpy origin
       let lo = Infinity;
       let hi = -Infinity;
       let sum = 0;

@@ -179,8 +179,9 @@ function stopAtKink(kinks: Float64Array, old: number, next: number, nudge: numbe
  * Takes one step of size h from buf.U0 (whose rates buf.F0, buf.q0 are current under `cond`). On 'ok' the end state
  * is in buf.U1/F1/q1 and the stage state in buf.Ug/Fg/qg; buf.U0 is untouched either way.
  * The error of each cell's enthalpy is measured as what it does to the reported quantities: its temperature (through
- * the secant dT/dH over the step, which is zero while a cell sits on an isothermal plateau) and its liquid fraction
- * (error / ρL). So a cell crossing a kink of T(H) is judged by its real effect, not by the kink.
+ * the secant dT/dH over the step, which is zero while a cell sits on an isothermal plateau) and, for a cell in or
+ * across its melt, its liquid fraction (error / ρL, or the temperature measure if that allows more). So a cell
+ * crossing a kink of T(H) is judged by its real effect, not by the kink.
  */
 export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepConditions, newton: NewtonSettings,
   scale: ErrorScale, backwardEuler: boolean, outcome: StepOutcome): StepOutcome {
@@ -240,7 +241,17 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
     const secant = dH > ws.capacity[i]! * KINK_NUDGE_K ? Math.abs(T1[i + 1]! - T0[i + 1]!) / dH : ws.tau[i + 1]!;
     let e = (z * secant) / scale.toleranceK;
     const latent = ws.latent[i]!;
-    if (latent > 0) e = Math.max(e, z / (scale.liquidFraction * latent));
+    if (latent > 0) {
+      // the liquid-fraction error counts only for a cell in or across its melt over the step, and is measured
+      // against the larger of the two allowances, so it fades into the temperature measure as the latent heat → 0
+      // (a latent heat of 1e-6 J/kg must cost what no melt costs)
+      const melt = grid.materials[i]!.melt!;
+      const a = U0[i + 1]!;
+      const b = U1[i + 1]!;
+      if (Math.min(a, b) <= melt.hLiquidus + z && Math.max(a, b) >= melt.hSolidus - z) {
+        e = Math.max(e, z / Math.max(scale.liquidFraction * latent, scale.toleranceK * ws.capacity[i]!));
+      }
+    }
     if (!(e <= worst)) worst = e;
   }
   outcome.errorNorm = worst;
@@ -279,6 +290,10 @@ export function settleFaces(ws: Workspace, U: Float64Array, cond: StepConditions
     }
     if (worst <= toleranceK) {
       evaluate(ws, U, cond);
+      // book as the face's heat input exactly what its half cell conducts inwards: the Newton remainder of the face
+      // balance (up to tolerance × (G + |dq/dT|), large beside a stiff plate) then stays out of the energy ledger
+      if (cond.bottom.kind !== 'fixed') ws.faceQ[0] = ws.G[0]! * (ws.T[0]! - ws.T[1]!);
+      if (cond.top.kind !== 'fixed') ws.faceQ[1] = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!);
       return true;
     }
     if (!Number.isFinite(worst)) return false;

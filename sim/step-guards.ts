@@ -1,0 +1,67 @@
+/**
+ * What the time loop watches besides the local error: the smallest step worth taking, the work a run may take, and
+ * the physical end of a run whose heat extraction outruns the stack (its temperature would fall below absolute zero).
+ *
+ * The smallest step is tied to the stack itself, not to the duration: a cell of capacity C·Δx between conductances
+ * G₋ and G₊ relaxes with the time constant τ = C·Δx/(G₋ + G₊) (the cell's own eigenvalue of the semi-discrete heat
+ * equation, Patankar 1980 §4.3). A step far below the smallest τ resolves nothing the grid can show: the error
+ * estimate there is measuring the start-up transient of a thin cell after an abrupt change (a held face switched on),
+ * which TR-BDF2 damps anyway (L-stable). So below that floor the step is taken and accepted at the floor.
+ */
+import type { StepConditions, Workspace } from './discretization.ts';
+import type { Problem } from './problem.ts';
+
+export const stepGuardDefaults = {
+  /** Smallest step as a share of the smallest cell relaxation time: a tenth resolves a thin cell's transient. */
+  floorShare: 0.1,
+  /** …and never below this share of the time reached, so that t + h differs from t in double precision (ε ≈ 2e-16). */
+  floorRelative: 1e-12,
+  /**
+   * Work budget, cells × steps (accepted and rejected): about half a minute at the measured 4–8 M cell-updates/s with
+   * 4–8 Newton sweeps a step. A run needing more ends with a message saying what to change.
+   */
+  maxCellSteps: 5e7,
+} as const;
+
+/** The smallest cell relaxation time C·Δx/(G₋ + G₊), s, at the state last evaluated into ws. */
+export function smallestRelaxationS(ws: Workspace): number {
+  let least = Infinity;
+  for (let i = 0; i < ws.n; i++) {
+    const tau = (ws.capacity[i]! * ws.grid.dx[i]!) / (ws.G[i]! + ws.G[i + 1]!);
+    if (tau < least) least = tau;
+  }
+  return least;
+}
+
+/** The coldest node temperature, K. */
+export function coldestK(T: Float64Array): number {
+  let least = Infinity;
+  for (let j = 0; j < T.length; j++) if (!(T[j]! >= least)) least = T[j]!;
+  return least;
+}
+
+/**
+ * The physical message for a stack driven below absolute zero at about tS: names the largest heat extraction at
+ * that time (a face's net heat input, or a layer's volumetric source) so the user knows what to change.
+ */
+export function belowAbsoluteZeroMessage(problem: Problem, ws: Workspace, cond: StepConditions, faceQ: Float64Array, tS: number): string {
+  let what = 'the heat drawn from the stack';
+  let most = 0;
+  const faces = [['bottom', faceQ[0]!], ['top', faceQ[1]!]] as const;
+  for (const [side, q] of faces) {
+    if (q < -most) { most = -q; what = `the heat drawn from the ${side} face`; }
+  }
+  problem.layers.forEach((layer, li) => {
+    let drawn = 0;
+    for (let i = ws.grid.layerStart[li]!; i < ws.grid.layerEnd[li]!; i++) drawn -= cond.source[i]! * ws.grid.dx[i]!;
+    if (drawn > most) { most = drawn; what = `the heat drawn by the source in layer ${layer.id}`; }
+  });
+  return `${what} exceeds what the stack holds: its temperature would fall below absolute zero at t = ${formatTime(tS)} s`;
+}
+
+/** The message for a run that would need more work than the budget allows. */
+export function budgetMessage(cells: number, steps: number, tS: number, durationS: number, hS: number): string {
+  return `the run would exceed its step budget (${stepGuardDefaults.maxCellSteps.toExponential(0)} cells × steps: ${steps} steps of ${cells} cells reached t = ${formatTime(tS)} of ${formatTime(durationS)} s, the step near ${hS.toPrecision(2)} s); shorten duration_s, use fewer cells, or loosen numerics.tolerance_K`;
+}
+
+const formatTime = (t: number): string => (t >= 1e5 || (t > 0 && t < 1e-3) ? t.toPrecision(4) : String(Number(t.toPrecision(6))));

@@ -1,0 +1,145 @@
+// fast-check arbitraries of valid scenarios across the ranges a sweep or a careless user may reach: 1–8 layers from
+// 1 µm to 100 mm, library and inline materials (tabulated k(T) and cp(T) with steep rises, tiny and zero latent heat,
+// isothermal melts), imposed fluxes to ±1e6 W/m², plates and held faces to 2000 °C, volumetric sources of both signs,
+// durations from 1 s to 1e7 s. Every scenario is valid JSON of the contract (DESIGN.md, "Scenario file"); shrinking
+// turns a failure into a small reproducer. The data are invented: they probe the solver, they describe no real cell.
+
+import fc from 'fast-check';
+import { libraryMaterial, libraryNames } from '../../sim/library.ts';
+import type { FaceSegmentFile, InlineMaterialFile, LayerFile, ScenarioFile } from '../../sim/scenario-schema.ts';
+
+/** Values with three significant digits, so a reproducer reads as data. */
+const round = (v: number): number => Number(v.toPrecision(3));
+/** Temperatures to 0.01 K, so the rows of a table stay strictly increasing after rounding. */
+const roundT = (v: number): number => Math.round(v * 100) / 100;
+/** A log-uniform number in [lo, hi]. */
+const logRange = (lo: number, hi: number) =>
+  fc.double({ min: Math.log(lo), max: Math.log(hi), noNaN: true }).map((x) => round(Math.exp(x)));
+const range = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true }).map((v) => (Math.abs(v) < 1e-6 ? 0 : round(v)));
+
+const library = libraryNames();
+const libraryMelting = library.filter((name) => libraryMaterial(name)?.melt !== undefined);
+
+type Property = InlineMaterialFile['k_W_mK'];
+
+/** A property: a number, a flat or gently rising table, or a steep rise (up to ×130 over 50 K). */
+const property = (lo: number, hi: number): fc.Arbitrary<Property> => fc.oneof(
+  logRange(lo, hi),
+  fc.tuple(logRange(lo, hi), range(-50, 1500), range(1, 3)).map(([v, at, f]): Property => [[roundT(at), v], [roundT(at + 500), round(v * f)]]),
+  fc.tuple(logRange(lo, hi), range(0, 1500), logRange(1, 130), logRange(1, 50))
+    .map(([v, at, f, width]): Property => [[roundT(at), v], [roundT(at + width), round(v * f)]]),
+);
+
+/** A melt: isothermal or over a range, latent heat from zero through tiny to large. */
+const melt = fc.record({
+  solidus_C: range(-100, 1800),
+  span: fc.oneof(fc.constant(0), logRange(0.01, 200)),
+  latent_J_kg: fc.oneof(fc.constant(0), fc.constant(1e-6), logRange(1e-6, 1), logRange(1e3, 1e6)),
+}).map((m) => ({ solidus_C: roundT(m.solidus_C), liquidus_C: roundT(roundT(m.solidus_C) + m.span), latent_J_kg: m.latent_J_kg }));
+
+const inlineMaterial: fc.Arbitrary<InlineMaterialFile> = fc.record({
+  k_W_mK: property(0.01, 400),
+  rho_kg_m3: logRange(10, 20000),
+  cp_J_kgK: property(100, 5000),
+  melt: fc.option(melt, { nil: undefined, freq: 2 }),
+}).map((m) => (m.melt === undefined ? { k_W_mK: m.k_W_mK, rho_kg_m3: m.rho_kg_m3, cp_J_kgK: m.cp_J_kgK } : m));
+
+const temperature = range(-60, 2000);
+
+/** One face segment from `from` (s): a held temperature alone, or any sum of the other terms. */
+const segment = (from: number, natural: boolean): fc.Arbitrary<FaceSegmentFile> => fc.oneof(
+  { weight: 1, arbitrary: temperature.map((t): FaceSegmentFile => ({ from_s: from, fixed_C: t })) },
+  {
+    weight: 4,
+    arbitrary: fc.record({
+      flux_W_m2: fc.option(fc.oneof(range(-1e6, 1e6), range(-1e3, 1e3)), { nil: undefined }),
+      power_W: fc.option(natural ? range(-50, 200) : fc.constant(undefined), { nil: undefined }),
+      convection_W_m2K: fc.option(natural ? fc.oneof(logRange(0.1, 1e4), fc.constant('natural' as const)) : logRange(0.1, 1e4), { nil: undefined }),
+      fluid_C: fc.option(temperature, { nil: undefined }),
+      emissivity: fc.option(range(0, 1), { nil: undefined }),
+      surroundings_C: fc.option(temperature, { nil: undefined }),
+      plate: fc.option(fc.record({ temperature_C: temperature, conductance_W_m2K: logRange(1, 1e6) }), { nil: undefined }),
+    }).map((terms) => {
+      const seg: FaceSegmentFile = { from_s: from };
+      for (const [key, value] of Object.entries(terms)) if (value !== undefined) Object.assign(seg, { [key]: value });
+      return seg;
+    }),
+  },
+);
+
+/** A face schedule of one to three segments, the first from 0, each later one inside the run. */
+const schedule = (duration: number, natural: boolean): fc.Arbitrary<FaceSegmentFile[]> =>
+  fc.uniqueArray(range(0, 0.999).map((f) => round(f * duration)), { maxLength: 2 })
+    .chain((starts) => {
+      const froms = [...new Set([0, ...starts])].sort((a, b) => a - b);
+      return fc.tuple(...froms.map((from) => segment(from, natural)));
+    });
+
+interface LayerDraft {
+  readonly material: InlineMaterialFile | string;
+  readonly thicknessMm: number;
+  readonly separator: boolean;
+  readonly source: { from: number; to: number; value: number } | undefined;
+  readonly contact: number | undefined;
+}
+
+const layerDraft = (duration: number): fc.Arbitrary<LayerDraft> => fc.record({
+  material: fc.oneof(inlineMaterial, fc.constantFrom(...library)),
+  thicknessMm: logRange(0.001, 100),
+  separator: fc.boolean(),
+  source: fc.option(fc.record({ from: range(0, 0.99), to: range(0, 1), value: fc.oneof(range(-1e8, 1e8), range(-1e5, 1e6)) })
+    .map((s) => ({ from: round(s.from * duration), to: round(Math.max(s.from, s.to) * duration), value: s.value })), { nil: undefined, freq: 3 }),
+  contact: fc.option(logRange(1e-6, 1), { nil: undefined }),
+});
+
+const melts = (m: InlineMaterialFile | string): boolean =>
+  (typeof m === 'string' ? libraryMelting.includes(m) : m.melt !== undefined);
+
+/** A valid scenario across the ranges above. */
+export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = fc.record({
+  duration: fc.oneof(logRange(1, 1e7), logRange(1, 3600)),
+  ambient: range(-40, 60),
+  initial: fc.option(range(-60, 1500), { nil: undefined }),
+  footprint: fc.option(fc.oneof(
+    logRange(1, 500).map((d) => ({ diameter_mm: d })),
+    fc.tuple(logRange(1, 500), logRange(1, 500)).map(([w, l]) => ({ width_mm: w, length_mm: l })),
+  ), { nil: undefined }),
+}).chain((base) => {
+  const natural = base.footprint !== undefined;
+  return fc.record({
+    base: fc.constant(base),
+    layers: fc.array(layerDraft(base.duration), { minLength: 1, maxLength: 8 }),
+    bottom: schedule(base.duration, natural),
+    top: schedule(base.duration, natural),
+    outputs: fc.uniqueArray(range(0, 1).map((f) => round(f * base.duration)), { maxLength: 4 }),
+  });
+}).map(({ base, layers, bottom, top, outputs }) => {
+  const materials: Record<string, InlineMaterialFile> = {};
+  const files: LayerFile[] = layers.map((l, i) => {
+    let name: string;
+    if (typeof l.material === 'string') name = l.material;
+    else { name = `m${i}`; materials[name] = l.material; }
+    const valid = l.source !== undefined && l.source.to > l.source.from;
+    return {
+      id: `L${i}`, material: name, thickness_mm: l.thicknessMm,
+      ...(l.separator && melts(l.material) ? { separator: true } : {}),
+      ...(valid ? { source_W_m3: [{ from_s: l.source!.from, to_s: l.source!.to, value: l.source!.value }] } : {}),
+    };
+  });
+  const contacts = layers.slice(1).flatMap((l, i) =>
+    (l.contact === undefined ? [] : [{ below: `L${i}`, above: `L${i + 1}`, resistance_m2K_W: l.contact }]));
+  return {
+    freezeline: 1,
+    name: 'fuzzed scenario',
+    ambient_C: base.ambient,
+    ...(base.initial !== undefined ? { initial_C: base.initial } : {}),
+    duration_s: base.duration,
+    ...(base.footprint ? { footprint: base.footprint } : {}),
+    materials,
+    layers: files,
+    ...(contacts.length > 0 ? { contacts } : {}),
+    bottom,
+    top,
+    ...(outputs.length > 0 ? { output: { times_s: outputs.filter((t) => t > 0) } } : {}),
+  } satisfies ScenarioFile;
+});

@@ -1,0 +1,97 @@
+// The fuzz properties, checked on one scenario (issue 9, "A fuzz suite"):
+//   finishes, or stops with a message that says what is physically wrong (never "time step fell below", never NaN);
+//   every number finite; no temperature below absolute zero; the energy ledger balanced relative to its largest term
+//   (or, when nothing moves, absolutely within round-off); the maximum principle when there is no heat input.
+// Bounded time and memory are measured by the callers (the test tier by its timeout, `npm run fuzz` by its figures).
+
+import { resultDocument } from '../../sim/result.ts';
+import { runProblem } from '../../sim/run.ts';
+import { parseScenario } from '../../sim/scenario.ts';
+import type { ScenarioFile } from '../../sim/scenario-schema.ts';
+import { ZERO_C_IN_K } from '../support/scenarios.ts';
+
+export type FuzzKind = 'finished' | 'stopped' | 'refused' | 'violation';
+
+export interface FuzzOutcome {
+  readonly kind: FuzzKind;
+  /** The solver's stop message, the refusal, or what property failed. */
+  readonly message: string;
+  readonly ms: number;
+  readonly cells: number;
+  readonly steps: number;
+}
+
+/** Stop messages that name a physical cause (evolve.ts). Anything else is a violation. */
+export const PHYSICAL_STOPS = [/would fall below absolute zero/, /exceed its step budget/];
+
+/**
+ * Energy balance: the imbalance relative to the largest term. Each step closes to round-off (tr-bdf2.ts), so the
+ * ledger drifts by about (steps × cells) roundings of the stored enthalpy; 1e-9 leaves room for 1e5 steps of 1e3
+ * cells at double precision (2.2e-16 each) with a margin.
+ */
+const ENERGY_REL = 1e-9;
+/** Unit round-off of IEEE 754 double precision, 2⁻⁵³. */
+const UNIT_ROUNDOFF = 2 ** -53;
+/**
+ * Maximum principle slack, K: Newton stops within 1e-2 of tolerance_K (evolve.ts), and tolerance_K defaults to 0.2 K;
+ * the discrete solution itself obeys the bound (L-stable steps, M-matrix Jacobian: Patankar 1980 §4.3). Twice that.
+ */
+const BOUND_SLACK_K = 4e-3;
+
+function bounds(s: ScenarioFile): [number, number] | undefined {
+  const temps = [s.initial_C ?? s.ambient_C, s.ambient_C];
+  for (const seg of [...s.bottom, ...s.top]) {
+    if ((seg.flux_W_m2 ?? 0) !== 0 || (seg.power_W ?? 0) !== 0) return undefined;
+    for (const t of [seg.fixed_C, seg.fluid_C, seg.surroundings_C, seg.plate?.temperature_C]) if (t !== undefined) temps.push(t);
+  }
+  for (const l of s.layers) if (l.source_W_m3 !== undefined) return undefined;
+  return [Math.min(...temps), Math.max(...temps)];
+}
+
+export function checkScenario(scenario: ScenarioFile): FuzzOutcome {
+  const parsed = parseScenario(scenario);
+  if (!parsed.ok) return { kind: 'refused', message: parsed.errors.map((e) => `${e.path}: ${e.message}`).join('; '), ms: 0, cells: 0, steps: 0 };
+  const t0 = performance.now();
+  const out = runProblem(parsed.problem);
+  const ms = performance.now() - t0;
+  if (out.status === 'cancelled') return { kind: 'violation', message: 'cancelled without being asked', ms, cells: 0, steps: 0 };
+  if (out.status === 'failed') {
+    const physical = PHYSICAL_STOPS.some((re) => re.test(out.message));
+    return { kind: physical ? 'stopped' : 'violation', message: out.message, ms, cells: 0, steps: out.stats.steps };
+  }
+  const { record, summary, grid, stats } = out;
+  const base = { ms, cells: grid.n, steps: stats.steps };
+  const violation = (message: string): FuzzOutcome => ({ kind: 'violation', message, ...base });
+  try {
+    resultDocument(parsed.problem, grid, record, summary, stats);
+  } catch (e) {
+    return violation((e as Error).message);
+  }
+  let coldest = Infinity;
+  let hottest = -Infinity;
+  for (const v of record.map.data) {
+    if (!Number.isFinite(v)) return violation(`map value ${v}`);
+    coldest = Math.min(coldest, v);
+    hottest = Math.max(hottest, v);
+  }
+  for (const l of record.layers) {
+    for (const v of l.minC) coldest = Math.min(coldest, v);
+    for (const v of l.maxC) hottest = Math.max(hottest, v);
+  }
+  if (coldest < -ZERO_C_IN_K) return violation(`a temperature of ${coldest} °C, below absolute zero`);
+  const e = summary.energy;
+  const imbalance = Math.abs(e.stored_J_m2 - (e.in_J_m2 - e.out_J_m2));
+  const initialC = scenario.initial_C ?? scenario.ambient_C;
+  const swingK = Math.max(hottest - initialC, initialC - coldest, 1);
+  let capacity = 0;
+  for (let i = 0; i < grid.n; i++) capacity += grid.materials[i]!.density * Math.max(...grid.materials[i]!.specificHeat.y) * grid.dx[i]!;
+  // at rest: the round-off of summing the stored enthalpy, u·Σ|H_i|·Δx_i per step (Higham, Accuracy and Stability of
+  // Numerical Algorithms, 2002, §4.2), with |H_i| ≤ ρc_p·(temperature swing) since enthalpy is counted from the start
+  const atRest = UNIT_ROUNDOFF * (stats.steps + 1) * capacity * swingK;
+  if (!(e.imbalance_rel <= ENERGY_REL || imbalance <= atRest)) return violation(`energy imbalance ${e.imbalance_rel} of the largest term (in ${e.in_J_m2}, out ${e.out_J_m2}, stored ${e.stored_J_m2} J/m²)`);
+  const b = bounds(scenario);
+  if (b && (coldest < b[0] - BOUND_SLACK_K || hottest > b[1] + BOUND_SLACK_K)) {
+    return violation(`without heat input the temperatures ${coldest}–${hottest} °C leave [${b[0]}, ${b[1]}] °C`);
+  }
+  return { kind: 'finished', message: '', ...base };
+}
