@@ -32,6 +32,9 @@ function showChar(text: string, at: number): string {
   const code = text.codePointAt(at)!;
   const hex = `U+${code.toString(16).toUpperCase().padStart(4, '0')}`;
   if (code === BOM) return `${hex} (a byte-order mark, invisible in most editors)`;
+  // what a UTF-16 file or a file in a legacy code page looks like once decoded as UTF-8
+  if (code === 0) return `${hex} (a zero byte: is the file saved as UTF-16? save it as UTF-8)`;
+  if (code === 0xfffd) return `${hex} (bytes that are not UTF-8: save the file as UTF-8)`;
   if (code < 0x20 || (code >= 0x7f && code < 0xa0) || code === 0x2028 || code === 0x2029) return `${hex} (an invisible control character)`;
   if (code === 0xa0 || code === 0x200b) return `${hex} (an invisible space)`;
   const ch = String.fromCodePoint(code);

@@ -59,6 +59,9 @@ describe('readJsonText()', () => {
     expect(says("{'a': 1}")).toContain('double quotes');
     expect(says('{"a": "open')).toContain('never closed');
     expect(says('{"a": 1}\u00a0')).toContain('U+00A0');
+    // UTF-16LE bytes of `{"a"` read as UTF-8, and a Latin-1 "°" (0xB0) decoded by TextDecoder as U+FFFD
+    expect(says(Buffer.from('{"a": 1}', 'utf16le').toString('utf8'))).toContain('saved as UTF-16');
+    expect(says(new TextDecoder().decode(Uint8Array.of(0x7b, 0x22, 0x61, 0x22, 0x3a, 0xb0, 0x7d)))).toContain('not UTF-8');
   });
 
   it('readJsonText() refuses a key given twice in one object, naming its path and both lines', () => {
