@@ -4,7 +4,7 @@
  */
 import { compositeMaterial } from './composite.ts';
 import type { FieldError } from './field-errors.ts';
-import { libraryMaterial } from './library.ts';
+import { libraryMaterial, unknownMaterialMessage } from './library.ts';
 import type { Limit, Material } from './material.ts';
 import { materialFromFile } from './material-file.ts';
 import type { CompositeFile } from './rig-schema.ts';
@@ -16,12 +16,12 @@ const show = (v: unknown): string => JSON.stringify(v);
 
 function compositeOf(name: string, c: CompositeFile, path: string, errors: FieldError[]): Material | undefined {
   const matrix = libraryMaterial(c.matrix);
-  if (!matrix) errors.push({ path: `${path}.matrix`, message: `unknown library material, got ${show(c.matrix)}` });
+  if (!matrix) errors.push({ path: `${path}.matrix`, message: unknownMaterialMessage(c.matrix, []) });
   else if (matrix.melt) errors.push({ path: `${path}.matrix`, message: `the matrix must be a material that does not melt, got ${show(c.matrix)}` });
   let salt: Material | undefined;
   if (typeof c.salt === 'string') {
     salt = libraryMaterial(c.salt);
-    if (!salt) errors.push({ path: `${path}.salt`, message: `unknown library material, got ${show(c.salt)}` });
+    if (!salt) errors.push({ path: `${path}.salt`, message: unknownMaterialMessage(c.salt, []) });
     else if (!salt.melt) errors.push({ path: `${path}.salt`, message: `the salt must have melt data, got ${show(c.salt)}` });
   } else {
     const x = liclMoleFraction(c.salt, `${path}.salt`, errors);
