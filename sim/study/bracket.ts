@@ -40,11 +40,15 @@ export function scanValues(lo: number, hi: number, count: number, extra: readonl
   return [...new Set([...xs, ...extra.filter((x) => x >= lo && x <= hi)])].sort((a, b) => a - b);
 }
 
+/** 'illinois' follows the response's slope (it must be continuous); 'bisection' halves (a yes/no response). */
+export type NarrowMethod = 'illinois' | 'bisection';
+
 /**
  * Narrows one bracket (a and b on opposite sides of the set's edge, a.x < b.x) until the ends are ≤ tol apart.
  * `sample(x)` runs the model at x.
  */
-export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number): Crossing<P> {
+export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number,
+  method: NarrowMethod = 'illinois'): Crossing<P> {
   let a = a0;
   let b = b0;
   const aInside = inside(a.y);
@@ -57,7 +61,7 @@ export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => b
   while (b.x - a.x > tol) {
     const width = b.x - a.x;
     const secant = fa !== fb && Number.isFinite(fa) && Number.isFinite(fb) ? a.x + (width * fa) / (fa - fb) : Number.NaN;
-    let x = bisectNext || !Number.isFinite(secant) ? a.x + width / 2 : secant;
+    let x = method === 'bisection' || bisectNext || !Number.isFinite(secant) ? a.x + width / 2 : secant;
     const guard = Math.min(tol / 2, width / 4);
     x = Math.min(Math.max(x, a.x + guard), b.x - guard);
     const s = sample(x);
@@ -78,12 +82,13 @@ export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => b
 }
 
 /** Every crossing between neighbours of a sorted scan, each narrowed to tol. */
-export function crossings<P>(scan: readonly Sample<P>[], inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number): Crossing<P>[] {
+export function crossings<P>(scan: readonly Sample<P>[], inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number,
+  method: NarrowMethod = 'illinois'): Crossing<P>[] {
   const found: Crossing<P>[] = [];
   for (let i = 1; i < scan.length; i++) {
     const a = scan[i - 1]!;
     const b = scan[i]!;
-    if (inside(a.y) !== inside(b.y)) found.push(narrow(a, b, inside, sample, tol));
+    if (inside(a.y) !== inside(b.y)) found.push(narrow(a, b, inside, sample, tol, method));
   }
   return found;
 }

@@ -113,8 +113,7 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
     return p;
   };
   const marginY = (p: WindowPoint) => (p.margin_K === null ? Infinity : p.margin_K - required);
-  // molten or not is all a summary-only run tells exactly, so that edge is found by bisection (±1: the secant of
-  // bracket.ts then falls on the midpoint)
+  // molten or not is all a summary-only run tells exactly, so that edge is found by bisection
   const meltY = (p: WindowPoint) => (p.molten_at_s !== null ? 1 : -1);
   const isSafe = (y: number) => y > 0;
   const isMolten = (y: number) => y >= 0;
@@ -127,7 +126,7 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
   const marginScan = scan.map((p) => samplesOf(marginY)(p.value));
   const meltScan = scan.map((p) => samplesOf(meltY)(p.value));
   const safeEdges = crossings(marginScan, isSafe, samplesOf(marginY), tol);
-  const meltEdges = crossings(meltScan, isMolten, samplesOf(meltY), tol);
+  const meltEdges = crossings(meltScan, isMolten, samplesOf(meltY), tol, 'bisection');
   const safe = intervals(marginScan, safeEdges, isSafe);
   const molten = intervals(meltScan, meltEdges, isMolten);
 

@@ -1,0 +1,92 @@
+// The scan-and-narrow machinery of the window search (sim/study/bracket.ts) on closed-form functions whose edges are
+// known exactly: a line, a cubic, a step (bisection only), and a function with two intervals.
+
+import { describe, expect, it } from 'vitest';
+import { crossings, intervals, narrow, scanValues, type Sample } from '../../sim/study/bracket.ts';
+import { assertClose } from '../support/assert-close.ts';
+
+/** A sampler of f that counts its calls. */
+function sampler(f: (x: number) => number) {
+  let calls = 0;
+  const sample = (x: number): Sample<null> => { calls++; return { x, y: f(x), point: null }; };
+  return { sample, calls: () => calls };
+}
+const positive = (y: number) => y > 0;
+
+describe('scanValues()', () => {
+  it('scanValues() spaces the values evenly with both ends, adds extras inside the range, sorted and without repeats', () => {
+    expect(scanValues(0, 10, 6)).toEqual([0, 2, 4, 6, 8, 10]);
+    expect(scanValues(0, 10, 3, [5, 7, 11, -1])).toEqual([0, 5, 7, 10]);
+    expect(scanValues(2, 4, 1)).toEqual([2]);
+  });
+});
+
+describe('narrow()', () => {
+  it('narrow() brackets the root of a line to the tolerance in a few calls (regula falsi is exact on a line)', () => {
+    const s = sampler((x) => 3 - x); // inside (> 0) below x = 3
+    const c = narrow(s.sample(0), s.sample(10), positive, s.sample, 0.5);
+    expect(c.direction).toBe('leave');
+    expect(c.inside.x).toBeLessThanOrEqual(3);
+    expect(c.outside.x).toBeGreaterThanOrEqual(3);
+    expect(c.outside.x - c.inside.x).toBeLessThanOrEqual(0.5);
+    // two for the ends, then the secant lands on 3 and the tol/2 guard closes the bracket: at most 3 more
+    expect(s.calls()).toBeLessThanOrEqual(5);
+  });
+
+  it('narrow() finds where a cubic enters the set, from either end, within the tolerance', () => {
+    const root = Math.cbrt(20); // x³ − 20 = 0
+    const s = sampler((x) => x ** 3 - 20);
+    const c = narrow(s.sample(0), s.sample(5), positive, s.sample, 1e-3);
+    expect(c.direction).toBe('enter');
+    assertClose(c.inside.x, root, { abs: 1e-3 }, 'edge');
+    expect(c.inside.x).toBeGreaterThanOrEqual(root);
+    expect(c.outside.x).toBeLessThanOrEqual(root);
+    // bisection alone would need log2(5/1e-3) ≈ 13 calls; the Illinois steps must beat it
+    expect(s.calls() - 2).toBeLessThan(13);
+  });
+
+  it('narrow() by bisection on a step (no slope to follow) halves to the tolerance and keeps the edge inside the bracket', () => {
+    const s = sampler((x) => (x >= 1.234 ? 1 : -1));
+    const c = narrow(s.sample(0), s.sample(8), (y) => y >= 0, s.sample, 0.01, 'bisection');
+    expect(c.inside.x).toBeGreaterThanOrEqual(1.234);
+    expect(c.outside.x).toBeLessThan(1.234);
+    expect(c.inside.x - c.outside.x).toBeLessThanOrEqual(0.01);
+    // halving 8 to 0.01 takes ⌈log2(800)⌉ = 10 calls; the tol/2 guard may save one
+    expect(s.calls() - 2).toBeLessThanOrEqual(10);
+  });
+
+  it('narrow() refuses two ends on the same side', () => {
+    const s = sampler((x) => x);
+    expect(() => narrow(s.sample(1), s.sample(2), positive, s.sample, 0.1)).toThrow(/same side/);
+  });
+});
+
+describe('crossings() and intervals()', () => {
+  // inside (> 0) on (1, 2) and (4, 6): f = −(x − 1)(x − 2)(x − 4)(x − 6)
+  const f = (x: number) => -(x - 1) * (x - 2) * (x - 4) * (x - 6);
+  it('crossings() refines every change between scan neighbours and intervals() pairs them up', () => {
+    const s = sampler(f);
+    const scan = scanValues(0, 7, 15).map(s.sample); // every 0.5: each edge has its own scan step
+    const found = crossings(scan, positive, s.sample, 1e-3);
+    expect(found.map((c) => c.direction)).toEqual(['enter', 'leave', 'enter', 'leave']);
+    const got = intervals(scan, found, positive);
+    expect(got).toHaveLength(2);
+    [[1, 2], [4, 6]].forEach(([a, b], i) => {
+      assertClose(got[i]!.from, a!, { abs: 1e-3 }, `interval ${i} start`);
+      assertClose(got[i]!.to, b!, { abs: 1e-3 }, `interval ${i} end`);
+      expect(got[i]!.fromRangeEnd || got[i]!.toRangeEnd).toBe(false);
+    });
+  });
+
+  it('intervals() marks an interval that reaches an end of the range, and is empty when nothing is inside', () => {
+    const line = (x: number): Sample<null> => ({ x, y: 5 - x, point: null });
+    const scan = [0, 2, 4, 6, 8].map(line);
+    const found = crossings(scan, positive, line, 0.01);
+    expect(intervals(scan, found, positive)).toEqual([{ from: found[0]!.inside.x, to: found[0]!.inside.x, fromRangeEnd: true, toRangeEnd: false }].map((i) => ({ ...i, from: 0 })));
+    const all = [0, 1, 2].map((x) => ({ x, y: 1, point: null }));
+    expect(intervals(all, [], positive)).toEqual([{ from: 0, to: 2, fromRangeEnd: true, toRangeEnd: true }]);
+    const none = [0, 1, 2].map((x) => ({ x, y: -1, point: null }));
+    expect(intervals(none, [], positive)).toEqual([]);
+    expect(intervals([], [], positive)).toEqual([]);
+  });
+});
