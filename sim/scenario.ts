@@ -8,7 +8,7 @@ import type { Material } from './material.ts';
 import { layerHeatSources } from './heat-sources.ts';
 import { inlineMaterial } from './material-kinds.ts';
 import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from './problem.ts';
-import { capErrors, formatPath, formatZodIssue, quote, type FieldError } from './field-errors.ts';
+import { capErrors, formatPath, formatZodIssue, nearestWord, quote, type FieldError } from './field-errors.ts';
 import { readJsonText } from './json-text.ts';
 import { libraryMaterial, unknownMaterialMessage } from './library.ts';
 import { scenarioLimitDefaults, sizeErrors, workErrors } from './scenario-limits.ts';
@@ -204,6 +204,13 @@ function buildLayers(s: ScenarioFile, materials: Map<string, Material>, errors: 
   });
 }
 
+/** An id that names no layer: the nearest one (a likely typo) and the ids there are. */
+function unknownLayerMessage(id: string, s: ScenarioFile): string {
+  const ids = s.layers.map((l) => l.id);
+  const hint = nearestWord(id, ids);
+  return `unknown layer id${hint ? ` (did you mean ${show(hint)}?)` : ''}; the layers, bottom to top: ${ids.map(show).join(', ')}; got ${show(id)}`;
+}
+
 function contactResistances(s: ScenarioFile, errors: FieldError[]): number[] {
   const index = new Map(s.layers.map((l, i) => [l.id, i] as const));
   const resistances = new Array<number>(Math.max(s.layers.length - 1, 0)).fill(0);
@@ -211,8 +218,8 @@ function contactResistances(s: ScenarioFile, errors: FieldError[]): number[] {
   (s.contacts ?? []).forEach((c, i) => {
     const below = index.get(c.below);
     const above = index.get(c.above);
-    if (below === undefined) errors.push({ path: `contacts[${i}].below`, message: `unknown layer id, got ${show(c.below)}` });
-    if (above === undefined) errors.push({ path: `contacts[${i}].above`, message: `unknown layer id, got ${show(c.above)}` });
+    if (below === undefined) errors.push({ path: `contacts[${i}].below`, message: unknownLayerMessage(c.below, s) });
+    if (above === undefined) errors.push({ path: `contacts[${i}].above`, message: unknownLayerMessage(c.above, s) });
     if (below === undefined || above === undefined) return;
     if (above !== below + 1) {
       errors.push({ path: `contacts[${i}].above`, message: `must be the layer directly above ${show(c.below)} (${show(s.layers[below + 1]?.id ?? null)}), got ${show(c.above)}` });

@@ -82,6 +82,13 @@ describe('messages for people', () => {
     expect(message.endsWith('got "nickle"')).toBe(true);
   });
 
+  it('parseScenario() names the nearest layer to a misspelt id in a contact and lists the layers', () => {
+    const s = base();
+    s.contacts = [{ below: 'A', above: 'bb', resistance_m2K_W: 1e-4 }];
+    expect(messageAt(s, 'contacts[0].below')).toBe('unknown layer id (did you mean "a"?); the layers, bottom to top: "a", "b"; got "A"');
+    expect(messageAt(s, 'contacts[0].above')).toContain('did you mean "b"?');
+  });
+
   it('parseScenario() suggests nothing for a name unlike any material', () => {
     const s = base();
     layer(s, 1).material = 'unobtainium';
