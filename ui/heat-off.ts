@@ -1,6 +1,6 @@
 /**
  * Where the bottom heating ends: the first bottom row that follows a heating row (a held plate, a held face, or a
- * positive flux or heater power) and is not one itself. Its `from_s` is "the heater removed at t = …".
+ * positive flux or heater power) and is not one itself. Its `from_s` is "heat off at …".
  */
 import { asList, asNumber, isObject, type Json } from './json.ts';
 

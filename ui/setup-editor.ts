@@ -1,8 +1,9 @@
 /**
  * The run's setting: name, ambient and initial temperature, footprint, duration, and the one-line heater control
- * ("heater removed at t = … s", test hook `heat-off-s`), which edits the `from_s` of the bottom row where the heating
+ * ("heat off at", the wording table's term; test hook `heat-off-s`), which edits the `from_s` of the bottom row where the heating
  * ends — the same value as that row's own "from" field, kept in step with it.
  */
+import { verdictTerms } from '../sim/wording.ts';
 import type { DraftStore } from './draft.ts';
 import { h } from './dom.ts';
 import { fieldWrapper, numberField, stringField } from './fields.ts';
@@ -39,7 +40,7 @@ export interface SetupEditor {
 }
 
 export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEditor {
-  const heatOff = h('input', { type: 'text', inputmode: 'decimal', 'data-testid': 'heat-off-s', 'aria-label': 'heater removed at, s' });
+  const heatOff = h('input', { type: 'text', inputmode: 'decimal', 'data-testid': 'heat-off-s', 'aria-label': `${verdictTerms.heat_off_s.term}, s` });
   const heatOffNote = h('span', { class: 'note' });
   heatOff.addEventListener('input', () => {
     const path = heatOff.getAttribute('data-path');
@@ -64,7 +65,7 @@ export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEd
   refresh();
   root.replaceChildren(
     h('div', { class: 'setup-grid' },
-      h('div', { class: 'heat-off' }, fieldWrapper('heater removed at t', 's', 'Moves the start of the bottom row where the heating ends.', heatOff), heatOffNote),
+      h('div', { class: 'heat-off' }, fieldWrapper(verdictTerms.heat_off_s.term, 's', 'Moves the start of the bottom row where the heating ends.', heatOff), heatOffNote),
       numberField(store, { path: 'ambient_C', label: 'ambient', unit: '°C', testid: 'ambient-c', hint: 'Air and surroundings temperature unless a row gives its own.' }),
       numberField(store, { path: 'initial_C', label: 'initial temperature', unit: '°C', placeholder: 'ambient' }),
       numberField(store, { path: 'duration_s', label: 'duration', unit: 's' }),

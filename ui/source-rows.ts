@@ -49,12 +49,18 @@ function context(store: DraftStore, i: number): SourceContext {
   return { areaM2: footprintAreaM2(d), thicknessMm: asNumber(layer.thickness_mm), material: materialInfo(d, asString(layer.material) ?? '') };
 }
 
+/**
+ * Three significant figures in plain decimals below 10⁷ ("679000", not "6.79e+5", which toPrecision gives once the
+ * exponent reaches the digit count), exponent form beyond, as formatNumber does.
+ */
+const threeFigures = (v: number): string => formatNumber(Number(v.toPrecision(3)), { significant: 15 });
+
 /** The stored value in the units not chosen, e.g. "= 0.49 W total · 575 W/kg". */
 function alsoText(wPerM3: unknown, chosen: SourceUnit, c: SourceContext): string {
   if (typeof wPerM3 !== 'number' || !Number.isFinite(wPerM3)) return '';
   const parts = SOURCE_UNITS.filter((u) => u.unit !== chosen).flatMap((u) => {
     const f = toWPerM3(u.unit, c);
-    return f === undefined ? [] : [`${formatNumber(wPerM3 / f, { significant: 3 })} ${u.label}`];
+    return f === undefined ? [] : [`${threeFigures(wPerM3 / f)} ${u.label}`];
   });
   return parts.length > 0 ? `= ${parts.join(' · ')}` : '';
 }

@@ -5,6 +5,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
+import { noValueWords, windowStatusWords } from '../../sim/wording.ts';
 import { artifacts, freshPage as openPage, repoRoot, startHarness, text, type Harness } from './harness.ts';
 
 let harness: Harness;
@@ -60,10 +61,12 @@ describe('the browser view while a run is long or an input is wrong', () => {
   it('without a separator the verdict says so and nothing shows NaN', async () => {
     const page = await freshPage();
     await page.uncheck('[data-testid="layer-row-1"] input[type="checkbox"]');
-    await page.waitForFunction(() => document.querySelector('[data-testid="verdict-window"]')?.textContent === 'never');
+    // the words are the wording table's (sim/wording.ts), as the CLI prints them
+    const none = windowStatusWords['no-separator'];
+    await page.waitForFunction((w) => document.querySelector('[data-testid="verdict-window"]')?.textContent === w, none.label);
     expect(await text(page, 'run-status')).toBe('done');
-    expect(await text(page, 'verdict-half-frozen-at')).toBe('never');
-    expect(await page.$eval('.card.window', (e) => e.textContent ?? '')).toMatch(/no layer is marked as separator/);
+    expect(await text(page, 'verdict-half-frozen-at')).toBe(noValueWords.half_frozen_at_s);
+    expect(await page.$eval('.card.window', (e) => e.textContent ?? '')).toContain(none.sentence);
     expect(await page.evaluate(() => document.body.innerText)).not.toMatch(/NaN|Infinity/);
     await page.screenshot({ path: `${artifacts}/view-no-separator.png`, fullPage: true });
     await page.context().close();

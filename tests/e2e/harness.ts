@@ -83,3 +83,25 @@ export async function freshPage(harness: Harness): Promise<Page> {
   await waitForDone(page);
   return page;
 }
+
+/**
+ * The number in a value the page prints with its unit (sim/format.ts): "84.9 s", "15:59 min:s" (seconds returned),
+ * "257 K", "392.9 °C". NaN for words ("never fully molten"), so a comparison with a number fails loudly.
+ */
+export function shownNumber(printed: string): number {
+  const t = printed.trim();
+  const ms = /^(-?\d+):(\d{2}) min:s$/.exec(t);
+  if (ms) return (ms[1]!.startsWith('-') ? -1 : 1) * (Math.abs(Number(ms[1])) * 60 + Number(ms[2]));
+  const unit = /^(-?\d+(?:\.\d+)?) (s|K|°C)$/.exec(t);
+  return unit ? Number(unit[1]) : Number.NaN;
+}
+
+/** Half the last printed digit of a value the page prints (`15:59 min:s` → 0.5 s, `84.9 s` → 0.05 s, `257 K` → 0.5). */
+export function printedHalfStep(printed: string): number {
+  if (/min:s$/.test(printed.trim())) return 0.5;
+  const decimals = /\.(\d+)/.exec(printed)?.[1]?.length ?? 0;
+  return 0.5 * 10 ** -decimals;
+}
+
+/** The printed number of a test hook (see shownNumber). */
+export const shown = async (page: Page, testid: string): Promise<number> => shownNumber(await text(page, testid));
