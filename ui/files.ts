@@ -48,5 +48,9 @@ export function scenarioFromText(fileName: string, text: string): LoadResult {
 }
 
 export async function readScenarioFile(file: File): Promise<LoadResult> {
+  // a UTF-8 character takes at most 3 bytes per UTF-16 unit, so a file this large is over the limit unread
+  if (file.size > 3 * scenarioLimitDefaults.maxTextChars) {
+    return { ok: false, message: `${file.name} is too long (${(file.size / 2 ** 20).toFixed(0)} MB); a scenario is at most ${scenarioLimitDefaults.maxTextChars / 2 ** 20} MB of text` };
+  }
   return scenarioFromText(file.name, await file.text());
 }
