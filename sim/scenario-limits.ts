@@ -20,8 +20,11 @@ export const scenarioLimitDefaults = {
   maxNestingDepth: 32,
   /** Layers in a stack: a stack of tens of cells fits; each layer adds series, verdicts and at least one cell. */
   maxLayers: 200,
-  /** Cells in all: 10 µm resolution across 100 mm; the step costs O(cells) and the map keeps cells × recorded times. */
-  maxCells: 10_000,
+  /**
+   * Cells in all: eight 100 mm separators at the default 16 cells/mm (12 800), or 5 µm across 100 mm. A step costs
+   * O(cells) (~2000 steps × 20 000 cells ≈ 9 s at 4.5 M cell-updates/s); the recorder bounds its own memory.
+   */
+  maxCells: 20_000,
   /** Requested output times: each one keeps a full temperature profile and a column of every probe in the result. */
   maxOutputTimes: 10_000,
   /** Probe depths: each is a row of the result across every output time. */
