@@ -96,7 +96,9 @@ export function sizeErrors(raw: unknown): FieldError[] {
     } else {
       for (const name of names) {
         for (const key of ['k_W_mK', 'cp_J_kgK']) {
-          tooMany(`materials.${name}.${key}`, field(materials[name], key), L.maxTableRows, 'table rows', errors);
+          // a name over maxIdChars is refused on its own (scenario.ts); here it is only cut short in the path
+          const shown = name.length > L.maxIdChars ? `${name.slice(0, L.maxIdChars)}…` : name;
+          tooMany(`materials.${shown}.${key}`, field(materials[name], key), L.maxTableRows, 'table rows', errors);
         }
       }
     }

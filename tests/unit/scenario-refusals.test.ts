@@ -168,6 +168,24 @@ describe('parseScenario() refusals', () => {
     expect(onlyError(s, 'output.times_s')).toContain(`holds 2000000 output times; the limit is ${LIMIT.maxOutputTimes}`);
   });
 
+  it('parseScenario() refuses every other over-long list in one line each: segments, source intervals, probes, table rows, materials', () => {
+    const s = valid();
+    const n = (max: number) => max + 1;
+    s.top = Array.from({ length: n(LIMIT.maxFaceSegments) }, (_, i) => ({ from_s: i * 1e-3, convection_W_m2K: 5 }));
+    (s.layers as Json[])[2]!.source_W_m3 = Array.from({ length: n(LIMIT.maxSourceIntervals) }, (_, i) => ({ from_s: i, to_s: i + 0.5, value: 1 }));
+    s.output = { probes_mm: new Array<number>(n(LIMIT.maxProbes)).fill(1) };
+    (s.materials as Json).metal = { ...PLAIN, k_W_mK: Array.from({ length: n(LIMIT.maxTableRows) }, (_, i) => [i, 1]) };
+    expect(refused(s).map((e) => e.message.replace(/ \(.*$/, ''))).toEqual([
+      `holds ${n(LIMIT.maxSourceIntervals)} source intervals; the limit is ${LIMIT.maxSourceIntervals}`,
+      `holds ${n(LIMIT.maxFaceSegments)} segments; the limit is ${LIMIT.maxFaceSegments}`,
+      `holds ${n(LIMIT.maxProbes)} probe depths; the limit is ${LIMIT.maxProbes}`,
+      `holds ${n(LIMIT.maxTableRows)} table rows; the limit is ${LIMIT.maxTableRows}`,
+    ]);
+    const many = valid();
+    many.materials = Object.fromEntries(Array.from({ length: n(LIMIT.maxMaterials) }, (_, i) => [`m${i}`, PLAIN]));
+    expect(onlyError(many, 'materials')).toContain(`holds ${n(LIMIT.maxMaterials)} materials; the limit is ${LIMIT.maxMaterials}`);
+  });
+
   it('parseScenario() refuses max_step_s: 1e-9, giving the forced step count, the limit and the smallest step allowed', () => {
     const s = valid();
     s.numerics = { max_step_s: 1e-9 };
