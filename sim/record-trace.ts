@@ -9,18 +9,18 @@
  * rest is decimated (row-store.ts).
  */
 import type { Grid } from './mesh.ts';
-import { liquidFractionOf, temperatureOf } from './material.ts';
+import { liquidFractionOf, sensibleCapacity, temperatureOf } from './material.ts';
 import type { Problem } from './problem.ts';
 import { RowStore } from './row-store.ts';
 
 /** Separator indicators at step ends and stage points, for event times interpolated inside a step. */
 export interface SeparatorTrace {
   readonly tS: Float64Array;
-  /** min over separator cells of (H − H_liquidus)/(H_liquidus − H_solidus): ≥ 0 when every cell is liquid. */
+  /** min over separator cells of (H − H_liquidus)/span, span = H_liquidus − H_solidus (≥ 1 K of ρc_p): ≥ 0 when every cell is liquid. */
   readonly meltMargin: Float64Array;
   /** Volume-mean liquid fraction of the separator. */
   readonly meanLiquid: Float64Array;
-  /** max over separator cells of (H − H_solidus)/(H_liquidus − H_solidus): ≤ 0 when every cell is solid. */
+  /** max over separator cells of (H − H_solidus)/span: ≤ 0 when every cell is solid. */
   readonly freezeMargin: Float64Array;
 }
 
@@ -28,6 +28,8 @@ export interface SeparatorTrace {
 const MELT_LEVEL = 0;
 const HALF_LEVEL = 0.5;
 const FREEZE_LEVEL = 0;
+/** Smallest unit of the melt and freeze margins, in kelvin of sensible heat: any positive width keeps them finite. */
+const MARGIN_FLOOR_K = 1;
 
 /** Which side of its level each indicator is on, as three bits. */
 function sides(melt: number, mean: number, freeze: number): number {
@@ -88,6 +90,13 @@ export function createTraceRecorder(problem: Problem, grid: Grid, budget: number
   const store = createIndicatorStore(budget, heldPairs);
   const hint = new Int32Array(cells.length);
   const scratch = new Float64Array(2);
+  // the margins' unit: the melt's enthalpy span, or a kelvin of sensible heat when the latent heat vanishes (an
+  // isothermal melt with zero latent heat has no span, and a margin divided by it would be infinite)
+  const span = Float64Array.from(cells, (i) => {
+    const mat = grid.materials[i]!;
+    const melt = mat.melt!;
+    return Math.max(melt.hLiquidus - melt.hSolidus, sensibleCapacity(mat, melt.solidusK) * MARGIN_FLOOR_K);
+  });
 
   function add(U: Float64Array, tS: number): void {
     let meltMargin = Infinity;
@@ -100,9 +109,8 @@ export function createTraceRecorder(problem: Problem, grid: Grid, budget: number
       const melt = mat.melt!;
       const h = U[i + 1]!;
       hint[c] = temperatureOf(mat.enthalpy, h, hint[c]!, scratch);
-      const span = Math.max(melt.hLiquidus - melt.hSolidus, Number.MIN_VALUE);
-      meltMargin = Math.min(meltMargin, (h - melt.hLiquidus) / span);
-      freezeMargin = Math.max(freezeMargin, (h - melt.hSolidus) / span);
+      meltMargin = Math.min(meltMargin, (h - melt.hLiquidus) / span[c]!);
+      freezeMargin = Math.max(freezeMargin, (h - melt.hSolidus) / span[c]!);
       liquid += liquidFractionOf(mat, h, scratch[0]!) * grid.dx[i]!;
       width += grid.dx[i]!;
     }
