@@ -24,6 +24,7 @@ import { firstNonFinite } from './protocol.ts';
 import { shownResult } from './result.ts';
 import { createResultsView } from './results-view.ts';
 import { createRunner } from './runner.ts';
+import { createStudyPanel } from './study-view.ts';
 import { renderSetupEditor, type SetupEditor } from './setup-editor.ts';
 import { refreshSourceNotes } from './source-rows.ts';
 import { renderStackEditor } from './stack-editor.ts';
@@ -58,6 +59,7 @@ function renderEditors(): void {
 }
 
 const results = createResultsView();
+createStudyPanel(byId('study'), store);
 const status = createStatusView(() => runner.cancel());
 const runner = createRunner({
   onStart: () => {
