@@ -10,6 +10,7 @@
  */
 import { formatFieldError } from '../field-errors.ts';
 import type { Problem } from '../problem.ts';
+import { assertFinite } from '../result.ts';
 import { runProblem } from '../run.ts';
 import { parseScenario } from '../scenario.ts';
 import type { Summary } from '../verdict.ts';
@@ -148,7 +149,11 @@ export function pointScenario(plan: SweepPlan, index: number): unknown {
 /** A summary-only run of a problem: the verdicts and warnings, or the reason it failed. */
 export function runSummary(problem: Problem): { summary: SweepRow['summary']; error: string | null } {
   const out = runProblem(problem, { detail: 'summary' });
-  if (out.status === 'ok') return { summary: { ...out.summary, warnings: out.record.warnings }, error: null };
+  if (out.status === 'ok') {
+    const summary = { ...out.summary, warnings: out.record.warnings };
+    assertFinite(summary, 'summary'); // JSON would print a NaN as null, a "never" it is not: refuse it (caught as a row error)
+    return { summary, error: null };
+  }
   if (out.status === 'failed') return { summary: null, error: `the run failed at t = ${out.tS} s: ${out.message}` };
   return { summary: null, error: 'the run was cancelled' };
 }
