@@ -60,6 +60,7 @@ function progressBar(total: number, wanted: boolean): SingleBar | null {
 export async function runPoints(plan: SweepPlan, indices: readonly number[], opts: PoolOptions): Promise<void> {
   const bar = progressBar(indices.length, opts.progress);
   try {
+    if (indices.length === 0) return;
     if (opts.jobs <= 1) {
       for (const i of indices) { opts.onRow(runSweepPoint(plan, i)); bar?.increment(); }
       return;
