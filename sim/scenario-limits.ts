@@ -21,8 +21,9 @@ export const scenarioLimitDefaults = {
   /** Layers in a stack: a stack of tens of cells fits; each layer adds series, verdicts and at least one cell. */
   maxLayers: 200,
   /**
-   * Cells in all: eight 100 mm separators at the default 16 cells/mm (12 800), or 5 µm across 100 mm. A step costs
-   * O(cells) (~2000 steps × 20 000 cells ≈ 9 s at 4.5 M cell-updates/s); the recorder bounds its own memory.
+   * Cells in all: eight 100 mm separators at the default 16 cells/mm (12 800), or 5 µm across 100 mm; a guard against
+   * memory, not a promise of speed. Measured: the demo at 18 900 cells peaked at 174 MB and met the solver's work
+   * budget (5e7 cell-steps, step-guards.ts) after 2646 steps, t = 43 s of 3600 s, which stopped it with a message.
    */
   maxCells: 20_000,
   /** Requested output times: each one keeps a full temperature profile and a column of every probe in the result. */
@@ -45,8 +46,11 @@ export const scenarioLimitDefaults = {
   maxDurationS: 1e8,
   /** Steps forced by max_step_s (duration_s / max_step_s): at ~0.25 ms a step on the demo, half a minute of work. */
   maxForcedSteps: 100_000,
-  /** Cells × forced steps: about 45 s at the measured 4.5 M cell-updates/s. */
-  maxForcedCellSteps: 2e8,
+  /**
+   * Cells × forced steps: the solver's own work budget (stepGuardDefaults.maxCellSteps, step-guards.ts), so a run
+   * that max_step_s alone would push past it is refused here instead of stopped mid-way.
+   */
+  maxForcedCellSteps: 5e7,
   /**
    * Smallest temperature tolerance, K. The Newton iterations stop at 1 % of it; below ~1e-6 K that meets the rounding
    * of the enthalpy (ε·ρc·T ≈ 2e-16 × 4e9 J/m³ ≈ 1e-6 J/m³, stiffly amplified), and the steps (∝ tol^−1/3) already

@@ -10,6 +10,7 @@ import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario-limits.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
 import { scenarioFromText } from '../../ui/files.ts';
 import { recordDefaults } from '../../sim/record.ts';
+import { stepGuardDefaults } from '../../sim/step-guards.ts';
 
 type Json = Record<string, unknown>;
 
@@ -162,6 +163,10 @@ describe('parseScenario() refusals', () => {
     expect(LIMIT.maxOutputTimes).toBeLessThanOrEqual(recordDefaults.maxOutputTimes);
   });
 
+  it('scenarioLimitDefaults admits no more forced cell-steps than the solver\'s work budget (stepGuardDefaults)', () => {
+    expect(LIMIT.maxForcedCellSteps).toBeLessThanOrEqual(stepGuardDefaults.maxCellSteps);
+  });
+
   it('parseScenario() refuses two million output times in one line', () => {
     const s = valid();
     s.output = { times_s: new Array<number>(2_000_000).fill(-1) };
@@ -199,7 +204,7 @@ describe('parseScenario() refusals', () => {
 
   it('parseScenario() refuses many cells times many forced steps, naming max_step_s', () => {
     const s = valid();
-    // 9000 cells (3000 per layer) × 1200 s / 0.05 s = 24 000 steps → 2.16e8 cell-steps, over a 2e8 limit
+    // 9000 cells (3000 per layer) × 1200 s / 0.05 s = 24 000 steps → 2.16e8 cell-steps, over the limit
     (s.layers as Json[]).forEach((l) => { l.cells = 3000; });
     s.numerics = { max_step_s: 0.05 };
     expect(LIMIT.maxForcedCellSteps).toBeLessThan(9000 * 24_000);
