@@ -23,6 +23,8 @@ const fuzzDefaults = {
   /** Heap per worker, MB: "a few hundred MB" is the target; a case past this is a failure. */
   heapMb: 1024,
   save: '/tmp/freezeline-fuzz',
+  /** A progress line on stderr every this many cases. */
+  progressEvery: 1000,
 } as const;
 
 const { values } = parseArgs({
@@ -84,8 +86,12 @@ async function runOne(index: number): Promise<void> {
 }
 
 let next = 0;
+let done = 0;
 await Promise.all(Array.from({ length: Math.max(1, threads) }, async () => {
-  while (next < scenarios.length) await runOne(next++);
+  while (next < scenarios.length) {
+    await runOne(next++);
+    if (++done % fuzzDefaults.progressEvery === 0) console.error(`  … ${done} of ${count} (${((performance.now() - started) / 1000).toFixed(0)} s)`);
+  }
 }));
 await pool.destroy();
 

@@ -95,6 +95,27 @@ const layerDraft = (duration: number): fc.Arbitrary<LayerDraft> => fc.record({
 const melts = (m: InlineMaterialFile | string): boolean =>
   (typeof m === 'string' ? libraryMelting.includes(m) : m.melt !== undefined);
 
+/** Numerical settings a user may try: tolerances from tight to loose, finer and coarser grids, a capped step. */
+const numericsDraft = fc.record({
+  toleranceK: fc.option(logRange(1e-3, 5), { nil: undefined }),
+  liquidFraction: fc.option(logRange(1e-4, 0.2), { nil: undefined }),
+  cellsPerMm: fc.option(logRange(0.5, 40), { nil: undefined }),
+  minCells: fc.option(fc.integer({ min: 1, max: 40 }), { nil: undefined }),
+  maxStepShare: fc.option(logRange(1e-3, 1), { nil: undefined }),
+});
+
+/** The numerics block, its cell density capped so the stack stays within 2000 cells (validation allows 10 000). */
+function numericsFor(n: typeof numericsDraft extends fc.Arbitrary<infer T> ? T : never, duration: number, totalMm: number) {
+  const cellsPerMm = n.cellsPerMm === undefined ? undefined : round(Math.min(n.cellsPerMm, 1000 / totalMm));
+  return {
+    ...(n.toleranceK !== undefined ? { tolerance_K: n.toleranceK } : {}),
+    ...(n.liquidFraction !== undefined ? { liquid_fraction_tolerance: n.liquidFraction } : {}),
+    ...(cellsPerMm !== undefined && cellsPerMm > 0 ? { cells_per_mm: cellsPerMm, separator_cells_per_mm: cellsPerMm } : {}),
+    ...(n.minCells !== undefined ? { min_cells_per_layer: n.minCells, min_separator_cells: n.minCells } : {}),
+    ...(n.maxStepShare !== undefined ? { max_step_s: round(n.maxStepShare * duration) } : {}),
+  };
+}
+
 /** A valid scenario across the ranges above. */
 export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = fc.record({
   duration: fc.oneof(logRange(1, 1e7), logRange(1, 3600)),
@@ -112,8 +133,9 @@ export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = fc.record({
     bottom: schedule(base.duration, natural),
     top: schedule(base.duration, natural),
     outputs: fc.uniqueArray(range(0, 1).map((f) => round(f * base.duration)), { maxLength: 4 }),
+    numerics: fc.option(numericsDraft, { nil: undefined, freq: 5 }),
   });
-}).map(({ base, layers, bottom, top, outputs }) => {
+}).map(({ base, layers, bottom, top, outputs, numerics }) => {
   const materials: Record<string, InlineMaterialFile> = {};
   const files: LayerFile[] = layers.map((l, i) => {
     let name: string;
@@ -141,5 +163,6 @@ export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = fc.record({
     bottom,
     top,
     ...(outputs.length > 0 ? { output: { times_s: outputs.filter((t) => t > 0) } } : {}),
+    ...(numerics ? { numerics: numericsFor(numerics, base.duration, layers.reduce((a, l) => a + l.thicknessMm, 0)) } : {}),
   } satisfies ScenarioFile;
 });
