@@ -12,7 +12,7 @@ function toTable(p: PropertyFile, path: string, errors: FieldError[]): Table {
   if (typeof p === 'number') return { tK: Float64Array.of(cToK(0)), y: Float64Array.of(p) };
   for (let i = 1; i < p.length; i++) {
     if (!(p[i]![0] > p[i - 1]![0])) {
-      errors.push({ path: `${path}[${i}][0]`, message: `temperatures must increase strictly, got ${p[i]![0]} after ${p[i - 1]![0]}` });
+      errors.push({ path: `${path}[${i}][0]`, message: `temperatures must increase strictly, got ${p[i]![0]} °C after ${p[i - 1]![0]} °C` });
     }
   }
   return { tK: Float64Array.from(p, (r) => cToK(r[0])), y: Float64Array.from(p, (r) => r[1]) };
@@ -25,7 +25,7 @@ export function materialFromFile(name: string, file: InlineMaterialFile | Librar
   const specificHeat = toTable(file.cp_J_kgK, `${path}.cp_J_kgK`, errors);
   const m = file.melt;
   if (m && m.solidus_C > m.liquidus_C) {
-    errors.push({ path: `${path}.melt.solidus_C`, message: `must be ≤ liquidus_C (${m.liquidus_C}), got ${m.solidus_C}` });
+    errors.push({ path: `${path}.melt.solidus_C`, message: `must be ≤ liquidus_C (${m.liquidus_C} °C), got ${m.solidus_C} °C` });
   }
   const limits: Limit[] = (file.limits ?? []).map((l) => ({ kind: l.kind, atK: cToK(l.at_C), source: l.source, note: l.note }));
   return buildMaterial({

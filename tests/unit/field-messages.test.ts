@@ -56,6 +56,13 @@ describe('messages for people', () => {
     expect(messageAt(s, 'materials.metal.cp_J_kgK[0][1]')).toBe('expected a number in J/(kg·K), got the text "x"');
   });
 
+  it('parseScenario() writes °C beside the temperatures of an unsorted table and a solidus above its liquidus', () => {
+    const s = base();
+    (s.materials as Json).metal = { ...PLAIN, k_W_mK: [[100, 1], [50, 2]], melt: { solidus_C: 360, liquidus_C: 354, latent_J_kg: 1 } };
+    expect(messageAt(s, 'materials.metal.k_W_mK[1][0]')).toBe('temperatures must increase strictly, got 50 °C after 100 °C');
+    expect(messageAt(s, 'materials.metal.melt.solidus_C')).toBe('must be ≤ liquidus_C (354 °C), got 360 °C');
+  });
+
   it('unitOfPath() reads every unit suffix of the format, longest first (m²·K/W is not read as W)', () => {
     const cases: [PropertyKey[], string | undefined][] = [
       [['layers', 0, 'thickness_mm'], 'mm'],
