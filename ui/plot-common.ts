@@ -56,6 +56,17 @@ export function cursorShape(tS: number, axis: TimeAxis): Partial<Shape> {
   return { type: 'line', name: 'cursor', xref: 'x', yref: 'paper', x0: x, x1: x, y0: 0, y1: 1, line: { color: '#1f2933', width: 1 } };
 }
 
+/**
+ * Hover texts built by the one formatting module (sim/format.ts), one per point, for `hovertemplate: '%{text}'`:
+ * a tooltip prints a number exactly as the verdict and the CLI do.
+ */
+export function hoverTexts(n: number, text: (k: number) => string): string[] {
+  return Array.from({ length: n }, (_, k) => text(k));
+}
+
+/** The hover template that shows the prepared text alone. */
+export const TEXT_ONLY = '%{text}<extra></extra>';
+
 export interface Figure {
   readonly data: Data[];
   readonly layout: Partial<Layout>;

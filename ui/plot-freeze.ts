@@ -5,8 +5,8 @@
  */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
 import { verdictTerms } from '../sim/wording.ts';
-import { formatNumber, formatTime } from './format.ts';
-import { baseLayout, levelLine, type Figure } from './plot-common.ts';
+import { formatNumber, formatTemperature, formatTime } from './format.ts';
+import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, type Figure } from './plot-common.ts';
 import { heatOffLabel } from './plot-temperatures.ts';
 import type { ShownResult } from './result.ts';
 import { timeAxis, xAxisLayout, xOf, xsOf } from './time-axis.ts';
@@ -49,11 +49,14 @@ export function freezeFigure(r: ShownResult): Figure {
   for (const layer of r.layers) {
     const s = record.layers[layer.index];
     if (!s) continue;
-    data.push({ type: 'scatter', mode: 'lines', x, y: pick(s.meanC), name: `${layer.id} mean`, line: { width: 2, color: layer.colour },
-      hovertemplate: `<b>${layer.id}</b> mean %{y:.1f} °C<extra></extra>` });
+    const mean = pick(s.meanC);
+    data.push({ type: 'scatter', mode: 'lines', x, y: mean, name: `${layer.id} mean`, line: { width: 2, color: layer.colour },
+      text: hoverTexts(mean.length, (k) => `<b>${layer.id}</b> mean ${formatTemperature(mean[k]!, '')}`), hovertemplate: TEXT_ONLY });
     if (layer.separator && s.liquidFraction) {
-      data.push({ type: 'scatter', mode: 'lines', x, y: pick(s.liquidFraction), yaxis: 'y2', name: `${layer.id} liquid fraction`,
-        line: { width: 2, color: layer.colour, dash: 'dash' }, hovertemplate: `<b>${layer.id}</b> liquid fraction %{y:.3f}<extra></extra>` });
+      const liquid = pick(s.liquidFraction);
+      data.push({ type: 'scatter', mode: 'lines', x, y: liquid, yaxis: 'y2', name: `${layer.id} liquid fraction`,
+        line: { width: 2, color: layer.colour, dash: 'dash' }, hovertemplate: TEXT_ONLY,
+        text: hoverTexts(liquid.length, (k) => `<b>${layer.id}</b> liquid fraction ${formatNumber(liquid[k]!, { decimals: 3 })}`) });
     }
   }
   const shapes: Partial<Shape>[] = [];

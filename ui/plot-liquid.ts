@@ -1,10 +1,10 @@
 /** The separator's liquid fraction against time, with the half-frozen level and the three events marked. */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
-import { formatTime } from './format.ts';
-import { baseLayout, levelLine, timeLine, type Figure } from './plot-common.ts';
+import { formatNumber, formatTime } from './format.ts';
+import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, timeLine, type Figure } from './plot-common.ts';
 import { heatOffLabel } from './plot-temperatures.ts';
 import type { ShownResult } from './result.ts';
-import { hoverTime, timeAxis, xAxisLayout, xOf, xsOf } from './time-axis.ts';
+import { timeAxis, xAxisLayout, xOf, xsOf } from './time-axis.ts';
 
 export function liquidFigure(r: ShownResult): Figure {
   const { record, summary } = r;
@@ -16,7 +16,8 @@ export function liquidFigure(r: ShownResult): Figure {
     if (!layer.separator || !series) continue;
     data.push({
       type: 'scatter', mode: 'lines', x: xsOf(axis, record.tS), y: series, name: `${layer.id} liquid fraction`, line: { width: 2, color: layer.colour },
-      hovertemplate: `${hoverTime(axis)}<br><b>${layer.id}</b> liquid fraction %{y:.3f}<extra></extra>`,
+      text: hoverTexts(series.length, (k) => `t = ${formatTime(record.tS[k]!, '')}<br><b>${layer.id}</b> liquid fraction ${formatNumber(series[k]!, { decimals: 3 })}`),
+      hovertemplate: TEXT_ONLY,
     });
   }
   const ev = summary.separator;

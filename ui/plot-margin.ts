@@ -6,8 +6,8 @@
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
 import { verdictTerms } from '../sim/wording.ts';
 import { cautionDefaults, scenarioCautions } from './cautions.ts';
-import { formatNumber } from './format.ts';
-import { baseLayout, levelLine, timeLine, type Figure } from './plot-common.ts';
+import { formatMargin, formatNumber } from './format.ts';
+import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, timeLine, type Figure } from './plot-common.ts';
 import { heatOffLabel } from './plot-temperatures.ts';
 import type { ShownResult } from './result.ts';
 import { timeAxis, xAxisLayout, xsOf } from './time-axis.ts';
@@ -19,19 +19,22 @@ export function marginFigure(r: ShownResult): Figure {
   const thin = new Set(scenarioCautions(r.layers, summary).filter((c) => c.kind === 'thin-magnesium').map((c) => c.layer));
   const data: Data[] = [];
   const below = (atC: number, maxC: Float64Array): Float64Array => Float64Array.from(maxC, (c) => atC - c);
+  const texts = (m: Float64Array, what: string) => hoverTexts(m.length, (k) => `${what} ${formatMargin(m[k]!, '')}`);
   for (const layer of r.layers) {
     const limit = summary.layers[layer.id]?.limit;
     const s = record.layers[layer.index];
     if (!limit || !s) continue;
+    const m = below(limit.at_C, s.maxC);
     data.push({
-      type: 'scatter', mode: 'lines', x, y: below(limit.at_C, s.maxC), name: `${layer.id} to ${limit.kind} ${formatNumber(limit.at_C, { decimals: 0 })} °C`,
-      line: { width: 2, color: layer.colour }, hovertemplate: `<b>${layer.id}</b> ${verdictTerms.margin_K.term} %{y:.0f} K to ${limit.kind}<extra></extra>`,
+      type: 'scatter', mode: 'lines', x, y: m, name: `${layer.id} to ${limit.kind} ${formatNumber(limit.at_C, { decimals: 0 })} °C`,
+      line: { width: 2, color: layer.colour }, hovertemplate: TEXT_ONLY, text: texts(m, `<b>${layer.id}</b> ${verdictTerms.margin_K.term} to ${limit.kind}`),
     });
     if (thin.has(layer.id)) {
       const c = cautionDefaults.thinMagnesiumIgnitionC;
+      const mThin = below(c, s.maxC);
       data.push({
-        type: 'scatter', mode: 'lines', x, y: below(c, s.maxC), name: `${layer.id} to thin-magnesium ignition ${c} °C`,
-        line: { width: 2, color: layer.colour, dash: 'dot' }, hovertemplate: `<b>${layer.id}</b> %{y:.0f} K to ${c} °C (thin)<extra></extra>`,
+        type: 'scatter', mode: 'lines', x, y: mThin, name: `${layer.id} to thin-magnesium ignition ${c} °C`,
+        line: { width: 2, color: layer.colour, dash: 'dot' }, hovertemplate: TEXT_ONLY, text: texts(mThin, `<b>${layer.id}</b> to ${c} °C (thin)`),
       });
     }
   }

@@ -6,8 +6,8 @@
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
 import { translucent } from './colours.ts';
 import { verdictTerms } from '../sim/wording.ts';
-import { formatMargin, formatNumber } from './format.ts';
-import { baseLayout, levelLine, timeLine, type Figure } from './plot-common.ts';
+import { formatMargin, formatNumber, formatTemperature } from './format.ts';
+import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, timeLine, type Figure } from './plot-common.ts';
 import type { ShownResult } from './result.ts';
 import { timeAxis, xsOf } from './time-axis.ts';
 
@@ -35,14 +35,15 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
     if (!s) return;
     for (const v of s.minC) low = Math.min(low, v);
     for (const v of s.maxC) high = Math.max(high, v);
-    const customdata = Array.from(s.meanC, (_, j) => [s.minC[j]!, s.maxC[j]!]);
+    const text = hoverTexts(s.meanC.length, (j) => `<b>${layer.id}</b> mean ${formatTemperature(s.meanC[j]!, '')}, `
+      + `min ${formatTemperature(s.minC[j]!, '')}, max ${formatTemperature(s.maxC[j]!, '')}`);
     data.push(
       { type: 'scatter', mode: 'lines', x, y: s.maxC, line: { width: 0, color: layer.colour }, legendgroup: layer.id, showlegend: false, hoverinfo: 'skip', name: `${layer.id} max` },
       { type: 'scatter', mode: 'lines', x, y: s.minC, line: { width: 0, color: layer.colour }, fill: 'tonexty', fillcolor: translucent(layer.colour, defaults.bandAlpha), legendgroup: layer.id, showlegend: false, hoverinfo: 'skip', name: `${layer.id} min` },
       {
-        type: 'scatter', mode: 'lines', x, y: s.meanC, customdata, line: { width: 2, color: layer.colour }, legendgroup: layer.id,
+        type: 'scatter', mode: 'lines', x, y: s.meanC, text, line: { width: 2, color: layer.colour }, legendgroup: layer.id,
         name: `${layer.id} (${layer.material.name})`,
-        hovertemplate: `<b>${layer.id}</b> mean %{y:.1f} °C, min %{customdata[0]:.1f}, max %{customdata[1]:.1f}<extra></extra>`,
+        hovertemplate: TEXT_ONLY,
       });
   });
   const shapes: Partial<Shape>[] = [];
