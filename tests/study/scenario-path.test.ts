@@ -91,3 +91,19 @@ describe('resolveLeaf() and setAt()', () => {
     expect((setAt(doc, r.value, 0.4) as typeof doc).bottom[1]).toEqual({ from_s: 900, convection_W_m2K: 'natural', emissivity: 0.4 });
   });
 });
+
+describe('the view\'s suggested paths (ui/study-paths.ts)', () => {
+  it('name only numbers of the demo file, each found again by resolveLeaf, layers by id', async () => {
+    const { numericPaths } = await import('../../ui/study-paths.ts');
+    const demo = (await import('../../examples/bench-coupon.json', { with: { type: 'json' } })).default as unknown as Parameters<typeof numericPaths>[0];
+    const paths = numericPaths(demo);
+    expect(paths).toContain('ambient_C');
+    expect(paths).toContain('layers.anode.thickness_mm');
+    expect(paths).toContain('bottom.1.from_s');
+    expect(paths.some((p) => p.startsWith('expect') || p.startsWith('output') || p === 'freezeline')).toBe(false);
+    for (const p of paths) {
+      const r = resolveLeaf(demo, path(p));
+      expect(r.ok && typeof r.value.value, p).toBe('number');
+    }
+  });
+});
