@@ -5,7 +5,7 @@
  */
 import { temperatureColour } from './colours.ts';
 import { svg } from './dom.ts';
-import { formatNumber } from './format.ts';
+import { formatNumber, formatTime } from './format.ts';
 import { mapRange, type ShownResult } from './result.ts';
 
 const geometry = {
@@ -87,7 +87,7 @@ export function drawStack(host: HTMLElement, r: ShownResult | undefined, step: n
   const height = ly + geometry.legendHeight;
   host.replaceChildren(svg('svg', {
     viewBox: `0 0 ${geometry.width} ${height}`, role: 'img',
-    'aria-label': `stack cross-section at t = ${formatNumber(record.tS[step], { decimals: 0 })} s`,
+    'aria-label': `stack cross-section at t = ${formatTime(record.tS[step] ?? null, '—')}`,
   },
   svg('defs', {}, gradient, legend),
   ...items,

@@ -3,7 +3,7 @@
  * is shown); progress and explanations go beside it. `data-run` counts the results shown, for tests and timing.
  */
 import { byId } from './dom.ts';
-import { formatNumber } from './format.ts';
+import { formatTime } from './format.ts';
 
 /** `waiting`: a new row has fields to fill in, so no run is requested. */
 export type RunState = 'idle' | 'running' | 'done' | 'error' | 'failed' | 'cancelled' | 'waiting';
@@ -36,7 +36,7 @@ export function createStatusView(onCancel: () => void): StatusView {
       if (state !== 'running') return;
       if (durationS !== undefined && durationS > 0) {
         bar.value = Math.min(tS / durationS, 1);
-        detail.textContent = `t = ${formatNumber(tS, { decimals: 0 })} of ${formatNumber(durationS, { decimals: 0 })} s`;
+        detail.textContent = `t = ${formatTime(tS, '—')} of ${formatTime(durationS, '—')}`;
       }
     },
     state: () => state,

@@ -61,7 +61,7 @@ describe('the browser view on the demo scenario', () => {
     });
     console.log(`[timing] cold preview server, from navigation start (page clock): first contentful paint ${marks.fcp.toFixed(0)} ms, `
       + `editor drawn ${marks.editor.toFixed(0)} ms, verdict numbers shown (first meaningful paint) ${marks.verdict.toFixed(0)} ms, `
-      + `all three charts drawn ${marks.charts.toFixed(0)} ms (target ≤ 1500 ms); seen from the test (wall clock incl. Playwright): `
+      + `all charts drawn ${marks.charts.toFixed(0)} ms (target ≤ 1500 ms); seen from the test (wall clock incl. Playwright): `
       + `editor ${editorMs} ms, verdict ${verdictMs} ms, charts ${chartsMs} ms`);
 
     expect(await text(page, 'run-status')).toBe('done');
@@ -140,7 +140,7 @@ describe('the browser view on the demo scenario', () => {
     const median = (a: number[]) => [...a].sort((x, y) => x - y)[Math.floor(a.length / 2)]!;
     console.log(`[timing] edit → updated charts, median of ${totals.length}: ${median(totals).toFixed(0)} ms from the keystroke `
       + `(including the ${runnerDefaults.debounceMs} ms debounce); after the debounce: solve + transfer ${median(solves).toFixed(0)} ms, `
-      + `temperature chart updated at ${median(firstChart).toFixed(0)} ms, all three charts at ${median(afterDebounce).toFixed(0)} ms (target ≤ 50 ms)`);
+      + `temperature chart updated at ${median(firstChart).toFixed(0)} ms, all charts at ${median(afterDebounce).toFixed(0)} ms (target ≤ 50 ms)`);
     expect(await text(page, 'run-status')).toBe('done');
     await context.close();
   });
