@@ -114,6 +114,7 @@ function requestRun(now = false): void {
     runner.hold();
     status.set('waiting', `fill in the ${toFill.length} field${toFill.length === 1 ? '' : 's'} marked “to fill in” to run`);
     if (results.current()) results.stale('Showing the last result: a new row is not filled in yet.');
+    else results.placeholder('Nothing computed yet: fill in the fields marked “to fill in”.');
     return;
   }
   status.set('running', 'waiting for the edit to settle…');
