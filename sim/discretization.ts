@@ -12,7 +12,7 @@
 import type { FaceContext } from './faces.ts';
 import { faceHeatIn } from './faces.ts';
 import type { EnthalpyCurve } from './material.ts';
-import { conductivityAt, conductivitySlopeAt, sensibleCapacity, temperatureOf } from './material.ts';
+import { conductivityWithSlope, sensibleCapacity, temperatureOf } from './material.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from './problem.ts';
 
@@ -96,7 +96,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     const material = grid.materials[i]!;
     const melt = material.melt;
     const h = U[i + 1]!;
-    const k = conductivityAt(material, h, tC);
+    const k = conductivityWithSlope(material, h, tC, scratch2);
     if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus) {
       // half = Δx/(2k) with 1/k linear in f: d(half)/dH = (Δx/2)·(1/k_l − 1/k_s)·df/dH
       const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus)
@@ -104,7 +104,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
       dHalf[i + 1] = 0.5 * dx[i]! * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
     } else {
       // half = Δx/(2k(T)): d(half)/dH = −Δx/(2k²)·dk/dT·dT/dH
-      const slope = conductivitySlopeAt(material, h, tC);
+      const slope = scratch2[0]!;
       dHalf[i + 1] = slope === 0 ? 0 : (-0.5 * dx[i]! * slope * tau[i + 1]!) / (k * k);
     }
     const half = (0.5 * dx[i]!) / k;

@@ -205,11 +205,16 @@ export function conductivityAt(material: Material, hJ: number, tK: number): numb
   return mushConductivity(melt, liquidFractionOf(material, hJ, tK));
 }
 
-/** Slope dy/dT of a table at T (K): the slope of the row interval holding T, 0 outside the table (held flat). */
-export function tableSlope(table: Table, tK: number): number {
+/**
+ * A table's value at T (K) and, in out[0], its slope dy/dT (0 outside the table, where it is held flat): one search
+ * for both. Overwrites out[0]. Allocates nothing.
+ */
+export function evalTableWithSlope(table: Table, tK: number, out: Float64Array): number {
   const { tK: xs, y } = table;
   const n = xs.length;
-  if (n === 1 || tK <= xs[0]! || tK >= xs[n - 1]!) return 0;
+  out[0] = 0;
+  if (n === 1 || tK <= xs[0]!) return y[0]!;
+  if (tK >= xs[n - 1]!) return y[n - 1]!;
   let lo = 0;
   let hi = n - 1;
   while (hi - lo > 1) {
@@ -217,22 +222,32 @@ export function tableSlope(table: Table, tK: number): number {
     if (xs[mid]! <= tK) lo = mid;
     else hi = mid;
   }
-  return (y[hi]! - y[lo]!) / (xs[hi]! - xs[lo]!);
+  const x0 = xs[lo]!;
+  const y0 = y[lo]!;
+  out[0] = (y[hi]! - y0) / (xs[hi]! - x0);
+  return y0 + ((y[hi]! - y0) * (tK - x0)) / (xs[hi]! - x0); // as evalTable() rounds it
 }
 
 /**
- * dk/dT (W·m⁻¹·K⁻²) of a single-phase cell, read as conductivityAt() reads k: 0 where the table is held flat, and 0
- * in a two-phase cell (whose k follows the liquid fraction, handled by the caller). For Newton's Jacobian: a steep
- * k(T) left out of it turns Newton into a slow fixed-point iteration.
+ * conductivityAt() and, in out[0], dk/dT (W·m⁻¹·K⁻²) of a single-phase cell, read as k is read: 0 where the table is
+ * held flat, and 0 in a two-phase cell (whose k follows the liquid fraction, handled by the caller). For Newton's
+ * Jacobian: a steep k(T) left out of it turns Newton into a slow fixed-point iteration. Overwrites out[0].
  */
-export function conductivitySlopeAt(material: Material, hJ: number, tK: number): number {
+export function conductivityWithSlope(material: Material, hJ: number, tK: number, out: Float64Array): number {
   const melt = material.melt;
   const table = material.conductivity;
-  if (table.y.length === 1) return 0;
-  if (melt === undefined) return tableSlope(table, tK);
-  if (hJ <= melt.hSolidus) return tK < melt.solidTableK ? tableSlope(table, tK) : 0;
-  if (hJ >= melt.hLiquidus) return tK > melt.liquidTableK ? tableSlope(table, tK) : 0;
-  return 0;
+  out[0] = 0;
+  if (table.y.length === 1) return table.y[0]!;
+  if (melt === undefined) return evalTableWithSlope(table, tK, out);
+  if (hJ <= melt.hSolidus) {
+    if (tK < melt.solidTableK) return evalTableWithSlope(table, tK, out);
+    return evalTable(table, melt.solidTableK);
+  }
+  if (hJ >= melt.hLiquidus) {
+    if (tK > melt.liquidTableK) return evalTableWithSlope(table, tK, out);
+    return evalTable(table, melt.liquidTableK);
+  }
+  return mushConductivity(melt, liquidFractionOf(material, hJ, tK));
 }
 
 /**
