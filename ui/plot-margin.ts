@@ -42,9 +42,11 @@ export function marginFigure(r: ShownResult): Figure {
     { type: 'rect', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: 0, y1: cautionDefaults.noMarginK, fillcolor: 'rgba(217,154,0,0.14)', line: { width: 0 }, layer: 'below' },
   ];
   const annotations: Partial<Annotation>[] = [];
-  const zero = levelLine(0, 'limit reached', '#b42318', 'dash', 'right', true);
-  const none = levelLine(cautionDefaults.noMarginK, `≤ ${cautionDefaults.noMarginK} K: no margin`, '#7a4b00', 'dot', 'right');
-  for (const l of [zero, none]) { shapes.push(l.shape); annotations.push(l.annotation); }
+  // one label for both levels: they sit a few pixels apart when margins run to a thousand kelvin
+  const zero = levelLine(0, '', '#b42318', 'dash');
+  const none = levelLine(cautionDefaults.noMarginK, `shaded: ≤ ${cautionDefaults.noMarginK} K, no margin · red dashed: limit reached`, '#7a4b00', 'dot', 'left');
+  shapes.push(zero.shape, none.shape);
+  annotations.push(none.annotation);
   if (summary.heat_off_s !== null && summary.heat_off_s > 0) {
     const off = timeLine(summary.heat_off_s, heatOffLabel, axis);
     shapes.push(off.shape);
