@@ -12,7 +12,7 @@ import type { Problem } from './problem.ts';
 import { characteristicLengthM, conditionAt, sourceAt } from './problem.ts';
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
 import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
-import { belowAbsoluteZeroMessage, budgetMessage, coldestK, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
+import { belowAbsoluteZeroMessage, budgetMessage, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
   /**
@@ -125,10 +125,16 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     floorS = stepGuardDefaults.floorShare * smallestRelaxationS(ws);
     return true;
   };
-  const unsettled = (tS: number): EvolveEnd => ({
-    status: 'failed', tS, stats,
-    message: coldestK(ws.T) < 0 ? belowAbsoluteZeroMessage(problem, ws, cond, ws.faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
-  });
+  const unsettled = (tS: number): EvolveEnd => {
+    const bottom = faceBelowAbsoluteZero(ws, cond, 0);
+    const top = faceBelowAbsoluteZero(ws, cond, 1);
+    // a face whose balance needs T < 0 K is the cause: it outranks whatever the unconverged iterate holds
+    const faceQ = Float64Array.of(bottom ? -Infinity : ws.faceQ[0]!, top ? -Infinity : ws.faceQ[1]!);
+    return {
+      status: 'failed', tS, stats,
+      message: bottom || top || coldestK(ws.T) < 0 ? belowAbsoluteZeroMessage(problem, ws, cond, faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
+    };
+  };
   if (!settle()) return unsettled(0);
   // report the initial state as a step of zero length
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
@@ -142,6 +148,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
     const target = breaks[nextBreak] ?? durationS;
     const floor = Math.max(floorS, stepGuardDefaults.floorRelative * t);
+    const floored = adaptive && h <= floor;
     let step = Math.min(options.fixedStepS ?? Math.max(h, floor), numerics.maxStepS);
     let landing = false;
     if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
@@ -150,7 +157,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, t, durationS, step), tS: t, stats };
     }
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
-    const atFloor = adaptive && step <= floor;
+    // (a floored step stretched by rounding to land on a breakpoint is still at the floor)
+    const atFloor = floored || (adaptive && step <= floor);
     takeStep(ws, buf, step, cond, newton, scale, backwardEuler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
     if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {

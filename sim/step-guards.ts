@@ -6,14 +6,19 @@
  * G₋ and G₊ relaxes with the time constant τ = C·Δx/(G₋ + G₊) (the cell's own eigenvalue of the semi-discrete heat
  * equation, Patankar 1980 §4.3). A step far below the smallest τ resolves nothing the grid can show: the error
  * estimate there is measuring the start-up transient of a thin cell after an abrupt change (a held face switched on),
- * which TR-BDF2 damps anyway (L-stable). So below that floor the step is taken and accepted at the floor.
+ * which TR-BDF2 damps anyway (L-stable). So at a small share of it the step is taken and accepted whatever the error
+ * estimate says (a forced step, counted in the run's statistics).
  */
 import type { StepConditions, Workspace } from './discretization.ts';
+import { faceHeatIn } from './faces.ts';
 import type { Problem } from './problem.ts';
 
 export const stepGuardDefaults = {
-  /** Smallest step as a share of the smallest cell relaxation time: a tenth resolves a thin cell's transient. */
-  floorShare: 0.1,
+  /**
+   * Smallest step as a share of the smallest cell relaxation time: a thousandth, so the error control still meets the
+   * tolerance on every transient the grid resolves (from there the step grows ×3 a step back to the cell's own time).
+   */
+  floorShare: 1e-3,
   /** …and never below this share of the time reached, so that t + h differs from t in double precision (ε ≈ 2e-16). */
   floorRelative: 1e-12,
   /**
@@ -57,6 +62,20 @@ export function belowAbsoluteZeroMessage(problem: Problem, ws: Workspace, cond: 
     if (drawn > most) { most = drawn; what = `the heat drawn by the source in layer ${layer.id}`; }
   });
   return `${what} exceeds what the stack holds: its temperature would fall below absolute zero at t = ${formatTime(tS)} s`;
+}
+
+/**
+ * Whether a face's balance has no root at or above 0 K: even at 0 K the face would lose more heat (its own net input
+ * q(0 K) plus what its half cell conducts to it) than it gets, so its temperature would have to fall below absolute
+ * zero. The balance G·(T_face − T_cell) − q(T_face) rises with T_face for every physical term, so this decides it.
+ */
+export function faceBelowAbsoluteZero(ws: Workspace, cond: StepConditions, side: 0 | 1): boolean {
+  const c = side === 0 ? cond.bottom : cond.top;
+  if (c.kind === 'fixed') return false;
+  const g = side === 0 ? ws.G[0]! : ws.G[ws.n]!;
+  const cellK = side === 0 ? ws.T[1]! : ws.T[ws.n]!;
+  const scratch = new Float64Array(1);
+  return faceHeatIn(c, side === 0 ? ws.bottomContext : ws.topContext, 0, scratch) + g * cellK < 0;
 }
 
 /** The message for a run that would need more work than the budget allows. */

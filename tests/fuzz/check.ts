@@ -25,11 +25,13 @@ export interface FuzzOutcome {
 export const PHYSICAL_STOPS = [/would fall below absolute zero/, /exceed its step budget/];
 
 /**
- * Energy balance: the imbalance relative to the largest term. Each step closes to round-off (tr-bdf2.ts), so the
- * ledger drifts by about (steps × cells) roundings of the stored enthalpy; 1e-9 leaves room for 1e5 steps of 1e3
- * cells at double precision (2.2e-16 each) with a margin.
+ * Energy balance: the imbalance relative to the largest term. Each stage closes its equations to the round-off of its
+ * tridiagonal solve (tr-bdf2.ts), which the stage matrix's condition number amplifies (Higham 2002, §9.5: forward
+ * error ≲ κ·u). A 1 µm metal layer beside millimetres of insulation gives κ ≈ 1e6–1e7 (cell conductances from ~1e9 to ~1e4
+ * W/m²K), so κ·u ≈ 1e-9; measured worst 1.8e-9 over 10 000 fuzzed scenarios. 1e-8 holds that with a margin; the
+ * examples stay at ≈ 1e-14 (tests/verification/energy-ledger.test.ts).
  */
-const ENERGY_REL = 1e-9;
+const ENERGY_REL = 1e-8;
 /** Unit round-off of IEEE 754 double precision, 2⁻⁵³. */
 const UNIT_ROUNDOFF = 2 ** -53;
 /**
