@@ -95,7 +95,7 @@ export function holdKnob(problem: Problem): Knob | string {
     }
     return value + afterS > p.durationS ? { ...p, durationS: value + afterS } : p;
   };
-  if (!(hi > lo)) return `the hold cannot be varied: ${path} has no room between ${lo} s and ${hi} s`;
+  // hi > lo always: segments start in strict order and the heat ends before the run does (lastOrError)
   return {
     vary: 'time', path, label: 'heater hold', unit: 's', lo, hi, own: last.endS, show: (v) => v,
     apply: (value) => {

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { holdKnob, powerKnob } from '../../sim/study/knob.ts';
 import { heatOffTime } from '../../sim/verdict.ts';
 import { assertClose } from '../support/assert-close.ts';
-import { PLAIN, parseOk, slab } from '../support/scenarios.ts';
+import { PLAIN, parseOk, scenario, slab } from '../support/scenarios.ts';
 
 const plate = { from_s: 0, plate: { temperature_C: 450, conductance_W_m2K: 500 } };
 
@@ -14,7 +14,10 @@ describe('holdKnob()', () => {
     const p = parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 3600, bottom: [plate, { from_s: 900, convection_W_m2K: 6 }] }));
     const k = holdKnob(p);
     if (typeof k === 'string') throw new Error(k);
-    expect([k.path, k.lo, k.hi, k.own]).toEqual(['bottom[1].from_s', 0, 3600, 900]);
+    expect([k.path, k.lo, k.hi, k.own, k.label, k.unit, k.vary]).toEqual(['bottom[1].from_s', 0, 3600, 900, 'heater hold', 's', 'time']);
+    expect(k.apply(3600).bottom[1]!.fromS).toBe(3600);
+    // a shorter hold keeps the scenario's duration (it is only ever lengthened)
+    expect(k.apply(600).durationS).toBe(3600);
     const moved = k.apply(600);
     expect(moved.bottom.map((s) => s.fromS)).toEqual([0, 600]);
     expect(heatOffTime(moved)).toBe(600);
@@ -45,12 +48,33 @@ describe('holdKnob()', () => {
     expect([at600.bottom[1]!.fromS, at600.layers[0]!.sources[0]!.toS]).toEqual([600, 600]);
     expect(heatOffTime(at600)).toBe(600);
     expect(k.apply(200).layers[0]!.sources).toEqual([]);
+    expect(k.apply(300).layers[0]!.sources).toEqual([]); // would be an empty interval [300, 300)
     expect(heatOffTime(k.apply(200))).toBe(200);
+  });
+
+  it('holdKnob() moves a top-face plate, and only the moving intervals of each layer', () => {
+    const p = parseOk(scenario({ duration_s: 1800, materials: { m: PLAIN },
+      layers: [
+        { id: 'a', material: 'm', thickness_mm: 1, source_W_m3: [{ from_s: 0, to_s: 100, value: 1e5 }, { from_s: 100, to_s: 900, value: 1e5 }] },
+        { id: 'b', material: 'm', thickness_mm: 1, source_W_m3: [{ from_s: 0, to_s: 900, value: 1e5 }] },
+      ],
+      bottom: [{ from_s: 0, convection_W_m2K: 5 }],
+      top: [plate, { from_s: 900, convection_W_m2K: 6 }] }));
+    const k = holdKnob(p);
+    if (typeof k === 'string') throw new Error(k);
+    const q = k.apply(500);
+    expect(q.top.map((s) => s.fromS)).toEqual([0, 500]);
+    expect(q.bottom).toBe(p.bottom);
+    expect(q.layers[0]!.sources.map((s) => [s.fromS, s.toS])).toEqual([[0, 100], [100, 500]]);
+    expect(q.layers[1]!.sources.map((s) => [s.fromS, s.toS])).toEqual([[0, 500]]);
   });
 
   it('holdKnob() explains why there is nothing to vary', () => {
     expect(holdKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 60, bottom: [{ from_s: 0, convection_W_m2K: 6 }] }))))
       .toMatch(/no heat input/);
+    // a source lasting exactly to the end of the run never ends
+    expect(holdKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 60, source_W_m3: 1e5 }))))
+      .toMatch(/the heat input layers\[0\] \(slab\)\.source_W_m3\[0\] lasts to the end of the run/);
   });
 });
 
@@ -67,6 +91,35 @@ describe('powerKnob()', () => {
     expect(c.kind === 'terms' && c.plate?.tK).toBe(750);
     const f = powerKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 600, bottom: [{ from_s: 0, flux_W_m2: 2000 }, { from_s: 100 }] })));
     if (typeof f === 'string') throw new Error(f);
-    expect([f.path, f.lo, f.hi, f.own]).toEqual(['bottom[0].flux_W_m2', 0, 6000, 2000]);
+    expect([f.path, f.lo, f.hi, f.own, f.unit]).toEqual(['bottom[0].flux_W_m2', 0, 6000, 2000, 'W/m²']);
+    const g = f.apply(3000).bottom[0]!.condition;
+    expect(g.kind === 'terms' && g.fluxWPerM2).toBe(3000);
+    expect(() => f.apply(6001)).toThrow(/power: must be within \[0, 6000\], got 6001/);
+    expect(() => f.apply(-1)).toThrow(/power: must be within/);
+    expect(f.apply(0).bottom[0]!.condition).toMatchObject({ fluxWPerM2: 0 });
+    expect(f.apply(6000).bottom[0]!.condition).toMatchObject({ fluxWPerM2: 6000 });
+  });
+
+  it('powerKnob() ranges a plate from the coldest of ambient and start to 50 K above the highest limit', () => {
+    const limited = { ...PLAIN, limits: [{ kind: 'ignition' as const, at_C: 600 }, { kind: 'melt' as const, at_C: 650 }] };
+    const k = powerKnob(parseOk(slab({ material: limited, thickness_mm: 2, duration_s: 3600, ambient_C: 20, initial_C: 100,
+      bottom: [plate, { from_s: 900, convection_W_m2K: 6 }] })));
+    if (typeof k === 'string') throw new Error(k);
+    // T/K = t/°C + 273.15 (ISO 80000-5): 20 °C and 650 °C + 50 K
+    assertClose(k.lo, 293.15, { abs: 1e-9 }, 'bottom of the range, K');
+    assertClose(k.hi, 973.15, { abs: 1e-9 }, 'top of the range, K');
+    expect([k.label, k.unit]).toEqual(['plate temperature', '°C']);
+  });
+
+  it('powerKnob() varies a held face temperature and a volumetric source', () => {
+    const held = powerKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 600, bottom: [{ from_s: 0, fixed_C: 400 }, { from_s: 60, convection_W_m2K: 6 }] })));
+    if (typeof held === 'string') throw new Error(held);
+    expect([held.path, held.label]).toEqual(['bottom[0].fixed_C', 'held face temperature']);
+    expect(held.apply(700).bottom[0]!.condition).toEqual({ kind: 'fixed', tK: 700 });
+    const src = powerKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 600, source_W_m3: [{ from_s: 0, to_s: 60, value: 2e5 }] })));
+    if (typeof src === 'string') throw new Error(src);
+    expect([src.path, src.lo, src.hi, src.own, src.unit]).toEqual(['layers[0].source_W_m3[0].value', 0, 6e5, 2e5, 'W/m³']);
+    expect(src.apply(3e5).layers[0]!.sources[0]!.value).toBe(3e5);
+    expect(powerKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 60, bottom: [{ from_s: 0, convection_W_m2K: 6 }] })))).toMatch(/no heat input/);
   });
 });

@@ -30,6 +30,10 @@ const cases: [string, number[], number[], number, number, Kind, number | null][]
   ['falls to the level between two points', [0, 1, 2], [1, 0.5, 0], 0.25, 0, 'fall-to', 1.5],
   ['one point at or past the level', [5], [0], 0.5, 0, 'fall-to', 5],
   ['one point cannot fall below', [5], [0], 0.5, 0, 'fall-below', null],
+  ['one point exactly where the search starts', [5], [0], 0.5, 5, 'fall-to', 5],
+  ['touches the level at a point, then goes below', [0, 1, 2], [1, 0.5, 0.2], 0.5, 0, 'fall-below', 1],
+  ['falls below exactly where the search starts', [0, 1, 2], [1, 1, 0], 0.5, 1.5, 'fall-below', 1.5],
+  ['was above before the search started, dips, then rises again', [0, 1, 2, 3], [2, 0, 0, 2], 1, 0.5, 'rise-to', 2.5],
 ];
 
 describe('firstCrossing()', () => {
@@ -50,6 +54,7 @@ describe('heatOffTime()', () => {
     ['a held face until 250 s', problem([{ from_s: 0, fixed_C: 400 }, { from_s: 250, convection_W_m2K: 10 }]), 250],
     ['a source until 50 s', problem([{ from_s: 0, convection_W_m2K: 10 }], [], [{ from_s: 0, to_s: 50, value: 1e6 }]), 50],
     ['a heat sink only (negative source)', problem([{ from_s: 0, convection_W_m2K: 10 }], [], [{ from_s: 0, to_s: 50, value: -1e6 }]), 0],
+    ['a source of zero', problem([{ from_s: 0, convection_W_m2K: 10 }], [], [{ from_s: 0, to_s: 50, value: 0 }]), 0],
     ['the later of a top plate (200 s) and a bottom flux (300 s)', problem(
       [{ from_s: 0, flux_W_m2: 1000 }, { from_s: 300 }],
       [{ from_s: 0, plate: { temperature_C: 300, conductance_W_m2K: 100 } }, { from_s: 200, emissivity: 0.5 }]), 300],
@@ -142,6 +147,20 @@ describe('summarize()', () => {
     expect(hotCase.safe_window_status).toBe('ok');
   });
 
+  it('summarize() gives the first time of a peak that lasts, and the first of equally close layers and limits as binding', () => {
+    // the case layer holds 400 °C from the start: its peak time is 0 s, not the last time it was there
+    const s = summarize(problemOf(), recordOf(peaks(500)));
+    assertClose(s.layers.case!.peak_at_s, 0, EXACT, 'case peak time');
+    // case at 600 °C (100 K to softening at 700) and anode at 500 °C (100 K to ignition): the lower layer is listed first
+    const tie = summarize(problemOf(), recordOf({ ...peaks(500), case: flat(600) }));
+    expect(tie.binding_layer).toBe('case');
+    // two limits 100 K away (melt 650 °C from a 550 °C peak, and a second melt limit at 650 °C): the first listed binds
+    const twin = parseOk(scenario({ duration_s: 1000, materials: { salt: SALT, metal: { ...METAL, limits: [{ kind: 'softening', at_C: 650 }, { kind: 'melt', at_C: 650 }] }, case: CASE },
+      layers: [{ id: 'case', material: 'case', thickness_mm: 1 }, { id: 'sep', material: 'salt', thickness_mm: 1, separator: true }, { id: 'anode', material: 'metal', thickness_mm: 1 }],
+      bottom: plateUntil(100) }));
+    expect(summarize(twin, recordOf(peaks(550))).layers.anode!.limit?.kind).toBe('softening');
+  });
+
   it('summarize() reports limit-crossed and no window when a layer goes past its limit', () => {
     const s = summarize(problemOf(), recordOf(peaks(610)));
     expect(s.safe_window_status).toBe('limit-crossed');
@@ -209,12 +228,12 @@ describe('summarize()', () => {
   });
 
   it('summarize() adds heat in and out over both faces and the source, and states the imbalance', () => {
-    const s = summarize(problemOf(), recordOf(peaks(500), TRACE, { bottomInJ: 1000, bottomOutJ: 100, topInJ: 0, topOutJ: 300, sourceJ: 200, storedJ: 790 }));
-    assertClose(s.energy.in_J_m2, 1200, EXACT, 'in');
+    const s = summarize(problemOf(), recordOf(peaks(500), TRACE, { bottomInJ: 1000, bottomOutJ: 100, topInJ: 50, topOutJ: 300, sourceJ: 200, storedJ: 840 }));
+    assertClose(s.energy.in_J_m2, 1250, EXACT, 'in');
     assertClose(s.energy.out_J_m2, 400, EXACT, 'out');
-    assertClose(s.energy.stored_J_m2, 790, EXACT, 'stored');
-    // |790 − (1200 − 400)| / max(1200, 400, 790) = 10 / 1200
-    assertClose(s.energy.imbalance_rel, 10 / 1200, { rel: 1e-12 }, 'imbalance');
+    assertClose(s.energy.stored_J_m2, 840, EXACT, 'stored');
+    // |840 − (1250 − 400)| / max(1250, 400, 840) = 10 / 1250
+    assertClose(s.energy.imbalance_rel, 10 / 1250, { rel: 1e-12 }, 'imbalance');
     const sink = summarize(problemOf(), recordOf(peaks(500), TRACE, { bottomInJ: 500, sourceJ: -200, storedJ: 300 }));
     assertClose(sink.energy.out_J_m2, 200, EXACT, 'a sink counts as heat out');
   });
@@ -231,5 +250,10 @@ describe('heatInputs() and lastHeatInput()', () => {
       bottom: [{ from_s: 0, convection_W_m2K: 6 }], source_W_m3: [{ from_s: 10, to_s: 300, value: 1e6 }] }));
     expect(lastHeatInput(q)).toEqual({ kind: 'source', layer: 0, interval: 0, fromS: 10, endS: 300 });
     expect(lastHeatInput(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 60, bottom: [{ from_s: 0, convection_W_m2K: 6 }] })))).toBeUndefined();
+    // a plate and a source that end together: the first found (the face) is named
+    const r = parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 3600,
+      bottom: [{ from_s: 0, plate: { temperature_C: 450, conductance_W_m2K: 500 } }, { from_s: 900, convection_W_m2K: 6 }],
+      source_W_m3: [{ from_s: 0, to_s: 900, value: 1e6 }] }));
+    expect(lastHeatInput(r)?.kind).toBe('face');
   });
 });
