@@ -39,7 +39,8 @@ export function formatNumber(v: unknown, style: NumberStyle = {}): string {
     if (a !== 0 && (a < formatDefaults.exponentBelow || a >= formatDefaults.exponentFrom)) {
       return v.toExponential(Math.max(style.significant - 1, 0)).replace(/\.?0+e/, 'e');
     }
-    return trimZeros(v.toPrecision(style.significant));
+    // toPrecision writes 679062 with 3 digits as "6.79e+5": round to the digits, then print the plain decimal
+    return trimZeros(String(Number(v.toPrecision(style.significant))));
   }
   const text = v.toFixed(style.decimals ?? 1);
   return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;

@@ -47,6 +47,12 @@ describe('sim/format', () => {
     expect(formatSignificant(2.5e-14)).toBe('2.5e-14');
   });
 
+  it('formatNumber() with fewer significant digits than integer digits still prints a plain decimal', () => {
+    // 679 061.7 to 3 digits is 679 000 (rounding by hand), not "6.79e+5"
+    expect(formatNumber(679061.7, { significant: 3 })).toBe('679000');
+    expect(formatNumber(-1234.5, { significant: 2 })).toBe('-1200');
+  });
+
   it('no formatter ever prints NaN or Infinity', () => {
     for (const v of NOT_NUMBERS) {
       for (const text of [formatNumber(v), formatTime(v, 'w'), formatMargin(v, 'w'), formatSignificant(v), formatEnergy(v)]) {
