@@ -96,6 +96,7 @@ describe('powerKnob()', () => {
     expect(g.kind === 'terms' && g.fluxWPerM2).toBe(3000);
     expect(() => f.apply(6001)).toThrow(/power: must be within \[0, 6000\], got 6001/);
     expect(() => f.apply(-1)).toThrow(/power: must be within/);
+    expect(f.apply(3000).bottom[1]).toEqual(f.apply(0).bottom[1]); // only the heating segment changes
     expect(f.apply(0).bottom[0]!.condition).toMatchObject({ fluxWPerM2: 0 });
     expect(f.apply(6000).bottom[0]!.condition).toMatchObject({ fluxWPerM2: 6000 });
   });
@@ -116,10 +117,11 @@ describe('powerKnob()', () => {
     if (typeof held === 'string') throw new Error(held);
     expect([held.path, held.label]).toEqual(['bottom[0].fixed_C', 'held face temperature']);
     expect(held.apply(700).bottom[0]!.condition).toEqual({ kind: 'fixed', tK: 700 });
-    const src = powerKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 600, source_W_m3: [{ from_s: 0, to_s: 60, value: 2e5 }] })));
+    const src = powerKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 600,
+      source_W_m3: [{ from_s: 0, to_s: 60, value: 2e5 }, { from_s: 60, to_s: 90, value: -1e5 }] })));
     if (typeof src === 'string') throw new Error(src);
     expect([src.path, src.lo, src.hi, src.own, src.unit]).toEqual(['layers[0].source_W_m3[0].value', 0, 6e5, 2e5, 'W/m³']);
-    expect(src.apply(3e5).layers[0]!.sources[0]!.value).toBe(3e5);
+    expect(src.apply(3e5).layers[0]!.sources.map((s) => s.value)).toEqual([3e5, -1e5]);
     expect(powerKnob(parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 60, bottom: [{ from_s: 0, convection_W_m2K: 6 }] })))).toMatch(/no heat input/);
   });
 });
