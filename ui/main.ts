@@ -24,6 +24,7 @@ import { firstNonFinite } from './protocol.ts';
 import { shownResult } from './result.ts';
 import { createResultsView } from './results-view.ts';
 import { createRunner } from './runner.ts';
+import { createOperatingPanel } from './operating-view.ts';
 import { createStudyPanel } from './study-view.ts';
 import { renderSetupEditor, type SetupEditor } from './setup-editor.ts';
 import { refreshSourceNotes } from './source-rows.ts';
@@ -59,6 +60,7 @@ function renderEditors(): void {
 }
 
 const results = createResultsView();
+const operating = createOperatingPanel(byId('operating'));
 createStudyPanel(byId('study'), store);
 const status = createStatusView(() => runner.cancel());
 const runner = createRunner({
@@ -86,6 +88,8 @@ const runner = createRunner({
     const drawn = results.show(shownResult(job, scenario as JsonObject, record, summary));
     performance.mark('freezeline:verdict');
     void drawn.then(() => performance.mark('freezeline:plotted'));
+    // the window search (many runs) starts once the charts are drawn, in its own worker
+    void drawn.then(() => operating.request(scenario));
   },
   onErrors: (errors) => {
     lastErrors = errors;

@@ -59,7 +59,7 @@ describe('operating-duration panel', () => {
     let job = await waitForWindow(page);
     job = await setPlate(page, '800', job);
     const at800 = Number(await cardValue(page, 'operating-longest'));
-    job = await setPlate(page, '900', job);
+    await setPlate(page, '900', job);
     const at900 = Number(await cardValue(page, 'operating-longest'));
     expect(at800).toBeGreaterThan(0);
     expect(at900).toBeGreaterThan(0);
