@@ -23,8 +23,8 @@ const fuzzDefaults = {
   /** Heap per worker, MB: "a few hundred MB" is the target; a case past this is a failure. */
   heapMb: 1024,
   save: '/tmp/freezeline-fuzz',
-  /** A progress line on stderr every this many cases. */
-  progressEvery: 1000,
+  /** A progress line on stderr (with the tally so far) every this many cases. */
+  progressEvery: 500,
 } as const;
 
 const { values } = parseArgs({
@@ -90,7 +90,10 @@ let done = 0;
 await Promise.all(Array.from({ length: Math.max(1, threads) }, async () => {
   while (next < scenarios.length) {
     await runOne(next++);
-    if (++done % fuzzDefaults.progressEvery === 0) console.error(`  … ${done} of ${count} (${((performance.now() - started) / 1000).toFixed(0)} s)`);
+    if (++done % fuzzDefaults.progressEvery === 0) {
+      const tally = [...counts].map(([k, n]) => `${n} ${k.slice(0, 40)}`).join('; ');
+      console.error(`  … ${done} of ${count} (${((performance.now() - started) / 1000).toFixed(0)} s; slowest ${slowest.ms.toFixed(0)} ms; RSS ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB): ${tally}`);
+    }
   }
 }));
 await pool.destroy();

@@ -12,10 +12,19 @@ import type { FaceSegmentFile, InlineMaterialFile, LayerFile, ScenarioFile } fro
 const round = (v: number): number => Number(v.toPrecision(3));
 /** Temperatures to 0.01 K, so the rows of a table stay strictly increasing after rounding. */
 const roundT = (v: number): number => Math.round(v * 100) / 100;
+/**
+ * A fraction in [0, 1], uniform in value. (fc.double draws uniformly among representable doubles, most of which are
+ * tiny: through exp() nearly every draw became 1, so 90 % of scenarios were 1 s long with 1 mm layers.)
+ */
+const FRACTION_STEPS = 2 ** 30;
+const fraction = fc.integer({ min: 0, max: FRACTION_STEPS }).map((i) => i / FRACTION_STEPS);
 /** A log-uniform number in [lo, hi]. */
-const logRange = (lo: number, hi: number) =>
-  fc.double({ min: Math.log(lo), max: Math.log(hi), noNaN: true }).map((x) => round(Math.exp(x)));
-const range = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true }).map((v) => (Math.abs(v) < 1e-6 ? 0 : round(v)));
+const logRange = (lo: number, hi: number) => fraction.map((f) => round(lo * (hi / lo) ** f));
+/** A uniform number in [lo, hi]. */
+const range = (lo: number, hi: number) => fraction.map((f) => {
+  const v = lo + (hi - lo) * f;
+  return Math.abs(v) < 1e-6 ? 0 : round(v);
+});
 
 const library = libraryNames();
 const libraryMelting = library.filter((name) => libraryMaterial(name)?.melt !== undefined);
@@ -83,9 +92,9 @@ interface LayerDraft {
   readonly contact: number | undefined;
 }
 
-const layerDraft = (duration: number): fc.Arbitrary<LayerDraft> => fc.record({
+const layerDraft = (duration: number, maxMm: number): fc.Arbitrary<LayerDraft> => fc.record({
   material: fc.oneof(inlineMaterial, fc.constantFrom(...library)),
-  thicknessMm: logRange(0.001, 100),
+  thicknessMm: logRange(0.001, maxMm),
   separator: fc.boolean(),
   source: fc.option(fc.record({ from: range(0, 0.99), to: range(0, 1), value: fc.oneof(range(-1e8, 1e8), range(-1e5, 1e6)) })
     .map((s) => ({ from: round(s.from * duration), to: round(Math.max(s.from, s.to) * duration), value: s.value })), { nil: undefined, freq: 3 }),
@@ -96,8 +105,8 @@ const melts = (m: InlineMaterialFile | string): boolean =>
   (typeof m === 'string' ? libraryMelting.includes(m) : m.melt !== undefined);
 
 /** Numerical settings a user may try: tolerances from tight to loose, finer and coarser grids, a capped step. */
-const numericsDraft = fc.record({
-  toleranceK: fc.option(logRange(1e-3, 5), { nil: undefined }),
+const numericsDraft = (minToleranceK: number) => fc.record({
+  toleranceK: fc.option(logRange(minToleranceK, 5), { nil: undefined }),
   liquidFraction: fc.option(logRange(1e-4, 0.2), { nil: undefined }),
   cellsPerMm: fc.option(logRange(0.5, 40), { nil: undefined }),
   minCells: fc.option(fc.integer({ min: 1, max: 40 }), { nil: undefined }),
@@ -105,7 +114,7 @@ const numericsDraft = fc.record({
 });
 
 /** The numerics block, its cell density capped so the stack stays within 2000 cells (validation allows 10 000). */
-function numericsFor(n: typeof numericsDraft extends fc.Arbitrary<infer T> ? T : never, duration: number, totalMm: number) {
+function numericsFor(n: ReturnType<typeof numericsDraft> extends fc.Arbitrary<infer T> ? T : never, duration: number, totalMm: number) {
   const cellsPerMm = n.cellsPerMm === undefined ? undefined : round(Math.min(n.cellsPerMm, 1000 / totalMm));
   return {
     ...(n.toleranceK !== undefined ? { tolerance_K: n.toleranceK } : {}),
@@ -116,9 +125,23 @@ function numericsFor(n: typeof numericsDraft extends fc.Arbitrary<infer T> ? T :
   };
 }
 
-/** A valid scenario across the ranges above. */
-export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = fc.record({
-  duration: fc.oneof(logRange(1, 1e7), logRange(1, 3600)),
+export interface ScenarioRanges {
+  /** Longest run, s. */
+  readonly maxDurationS: number;
+  /** Thickest layer, mm. */
+  readonly maxLayerMm: number;
+  /** Tightest numerics.tolerance_K drawn, K. */
+  readonly minToleranceK: number;
+}
+
+/** The ranges of the long tier (`npm run fuzz`). */
+export const FULL_RANGES: ScenarioRanges = { maxDurationS: 1e7, maxLayerMm: 100, minToleranceK: 1e-3 };
+/** The quick tier's (`npm test`): runs up to an hour, layers up to 10 mm, tolerances from 0.01 K; the rest as above. */
+export const QUICK_RANGES: ScenarioRanges = { maxDurationS: 3600, maxLayerMm: 10, minToleranceK: 1e-2 };
+
+/** Valid scenarios across the given ranges. */
+export const scenarios = (r: ScenarioRanges): fc.Arbitrary<ScenarioFile> => fc.record({
+  duration: fc.oneof(logRange(1, r.maxDurationS), logRange(1, Math.min(3600, r.maxDurationS))),
   ambient: range(-40, 60),
   initial: fc.option(range(-60, 1500), { nil: undefined }),
   footprint: fc.option(fc.oneof(
@@ -129,11 +152,11 @@ export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = fc.record({
   const natural = base.footprint !== undefined;
   return fc.record({
     base: fc.constant(base),
-    layers: fc.array(layerDraft(base.duration), { minLength: 1, maxLength: 8 }),
+    layers: fc.array(layerDraft(base.duration, r.maxLayerMm), { minLength: 1, maxLength: 8 }),
     bottom: schedule(base.duration, natural),
     top: schedule(base.duration, natural),
     outputs: fc.uniqueArray(range(0, 1).map((f) => round(f * base.duration)), { maxLength: 4 }),
-    numerics: fc.option(numericsDraft, { nil: undefined, freq: 5 }),
+    numerics: fc.option(numericsDraft(r.minToleranceK), { nil: undefined, freq: 5 }),
   });
 }).map(({ base, layers, bottom, top, outputs, numerics }) => {
   const materials: Record<string, InlineMaterialFile> = {};
@@ -166,3 +189,6 @@ export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = fc.record({
     ...(numerics ? { numerics: numericsFor(numerics, base.duration, layers.reduce((a, l) => a + l.thicknessMm, 0)) } : {}),
   } satisfies ScenarioFile;
 });
+
+/** A valid scenario across the full ranges. */
+export const scenarioArbitrary: fc.Arbitrary<ScenarioFile> = scenarios(FULL_RANGES);
