@@ -52,7 +52,7 @@ function program(): Command {
         process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
         for (const line of requirementLines) process.stderr.write(`${line}\n`);
       } else {
-        process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, requirements: requirementLines, verbose: opts.verbose })}\n`);
+        process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, requirements: requirementLines, verbose: opts.verbose, steps: out.stats.steps })}\n`);
       }
       // every unmet expectation and requirement on stderr, then exit 3
       const failed = [...unmet(expectations).map((o) => `${file}: expectation not met: ${o.statement}; the run gave ${o.actual}`), ...unmetRequirements];

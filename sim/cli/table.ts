@@ -21,6 +21,8 @@ export interface TableExtras {
   readonly requirements?: readonly string[];
   /** Print the solver's own convection warnings (Rayleigh ranges) beside the plain-words note. */
   readonly verbose?: boolean;
+  /** Accepted steps of the run (EvolveStats.steps): a long run's record is thinned, so its rows undercount them. */
+  readonly steps?: number;
 }
 
 const pad = (s: string, n: number) => s.padEnd(n);
@@ -74,7 +76,7 @@ export function summaryTable(problem: Problem, summary: Summary, record: RunReco
   const e = summary.energy;
   lines.push('');
   lines.push(`  ${verdictTerms.energy.term}: in ${formatEnergy(e.in_J_m2)}, out ${formatEnergy(e.out_J_m2)}, stored ${formatEnergy(e.stored_J_m2)}, imbalance ${formatImbalance(e.imbalance_rel)}`);
-  lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${record.tS.length - 1} ${terms.step.term}s`);
+  lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${extras.steps ?? record.tS.length - 1} ${terms.step.term}s`);
   lines.push(...expectationLines(extras.expectations ?? []));
   if (extras.requirements?.length) lines.push('', ...extras.requirements);
   const note = convectionSentence(problem, record);

@@ -17,6 +17,6 @@ describe('README.md example', () => {
     const out = runProblem(parsed.problem);
     if (out.status !== 'ok') throw new Error(out.status);
     const expectations = evaluateExpectations(parsed.scenario.expect, out.summary);
-    expect(summaryTable(parsed.problem, out.summary, out.record, { expectations })).toBe(shown);
+    expect(summaryTable(parsed.problem, out.summary, out.record, { expectations, steps: out.stats.steps })).toBe(shown);
   });
 });
