@@ -10,12 +10,10 @@
  * Outside the tables the end values are held (flat c_p and k), so H is extended linearly.
  */
 import type { LimitKind } from './scenario-schema.ts';
+import { evalTable, evalTableWithSlope, type Table } from './table.ts';
 
-/** A piecewise-linear table y(T), flat outside its range. Temperatures in K. */
-export interface Table {
-  readonly tK: Float64Array;
-  readonly y: Float64Array;
-}
+export { evalTable, evalTableWithSlope, type Table };
+
 
 /**
  * Volumetric enthalpy curve, J/m³ against K. Knot i sits at (tK[i], h[i]); on segment i (knot i to i+1) the capacity
@@ -73,24 +71,6 @@ export interface Material {
 
 /** Width of the sensible-only end segments of an enthalpy curve, K (any positive width gives the same curve). */
 const BRACKET_K = 1000;
-
-/** Evaluates a table at T (K): linear between rows, the end value outside. */
-export function evalTable(table: Table, tK: number): number {
-  const { tK: xs, y } = table;
-  const n = xs.length;
-  if (n === 1 || tK <= xs[0]!) return y[0]!;
-  if (tK >= xs[n - 1]!) return y[n - 1]!;
-  let lo = 0;
-  let hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (xs[mid]! <= tK) lo = mid;
-    else hi = mid;
-  }
-  const x0 = xs[lo]!;
-  const y0 = y[lo]!;
-  return y0 + ((y[hi]! - y0) * (tK - x0)) / (xs[hi]! - x0);
-}
 
 export interface MaterialInput {
   readonly name: string;
@@ -205,28 +185,6 @@ export function conductivityAt(material: Material, hJ: number, tK: number): numb
   return mushConductivity(melt, liquidFractionOf(material, hJ, tK));
 }
 
-/**
- * A table's value at T (K) and, in out[0], its slope dy/dT (0 outside the table, where it is held flat): one search
- * for both. Overwrites out[0]. Allocates nothing.
- */
-export function evalTableWithSlope(table: Table, tK: number, out: Float64Array): number {
-  const { tK: xs, y } = table;
-  const n = xs.length;
-  out[0] = 0;
-  if (n === 1 || tK <= xs[0]!) return y[0]!;
-  if (tK >= xs[n - 1]!) return y[n - 1]!;
-  let lo = 0;
-  let hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (xs[mid]! <= tK) lo = mid;
-    else hi = mid;
-  }
-  const x0 = xs[lo]!;
-  const y0 = y[lo]!;
-  out[0] = (y[hi]! - y0) / (xs[hi]! - x0);
-  return y0 + ((y[hi]! - y0) * (tK - x0)) / (xs[hi]! - x0); // as evalTable() rounds it
-}
 
 /**
  * conductivityAt() and, in out[0], dk/dT (W·m⁻¹·K⁻²) of a single-phase cell, read as k is read: 0 where the table is
