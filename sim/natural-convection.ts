@@ -18,7 +18,7 @@
  * source), so h(T) has no jump that Newton could cycle across: they differ by 3 % at 10³ and 9 % at 10⁴ (up face).
  */
 import { airConductivity, airDiffusivity, airKinematicViscosity } from './air.ts';
-import { evalTable } from './material.ts';
+import { evalTable, evalTableWithSlope } from './table.ts';
 import type { Facing } from './problem.ts';
 import { STANDARD_GRAVITY_M_S2 } from './units.ts';
 
@@ -34,8 +34,6 @@ export const naturalConvectionDefaults = {
   blendHighRa: 1e4,
   /** Conduction floor of an up-facing disc on an adiabatic plane, Nu_L* = 2/π (S = 2D, Incropera Table 4.1). */
   conductionFloorNu: 2 / Math.PI,
-  /** Half-width of the central difference for dq/dT, K: far below any temperature scale of the face, far above round-off. */
-  slopeStepK: 1e-3,
 } as const;
 
 /** The film temperature at which air properties are taken, K: the mean of surface and free stream (Incropera §7.1). */
@@ -120,34 +118,36 @@ export function naturalConvectionCoefficient(facing: Facing, tK: number, fluidK:
   return naturalConvectionIn(facing, tK, fluidK, lengthM, slopeScratch) / (fluidK - tK);
 }
 
-/** h, W·m⁻²·K⁻¹, and d ln Nu/d ln Ra of a face at tK in air at fluidK (tK ≠ fluidK). */
-function coefficientWithSlope(facing: Facing, tK: number, fluidK: number, lengthM: number): NuSlope {
-  const ra = rayleigh(tK, fluidK, lengthM);
-  const film = filmTemperature(tK, fluidK);
-  const { nu, e } = nusseltWithSlope(ra, airPrandtl(film), plumeRisesFromFace(facing, tK, fluidK));
-  return { nu: (nu * evalTable(airConductivity, film)) / lengthM, e };
-}
+const propertySlope = new Float64Array(1);
 
 /**
  * Heat into a horizontal face at tK from air at fluidK, W/m², with its slope dq/dT in out[0]. Overwrites out[0].
- * The slope is a central difference over ±slopeStepK (air properties change with the film temperature, which an
- * analytic d ln Nu/d ln Ra leaves out, by up to 20 % on a hot face down); within a few steps of the air it is
- * (1 + d ln Nu/d ln Ra)·h, since q = h·ΔT with h ∝ Nu(Ra ∝ |ΔT|).
+ * q = h·(T∞ − T) with h = Nu(Ra, Pr)·k(T_f)/L and Ra ∝ |T − T∞|/(T_f·ν(T_f)·α(T_f)), T_f = (T + T∞)/2, so
+ *   d ln h/dT = (d ln Nu/d ln Ra)·[1/(T − T∞) − ½(1/T_f + ν'/ν + α'/α)] + ½·k'/k,   dq/dT = h·(d ln h/dT)·(T∞ − T) − h.
+ * The film-temperature terms matter (without them the slope is up to 20 % off on a hot face down); Pr is held, since
+ * it moves by a few per cent over the whole table and Nu by a fraction of that. The air tables are read once, with
+ * their slopes: one correlation evaluation per face and Newton iteration.
  */
 export function naturalConvectionIn(facing: Facing, tK: number, fluidK: number, lengthM: number, out: Float64Array): number {
   if (tK === fluidK) {
     out[0] = 0;
     return 0;
   }
-  const { nu: h, e } = coefficientWithSlope(facing, tK, fluidK, lengthM);
-  const d = naturalConvectionDefaults.slopeStepK;
-  if (Math.abs(tK - fluidK) > 4 * d) {
-    const above = coefficientWithSlope(facing, tK + d, fluidK, lengthM).nu * (fluidK - tK - d);
-    const below = coefficientWithSlope(facing, tK - d, fluidK, lengthM).nu * (fluidK - tK + d);
-    out[0] = (above - below) / (2 * d);
-  } else {
-    out[0] = -(1 + e) * h;
-  }
+  const film = filmTemperature(tK, fluidK);
+  const nuAir = evalTableWithSlope(airKinematicViscosity, film, propertySlope);
+  const dNuAir = propertySlope[0]!;
+  const alpha = evalTableWithSlope(airDiffusivity, film, propertySlope);
+  const dAlpha = propertySlope[0]!;
+  const k = evalTableWithSlope(airConductivity, film, propertySlope);
+  const dK = propertySlope[0]!;
+  const dT = tK - fluidK;
+  // the same expression as rayleigh() and airPrandtl(), from the same table values
+  const ra = (STANDARD_GRAVITY_M_S2 * Math.abs(dT) * lengthM ** 3) / (film * nuAir * alpha);
+  const { nu, e } = nusseltWithSlope(ra, nuAir / alpha, plumeRisesFromFace(facing, tK, fluidK));
+  const h = (nu * k) / lengthM;
+  const dLnRa = 1 / dT - 0.5 * (1 / film + dNuAir / nuAir + dAlpha / alpha);
+  const dLnH = e * dLnRa + (0.5 * dK) / k;
+  out[0] = h * dLnH * (fluidK - tK) - h;
   return h * (fluidK - tK);
 }
 
