@@ -13,7 +13,7 @@ import { AIR_TABLE_RANGE_K } from './air.ts';
 import type { StepReport } from './evolve.ts';
 import { liquidFractionOf } from './material.ts';
 import type { Grid } from './mesh.ts';
-import { filmTemperature, plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
+import { filmTemperature, naturalConvectionRanges, plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
 import { characteristicLengthM, type FaceCondition, type Problem } from './problem.ts';
 import type { SeparatorTrace } from './record-trace.ts';
 import { createTraceRecorder } from './record-trace.ts';
@@ -244,7 +244,7 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
         warnings.push(`${side} face: air film temperatures ${kToC(r.filmLowK).toFixed(0)}–${kToC(r.filmHighK).toFixed(0)} °C reach beyond the air-property table (${kToC(AIR_TABLE_RANGE_K.low).toFixed(0)}–${kToC(AIR_TABLE_RANGE_K.high).toFixed(0)} °C); its end values were held`);
       }
       if (r.outside) {
-        warnings.push(`${side} face: natural convection at Rayleigh numbers ${r.low.toPrecision(2)}–${r.high.toPrecision(2)}; for at least part of the run this is outside the correlation's published range (from 10⁴), so its power law was extrapolated`);
+        warnings.push(`${side} face: natural convection at Rayleigh numbers ${r.low.toPrecision(2)}–${r.high.toPrecision(2)}; for at least part of the run this is outside the published range of the correlation in use (hot face up from Ra ${naturalConvectionRanges.upperFacing.low}, hot face down from Ra ${naturalConvectionRanges.lowerFacing.low}), so it was extrapolated there`);
       }
     }
     const kept = rows.finish();
