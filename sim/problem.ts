@@ -3,6 +3,7 @@
  * only by scenario.ts. Face conditions are discriminated unions, so a held face can carry no other term.
  */
 import type { Material } from './material.ts';
+import { mmToM } from './units.ts';
 
 export type Convection =
   | { readonly kind: 'none' }
@@ -56,6 +57,20 @@ export interface Layer {
 export interface Footprint {
   readonly areaM2: number;
   readonly perimeterM: number;
+}
+
+/** A footprint as the file gives it, in mm: a disc or a rectangle. */
+export type FootprintMm = { readonly diameter_mm: number } | { readonly width_mm: number; readonly length_mm: number };
+
+/** Area (πd²/4 or w·l) and perimeter (πd or 2(w + l)) of a footprint given in mm, in m² and m: the one definition. */
+export function footprintGeometry(f: FootprintMm): Footprint {
+  if ('diameter_mm' in f) {
+    const d = mmToM(f.diameter_mm);
+    return { areaM2: (Math.PI * d * d) / 4, perimeterM: Math.PI * d };
+  }
+  const w = mmToM(f.width_mm);
+  const l = mmToM(f.length_mm);
+  return { areaM2: w * l, perimeterM: 2 * (w + l) };
 }
 
 /**

@@ -8,6 +8,7 @@ import type { Material } from './material.ts';
 import { layerHeatSources } from './heat-sources.ts';
 import { inlineMaterial } from './material-kinds.ts';
 import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from './problem.ts';
+import { footprintGeometry } from './problem.ts';
 import { capErrors, formatPath, formatZodIssue, nearestWord, quote, type FieldError } from './field-errors.ts';
 import { readJsonText } from './json-text.ts';
 import { libraryMaterial, unknownMaterialMessage } from './library.ts';
@@ -104,14 +105,7 @@ function fail(path: string, message: string): ParseResult {
 
 
 function footprintOf(f: ScenarioFile['footprint']): Footprint | undefined {
-  if (!f) return undefined;
-  if ('diameter_mm' in f) {
-    const d = mmToM(f.diameter_mm);
-    return { areaM2: (Math.PI * d * d) / 4, perimeterM: Math.PI * d };
-  }
-  const w = mmToM(f.width_mm);
-  const l = mmToM(f.length_mm);
-  return { areaM2: w * l, perimeterM: 2 * (w + l) };
+  return f ? footprintGeometry(f) : undefined;
 }
 
 function faceSchedule(segments: readonly FaceSegmentFile[], side: 'bottom' | 'top', s: ScenarioFile,

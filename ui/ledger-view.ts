@@ -2,6 +2,7 @@
  * The energy balance (per square metre of footprint, and for the whole footprint when it is given) and the warnings.
  * Figures at about 6 significant figures, as in the CLI and the CSV (sim/format.ts).
  */
+import { windowStatusWords } from '../sim/wording.ts';
 import { h } from './dom.ts';
 import { formatDefaults, formatNumber, NO_VALUE } from './format.ts';
 import type { ShownResult } from './result.ts';
@@ -41,8 +42,8 @@ export function renderLedger(root: HTMLElement, r: ShownResult): void {
 export function renderWarnings(root: HTMLElement, r: ShownResult): void {
   const items = [...r.record.warnings];
   const s = r.summary;
-  if (s.safe_window_status === 'still-molten-at-end') items.push('The separator is still molten when the run ends: lengthen the duration to see it freeze.');
-  if (s.safe_window_status === 'never-molten') items.push('The separator never became fully molten: the cell would not work as set up.');
+  // the two statuses a user can act on, in the wording table's sentences (the CLI prints the same)
+  if (s.safe_window_status === 'still-molten-at-end' || s.safe_window_status === 'never-molten') items.push(windowStatusWords[s.safe_window_status].sentence);
   root.replaceChildren(items.length === 0 ? h('p', { class: 'note' }, 'No warnings.')
     : h('ul', { class: 'warnings' }, ...items.map((w) => h('li', {}, w))));
 }

@@ -5,6 +5,7 @@
  *   W/m³ = W / (A · t)      A footprint area, t layer thickness (the layer's volume over the footprint)
  *   W/m³ = W/kg · ρ         ρ the layer material's density
  */
+import { footprintGeometry } from '../sim/problem.ts';
 import { asNumber, asObject, type JsonObject } from './json.ts';
 import type { MaterialInfo } from './materials.ts';
 
@@ -22,8 +23,8 @@ export function footprintAreaM2(scenario: JsonObject): number | undefined {
   const d = asNumber(fp.diameter_mm);
   const w = asNumber(fp.width_mm);
   const len = asNumber(fp.length_mm);
-  if (d !== undefined) return d > 0 ? (Math.PI * (d / 1000) ** 2) / 4 : undefined;
-  if (w !== undefined && len !== undefined && w > 0 && len > 0) return (w / 1000) * (len / 1000);
+  if (d !== undefined) return d > 0 ? footprintGeometry({ diameter_mm: d }).areaM2 : undefined;
+  if (w !== undefined && len !== undefined && w > 0 && len > 0) return footprintGeometry({ width_mm: w, length_mm: len }).areaM2;
   return undefined;
 }
 
