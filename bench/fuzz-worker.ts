@@ -3,7 +3,7 @@
  * reports the outcome with the heap in use afterwards. Run by tinypool, which ends the thread on a timeout.
  */
 import { checkScenario, type FuzzOutcome } from '../tests/fuzz/check.ts';
-import type { ScenarioFile } from '../sim/scenario-schema.ts';
+import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
 
 export interface FuzzTask { readonly index: number; readonly scenario: ScenarioFile }
 export interface FuzzReply { readonly index: number; readonly outcome: FuzzOutcome; readonly heapMb: number }

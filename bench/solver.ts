@@ -6,7 +6,7 @@
  */
 import scenario from '../examples/bench-coupon.json' with { type: 'json' };
 import { benchProblem } from '../sim/cli/bench-run.ts';
-import { parseScenario } from '../sim/scenario.ts';
+import { parseScenario } from '../sim/scenario/scenario.ts';
 
 const SCALING_CELLS = [100, 200, 400, 800, 1600];
 const RUNS = 15;

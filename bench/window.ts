@@ -5,7 +5,7 @@
  * Figures only: nothing here asserts a time or a count (the brief's target: ≤ 40 solves, ≤ 1 s in the browser).
  */
 import scenario from '../examples/bench-coupon.json' with { type: 'json' };
-import { parseScenario } from '../sim/scenario.ts';
+import { parseScenario } from '../sim/scenario/scenario.ts';
 import { searchWindow } from '../sim/study/window.ts';
 
 const RUNS = 5;

@@ -4,15 +4,15 @@
  * `detail: 'summary'` records only what the verdicts read (no position–time map, no per-step series): for window
  * searches and sweeps, which run many times and read only the summary.
  */
-import type { EvolveEnd, EvolveOptions, EvolveStats } from './evolve.ts';
-import { evolve } from './evolve.ts';
-import type { Grid } from './mesh.ts';
-import { buildGrid } from './mesh.ts';
-import type { Problem } from './problem.ts';
-import type { RecordDetail, RunRecord } from './record.ts';
-import { createRecorder } from './record.ts';
-import type { Summary } from './verdict.ts';
-import { summarize } from './verdict.ts';
+import type { EvolveEnd, EvolveOptions, EvolveStats } from './time/evolve.ts';
+import { evolve } from './time/evolve.ts';
+import type { Grid } from './grid/mesh.ts';
+import { buildGrid } from './grid/mesh.ts';
+import type { Problem } from './physics/problem.ts';
+import type { RecordDetail, RunRecord } from './observe/record.ts';
+import { createRecorder } from './observe/record.ts';
+import type { Summary } from './observe/verdict.ts';
+import { summarize } from './observe/verdict.ts';
 
 export interface RunOptions extends EvolveOptions {
   /** Multiplies the cell counts (grid refinement studies). */

@@ -3,7 +3,7 @@
  * CLI prints the same list after every run), and room for the cautions of the scenario on screen (ui/cautions.ts),
  * which the verdict fills. Test hooks: `cautions`, `scenario-cautions`.
  */
-import { hazards, hazardsHeading, predictionNotCertification } from '../sim/wording.ts';
+import { hazards, hazardsHeading, predictionNotCertification } from '../sim/index.ts';
 import { h } from './dom.ts';
 
 /** Fills the box; returns the list the verdict fills with this scenario's cautions. */

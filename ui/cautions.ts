@@ -3,7 +3,7 @@
  * below the bulk figure the library uses as its limit) and a margin too small to count as one. Pure: takes what a
  * result shows, returns sentences; the verdict view places them.
  */
-import type { Summary } from '../sim/verdict.ts';
+import type { Summary } from '../sim/index.ts';
 import { formatNumber } from './format.ts';
 import type { MaterialInfo } from './materials.ts';
 

@@ -3,9 +3,9 @@
  * `data-path`; a path with no input of its own goes to the nearest input inside it (a group) or above it (a parent);
  * what finds no input at all (an unknown key in a loaded file) is listed in the general box, path first.
  */
-import type { FieldError } from '../sim/field-errors.ts';
+import type { FieldError } from '../sim/index.ts';
 import { h } from './dom.ts';
-import { formatPath } from '../sim/field-errors.ts';
+import { formatPath } from '../sim/index.ts';
 import { parsePath } from './paths.ts';
 
 const ERROR_CLASS = 'field-error';

@@ -1,11 +1,11 @@
 /**
  * Saving and loading scenario files, and downloading the series as CSV. A loaded file is read by the solver's own
- * strict reader (sim/json-text.ts), so the view and the CLI refuse the same files in the same words: a key given
+ * strict reader (sim/scenario/json-text.ts), so the view and the CLI refuse the same files in the same words: a key given
  * twice, a syntax error with its line and column; a leading byte-order mark is skipped.
  */
-import { capErrors, formatFieldError } from '../sim/field-errors.ts';
-import { readJsonText } from '../sim/json-text.ts';
-import { scenarioLimitDefaults } from '../sim/scenario-limits.ts';
+import { capErrors, formatFieldError } from '../sim/index.ts';
+import { readJsonText } from '../sim/index.ts';
+import { scenarioLimitDefaults } from '../sim/index.ts';
 import { isObject, type JsonObject } from './json.ts';
 
 export const filesDefaults = {

@@ -1,14 +1,14 @@
 /**
  * The energy balance (per square metre of footprint, and for the whole footprint when it is given) and the warnings.
- * Figures at about 6 significant figures, as in the CLI and the CSV (sim/format.ts).
+ * Figures at about 6 significant figures, as in the CLI and the CSV (sim/observe/format.ts).
  */
-import { windowStatusWords } from '../sim/wording.ts';
+import { windowStatusWords } from '../sim/index.ts';
 import { h } from './dom.ts';
 import { formatDefaults, formatNumber, NO_VALUE } from './format.ts';
 import type { ShownResult } from './result.ts';
 
 const ledgerDefaults = {
-  /** Significant figures of the largest term: the CSV's precision (sim/format.ts). */
+  /** Significant figures of the largest term: the CSV's precision (sim/observe/format.ts). */
   significant: formatDefaults.csvSignificant,
 } as const;
 

@@ -6,7 +6,7 @@
  */
 import './early-solver.ts';
 import './style.css';
-import type { FieldError } from '../sim/field-errors.ts';
+import type { FieldError } from '../sim/index.ts';
 import { demoScenario } from './demo.ts';
 import { createDraftStore } from './draft.ts';
 import { byId } from './dom.ts';
@@ -15,9 +15,9 @@ import { renderFaceEditor } from './faces-editor.ts';
 import { syncPeers } from './fields.ts';
 import { fieldsToFill, markFieldsToFill } from './incomplete.ts';
 import { download, fileStem, readScenarioFile, scenarioText } from './files.ts';
-import { seriesCsv } from '../sim/series-csv.ts';
+import { seriesCsv } from '../sim/index.ts';
 import { formatNumber } from './format.ts';
-import { terms } from '../sim/wording.ts';
+import { terms } from '../sim/index.ts';
 import { asNumber, isObject, type JsonObject } from './json.ts';
 import { autosave, forgetAutosaved, fromHash, loadAutosaved, shareLink } from './persist.ts';
 import { firstNonFinite } from './protocol.ts';
@@ -83,7 +83,7 @@ const runner = createRunner({
     clearFieldErrors(editorRoot, generalErrors);
     results.stale(undefined);
     performance.mark('freezeline:result');
-    // nodes are the cell centres plus the two face points (sim/record.ts)
+    // nodes are the cell centres plus the two face points (sim/observe/record.ts)
     status.set('done', `${record.nodeXMm.length - 2} ${terms.cell.term}s, ${record.tS.length} time points, solved in ${formatNumber(solveMs, { decimals: 0 })} ms`);
     const drawn = results.show(shownResult(job, scenario as JsonObject, record, summary));
     performance.mark('freezeline:verdict');

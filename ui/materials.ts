@@ -2,7 +2,7 @@
  * What the page needs to know about a material named in the draft: from the scenario's own `materials`, or from the
  * bundled library (with its sources). Only for display; the solver resolves materials itself.
  */
-import { libraryFile, libraryNames } from '../sim/library.ts';
+import { libraryFile, libraryNames } from '../sim/index.ts';
 import { asList, asNumber, asObject, asString, isObject, type Json, type JsonObject } from './json.ts';
 
 export interface MaterialLimit { readonly kind: string; readonly atC: number | undefined; readonly source?: string; readonly note?: string }

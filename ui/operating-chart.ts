@@ -5,8 +5,8 @@
  * hold are marked. A quantity that does not exist at a hold is a gap in its line, never a made-up number.
  */
 import type { Data, Layout, Shape, Annotation } from 'plotly.js-dist-min';
-import type { Interval } from '../sim/study/bracket.ts';
-import type { WindowReport } from '../sim/study/window.ts';
+import type { Interval } from '../sim/index.ts';
+import type { WindowReport } from '../sim/index.ts';
 import { formatNumber } from './format.ts';
 
 const COLOURS = { margin: '#1f5f99', window: '#3f8f3a', band: 'rgba(47, 125, 74, 0.13)', required: '#b42318', own: '#52606d', longest: '#1f2933' } as const;

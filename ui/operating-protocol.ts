@@ -2,8 +2,8 @@
  * Messages between the page and the window-search worker (operating-worker.ts). `job` ties a reply to its request:
  * only the newest request's reply is shown. The report is plain data (structured clone).
  */
-import type { WindowReport } from '../sim/study/window.ts';
-import type { WindowWords } from '../sim/study/words.ts';
+import type { WindowReport } from '../sim/index.ts';
+import type { WindowWords } from '../sim/index.ts';
 
 export type ToOperating = { readonly type: 'window'; readonly job: number; readonly scenario: unknown };
 

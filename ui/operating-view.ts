@@ -5,9 +5,9 @@
  * marked as being recomputed. Test hooks: data-testid="operating-status" (data-state, data-job), the cards'
  * data-value (seconds, empty when there is none) and data-testid="plot-operating".
  */
-import type { WindowReport } from '../sim/study/window.ts';
-import type { WindowWords } from '../sim/study/words.ts';
-import { predictionNotCertification } from '../sim/wording.ts';
+import type { WindowReport } from '../sim/index.ts';
+import type { WindowWords } from '../sim/index.ts';
+import { predictionNotCertification } from '../sim/index.ts';
 import { chartConfig } from './plot-common.ts';
 import { loadPlotly } from './charts.ts';
 import { h } from './dom.ts';

@@ -3,9 +3,9 @@
  * posts the report with its sentences. Synchronous; the page stops a search that is no longer wanted by terminating
  * this worker.
  */
-import { parseScenario } from '../sim/scenario.ts';
-import { searchWindow } from '../sim/study/window.ts';
-import { windowWords } from '../sim/study/words.ts';
+import { parseScenario } from '../sim/index.ts';
+import { searchWindow } from '../sim/index.ts';
+import { windowWords } from '../sim/index.ts';
 import type { FromOperating, ToOperating } from './operating-protocol.ts';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;

@@ -57,7 +57,7 @@ export function cursorShape(tS: number, axis: TimeAxis): Partial<Shape> {
 }
 
 /**
- * Hover texts built by the one formatting module (sim/format.ts), one per point, for `hovertemplate: '%{text}'`:
+ * Hover texts built by the one formatting module (sim/observe/format.ts), one per point, for `hovertemplate: '%{text}'`:
  * a tooltip prints a number exactly as the verdict and the CLI do.
  */
 export function hoverTexts(n: number, text: (k: number) => string): string[] {

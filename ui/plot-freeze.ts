@@ -4,7 +4,7 @@
  * with the separator's solidus and liquidus and the half-frozen and frozen events marked.
  */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
-import { verdictTerms } from '../sim/wording.ts';
+import { verdictTerms } from '../sim/index.ts';
 import { formatNumber, formatTemperature, formatTime } from './format.ts';
 import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, type Figure } from './plot-common.ts';
 import { heatOffLabel } from './plot-temperatures.ts';

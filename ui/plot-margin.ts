@@ -4,7 +4,7 @@
  * margin to the lower ignition figure of thin forms, dotted.
  */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
-import { verdictTerms } from '../sim/wording.ts';
+import { verdictTerms } from '../sim/index.ts';
 import { cautionDefaults, scenarioCautions } from './cautions.ts';
 import { formatMargin, formatNumber } from './format.ts';
 import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, timeLine, type Figure } from './plot-common.ts';

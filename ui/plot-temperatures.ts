@@ -5,7 +5,7 @@
  */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
 import { translucent } from './colours.ts';
-import { verdictTerms } from '../sim/wording.ts';
+import { verdictTerms } from '../sim/index.ts';
 import { formatMargin, formatNumber, formatTemperature } from './format.ts';
 import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, timeLine, type Figure } from './plot-common.ts';
 import type { ShownResult } from './result.ts';

@@ -3,7 +3,7 @@
  * the editor) and the face rows in plain words. Hidden on screen, where the editor shows the same. Built from the
  * snapshot that produced the result, so the print never mixes a result with later edits. Test hook: `print-scenario`.
  */
-import { verdictTerms } from '../sim/wording.ts';
+import { verdictTerms } from '../sim/index.ts';
 import { h } from './dom.ts';
 import { segmentSummary } from './face-summary.ts';
 import { formatNumber, formatTime } from './format.ts';

@@ -1,6 +1,6 @@
 /**
  * The probe depths control (`output.probes_mm`): a comma-separated list in mm from the bottom face. Empty means the
- * probes follow the layers (bottom face, each layer's mid-plane, each interface, top face: sim/probes.ts), so editing
+ * probes follow the layers (bottom face, each layer's mid-plane, each interface, top face: sim/grid/probes.ts), so editing
  * a thickness can never leave a probe outside the stack. A depth the user typed that falls outside the stack is
  * reported by the solver at `output.probes_mm[i]` and shown beside this field like any bad field.
  */

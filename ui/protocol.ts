@@ -2,9 +2,9 @@
  * Messages between the page and the solver worker. Results travel as columnar Float64Arrays, transferred (not
  * copied); the position–time map travels as its flat data plus its shape. `job` ties every reply to its request.
  */
-import type { FieldError } from '../sim/field-errors.ts';
-import type { RunRecord } from '../sim/record.ts';
-import type { Summary } from '../sim/verdict.ts';
+import type { FieldError } from '../sim/index.ts';
+import type { RunRecord } from '../sim/index.ts';
+import type { Summary } from '../sim/index.ts';
 
 export type ToWorker = { readonly type: 'run'; readonly job: number; readonly scenario: unknown };
 

@@ -2,7 +2,7 @@
  * A result on screen: the scenario that produced it (a snapshot, so later edits do not change what the charts mean),
  * the record and summary from the worker, and per layer what the drawing and charts need.
  */
-import type { Summary } from '../sim/verdict.ts';
+import type { Summary } from '../sim/index.ts';
 import { layerColours } from './colours.ts';
 import { asList, asNumber, asObject, asString, type JsonObject } from './json.ts';
 import { materialInfo, type MaterialInfo } from './materials.ts';

@@ -3,8 +3,8 @@
  * a run still going when a newer one starts (or when the person cancels) is stopped by terminating its worker.
  * A spare worker is kept loaded, so a restart does not pay for loading the solver again.
  */
-import type { FieldError } from '../sim/field-errors.ts';
-import type { Summary } from '../sim/verdict.ts';
+import type { FieldError } from '../sim/index.ts';
+import type { Summary } from '../sim/index.ts';
 import type { FromWorker, ToWorker, WireRecord } from './protocol.ts';
 import { spawnSolver, takeSolver } from './solver-worker.ts';
 

@@ -3,7 +3,7 @@
  * ("heat off at", the wording table's term; test hook `heat-off-s`), which edits the `from_s` of the bottom row where the heating
  * ends — the same value as that row's own "from" field, kept in step with it.
  */
-import { verdictTerms } from '../sim/wording.ts';
+import { verdictTerms } from '../sim/index.ts';
 import type { DraftStore } from './draft.ts';
 import { h } from './dom.ts';
 import { fieldWrapper, numberField, stringField } from './fields.ts';

@@ -5,7 +5,7 @@
  *   W/m³ = W / (A · t)      A footprint area, t layer thickness (the layer's volume over the footprint)
  *   W/m³ = W/kg · ρ         ρ the layer material's density
  */
-import { footprintGeometry } from '../sim/problem.ts';
+import { footprintGeometry } from '../sim/index.ts';
 import { asNumber, asObject, type JsonObject } from './json.ts';
 import type { MaterialInfo } from './materials.ts';
 

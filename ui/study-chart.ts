@@ -5,8 +5,8 @@
  * no value at a point is a gap, never a number. Every point carries its sweep index (customdata) for click-to-load.
  */
 import type { Data, Layout } from 'plotly.js-dist-min';
-import type { SweepPlan, SweepRow } from '../sim/study/sweep.ts';
-import { evaluateTarget, type Target } from '../sim/study/target.ts';
+import type { SweepPlan, SweepRow } from '../sim/index.ts';
+import { evaluateTarget, type Target } from '../sim/index.ts';
 import { temperatureScale } from './colours.ts';
 import { levelLine } from './plot-common.ts';
 

@@ -3,7 +3,7 @@
  * ≡ w mod N, so every worker has early and late points of the grid alike); rows arrive in any order and are handed on
  * with the count done. Cancel terminates the workers, which stops their runs at once (a run is synchronous inside).
  */
-import type { SweepPlan, SweepRow } from '../sim/study/sweep.ts';
+import type { SweepPlan, SweepRow } from '../sim/index.ts';
 import type { FromStudy, ToStudy } from './study-protocol.ts';
 
 export const studyPoolDefaults = {

@@ -3,7 +3,7 @@
  * one row per point comes back (so the bar moves point by point). `job` ties a reply to its study: a cancelled or
  * replaced study's replies are dropped. Plain data (structured clone).
  */
-import type { SweepPlan, SweepRow } from '../sim/study/sweep.ts';
+import type { SweepPlan, SweepRow } from '../sim/index.ts';
 
 export type ToStudy = { readonly type: 'points'; readonly job: number; readonly plan: SweepPlan; readonly indices: readonly number[] };
 

@@ -6,9 +6,9 @@
  * editor; the scenario it replaced is one click away ("back"). Test hooks: data-testid="study-status" (data-state:
  * idle | running | done | cancelled | error | failed, data-runs) and data-testid="plot-study".
  */
-import { parseVary, planSweep, pointScenario, type SweepPlan, type SweepRow } from '../sim/study/sweep.ts';
-import { checkTarget, parseTarget, type Target } from '../sim/study/target.ts';
-import { predictionNotCertification } from '../sim/wording.ts';
+import { parseVary, planSweep, pointScenario, type SweepPlan, type SweepRow } from '../sim/index.ts';
+import { checkTarget, parseTarget, type Target } from '../sim/index.ts';
+import { predictionNotCertification } from '../sim/index.ts';
 import { loadPlotly } from './charts.ts';
 import { button, h } from './dom.ts';
 import type { DraftStore } from './draft.ts';

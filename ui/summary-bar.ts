@@ -4,7 +4,7 @@
  * half-frozen time, the binding layer's margin, and how many cautions apply, with a link to the full verdict. The
  * same words and formats as the verdict cards. Test hook: `summary-bar`.
  */
-import { marginWords, noValueWords, verdictTerms, windowStatusWords } from '../sim/wording.ts';
+import { marginWords, noValueWords, verdictTerms, windowStatusWords } from '../sim/index.ts';
 import type { Caution } from './cautions.ts';
 import { h } from './dom.ts';
 import { formatMargin, formatTime } from './format.ts';

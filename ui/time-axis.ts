@@ -1,6 +1,6 @@
 /**
  * The time axis of a chart: seconds for short spans, minutes for long runs (from the same 10 min at which event times
- * switch to minutes and seconds, sim/format.ts), so a 3600 s run reads 0–60 min. A chart's x values are
+ * switch to minutes and seconds, sim/observe/format.ts), so a 3600 s run reads 0–60 min. A chart's x values are
  * (t − offset) / scale; the offset lets a chart count from heat off. The hover header always carries the unit.
  */
 import type { LayoutAxis } from 'plotly.js-dist-min';

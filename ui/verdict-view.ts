@@ -2,12 +2,12 @@
  * The verdict: when the separator is molten, half-frozen and frozen, the usable window, and each layer's peak against
  * its binding limit (the binding layer highlighted, a reached limit in the warning style), with the cautions that
  * apply to this scenario beside the margin they concern. Every term comes from the one wording table
- * (sim/wording.ts) and every number from the one formatting module, as in the CLI: a verdict with no value reads as
+ * (sim/observe/wording.ts) and every number from the one formatting module, as in the CLI: a verdict with no value reads as
  * words. Test hooks hold the printed text: `verdict-window`, `verdict-molten-at`, `verdict-half-frozen-at`,
  * `verdict-frozen-at`, `verdict-margin-<layer id>`.
  */
-import type { Summary } from '../sim/verdict.ts';
-import { marginWords, noValueWords, verdictTerms, windowStatusWords } from '../sim/wording.ts';
+import type { Summary } from '../sim/index.ts';
+import { marginWords, noValueWords, verdictTerms, windowStatusWords } from '../sim/index.ts';
 import { scenarioCautions, type Caution } from './cautions.ts';
 import { h } from './dom.ts';
 import { formatMargin, formatNumber, formatTemperature, formatTime } from './format.ts';

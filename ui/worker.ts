@@ -2,8 +2,8 @@
  * The solver worker: checks the scenario, runs it, and posts progress (at most every `progressEveryMs`) and the
  * result. The run is synchronous; the page cancels it by terminating this worker.
  */
-import { parseScenario } from '../sim/scenario.ts';
-import { runProblem } from '../sim/run.ts';
+import { parseScenario } from '../sim/index.ts';
+import { runProblem } from '../sim/index.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
 import { toWire } from './protocol.ts';
 import { formatNumber } from './format.ts';

@@ -2,7 +2,7 @@
  * Timing of repeated solves of one problem, in this process: median wall time and the work done.
  * A cell-update is one cell in one Newton iteration (the unit of work of the implicit solver).
  */
-import type { Problem } from '../problem.ts';
+import type { Problem } from '../physics/problem.ts';
 import { runProblem } from '../run.ts';
 
 export interface BenchFigures {

@@ -4,11 +4,11 @@
  * (sim/study/ambient.ts). The runs go through the sweep's worker pool.
  */
 import type { Command } from 'commander';
-import { formatMargin, formatNumber, formatTime } from '../format.ts';
+import { formatMargin, formatNumber, formatTime } from '../observe/format.ts';
 import { ambientDefaults, ambientPlan, ambientStudy, type AmbientOptions } from '../study/ambient.ts';
 import type { SweepRow } from '../study/sweep.ts';
-import { noValueWords, predictionNotCertification, verdictTerms, windowStatusWords } from '../wording.ts';
-import type { WindowStatus } from '../verdict.ts';
+import { noValueWords, predictionNotCertification, verdictTerms, windowStatusWords } from '../observe/wording.ts';
+import type { WindowStatus } from '../observe/verdict.ts';
 import { runPoints } from './sweep-pool.ts';
 import { finishAsync, orRefuse, parseJobs, parseNumberOption, readScenario } from './study-input.ts';
 

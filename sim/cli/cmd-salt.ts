@@ -1,13 +1,13 @@
 /**
  * `freezeline salt LiCl=0.80 KCl=0.20 [--mass] [--json]`: the melting range of a LiCl–KCl mixture from the liquidus
- * model (sim/salt.ts): solidus, liquidus, and the model's eutectic point. Fractions are mole fractions unless --mass.
+ * model (sim/physics/salt.ts): solidus, liquidus, and the model's eutectic point. Fractions are mole fractions unless --mass.
  */
 import type { Command } from 'commander';
-import type { FieldError } from '../field-errors.ts';
-import { liquidusModel, meltingRange, mixtureLatentJPerKg } from '../salt.ts';
-import { liclMoleFraction } from '../salt-mixture.ts';
-import { kToC } from '../units.ts';
-import { predictionNotCertification } from '../wording.ts';
+import type { FieldError } from '../scenario/field-errors.ts';
+import { liquidusModel, meltingRange, mixtureLatentJPerKg } from '../physics/salt.ts';
+import { liclMoleFraction } from '../scenario/salt-mixture.ts';
+import { kToC } from '../physics/units.ts';
+import { predictionNotCertification } from '../observe/wording.ts';
 import { InputError } from './input.ts';
 
 const SALTS = ['LiCl', 'KCl'] as const;

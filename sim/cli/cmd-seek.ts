@@ -6,10 +6,10 @@
 import type { Command } from 'commander';
 import { InputError } from './input.ts';
 import { orRefuse, parseNumberOption, readScenario } from './study-input.ts';
-import { formatSignificant } from '../format.ts';
+import { formatSignificant } from '../observe/format.ts';
 import { parsePath, resolveLeaf } from '../study/scenario-path.ts';
 import { scenarioProbe, seek, seekDefaults } from '../study/seek.ts';
-import { predictionNotCertification } from '../wording.ts';
+import { predictionNotCertification } from '../observe/wording.ts';
 import { checkTarget, parseTarget, readingText, targetValue } from '../study/target.ts';
 
 interface SeekCliOptions { adjust: string; min: string; max: string; target: string; largest?: boolean; json?: boolean; scan?: string; tolerance?: string }

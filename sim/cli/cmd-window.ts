@@ -5,13 +5,13 @@
  */
 import { writeFileSync } from 'node:fs';
 import type { Command } from 'commander';
-import { kToC } from '../units.ts';
+import { kToC } from '../physics/units.ts';
 import { operatingCsv } from '../study/chart-csv.ts';
 import { holdKnob } from '../study/knob.ts';
 import { SolveFailure } from '../study/point.ts';
 import { searchWindow, windowDefaults, type WindowReport } from '../study/window.ts';
 import { windowWords } from '../study/words.ts';
-import { predictionNotCertification } from '../wording.ts';
+import { predictionNotCertification } from '../observe/wording.ts';
 import { InputError, readProblem } from './input.ts';
 
 interface WindowFlags { marginK: string; untilLiquid?: string; hold?: string; vary: string; json?: boolean; csv?: string }

@@ -3,11 +3,11 @@
  * the field and the value (exit code 2). Shared by every command so they refuse bad input in the same words.
  */
 import { readFileSync } from 'node:fs';
-import { formatFieldError } from '../field-errors.ts';
-import type { Problem } from '../problem.ts';
+import { formatFieldError } from '../scenario/field-errors.ts';
+import type { Problem } from '../physics/problem.ts';
 import { runProblem } from '../run.ts';
-import { parseScenarioText } from '../scenario.ts';
-import type { ScenarioFile } from '../scenario-schema.ts';
+import { parseScenarioText } from '../scenario/scenario.ts';
+import type { ScenarioFile } from '../scenario/scenario-schema.ts';
 
 /** A caller error: printed as it is, exit code 2. */
 export class InputError extends Error {}

@@ -1,6 +1,6 @@
 /** The scenario's JSON Schema (draft 2020-12), generated from the zod schema with a title and an id. */
 import { z } from 'zod';
-import { scenarioSchema } from '../scenario-schema.ts';
+import { scenarioSchema } from '../scenario/scenario-schema.ts';
 
 export function scenarioJsonSchema(): Record<string, unknown> {
   return {

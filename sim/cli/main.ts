@@ -4,11 +4,11 @@
  */
 import { writeFileSync } from 'node:fs';
 import { Command, CommanderError } from 'commander';
-import { libraryFile, libraryNames } from '../library.ts';
-import { resultDocument } from '../result.ts';
+import { libraryFile, libraryNames } from '../scenario/library.ts';
+import { resultDocument } from '../observe/result.ts';
 import { benchProblem } from './bench-run.ts';
 import { CheckFailed, EXIT, InputError, readProblem, readScenario, runOrFail } from './input.ts';
-import { countExpectations, evaluateExpectations, unmet } from '../expect.ts';
+import { countExpectations, evaluateExpectations, unmet } from '../scenario/expect.ts';
 import { htmlReport } from './report-html.ts';
 import { collectRequirement, parseRequirements, reportRequirements } from './require-check.ts';
 import { registerSweep } from './cmd-sweep.ts';
@@ -16,7 +16,7 @@ import { registerSeek } from './cmd-seek.ts';
 import { registerAmbient } from './cmd-ambient.ts';
 import { registerWindow } from './cmd-window.ts';
 import { registerSalt } from './cmd-salt.ts';
-import { outputTimesCsv, seriesCsv } from '../series-csv.ts';
+import { outputTimesCsv, seriesCsv } from '../observe/series-csv.ts';
 import { summaryTable } from './table.ts';
 
 function program(): Command {

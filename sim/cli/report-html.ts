@@ -1,19 +1,19 @@
 /**
  * `run --report OUT.html`: a one-page, self-contained HTML report of a run — the scenario, the verdicts with their
  * definitions, each layer's margin, the stated expectations, two charts drawn as inline SVG (no script, no network,
- * nothing fetched), and the cautions. Words from sim/wording.ts, numbers through sim/format.ts, so the report says
+ * nothing fetched), and the cautions. Words from sim/observe/wording.ts, numbers through sim/observe/format.ts, so the report says
  * exactly what the terminal table says.
  */
-import type { ExpectationOutcome } from '../expect.ts';
-import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
-import type { Problem } from '../problem.ts';
-import type { RunRecord } from '../record.ts';
-import { kToC, mToMm } from '../units.ts';
-import type { Summary } from '../verdict.ts';
+import type { ExpectationOutcome } from '../scenario/expect.ts';
+import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../observe/format.ts';
+import type { Problem } from '../physics/problem.ts';
+import type { RunRecord } from '../observe/record.ts';
+import { kToC, mToMm } from '../physics/units.ts';
+import type { Summary } from '../observe/verdict.ts';
 import {
   expectationWords, hazards, hazardsHeading, marginWords, noValueWords, predictionNotCertification, terms, verdictTerms,
   windowStatusWords,
-} from '../wording.ts';
+} from '../observe/wording.ts';
 import { lineChart } from './report-svg.ts';
 import { convectionSentence, isRayleighDetail } from './table.ts';
 

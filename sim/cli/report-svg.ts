@@ -3,7 +3,7 @@
  * "nice" ticks (1, 2, 5 × 10ⁿ), one polyline per series, dashed vertical markers (heat off), a legend. A long series
  * is thinned to at most `maxPoints` points by keeping every k-th one plus the last, which is invisible at this size.
  */
-import { formatNumber } from '../format.ts';
+import { formatNumber } from '../observe/format.ts';
 
 export interface ChartSeries { readonly name: string; readonly x: ArrayLike<number>; readonly y: ArrayLike<number>; readonly colour: string }
 export interface Chart {

@@ -5,10 +5,10 @@
  * met/NOT MET and the value read; one not met makes `run` exit 3 (CheckFailed). A verdict that does not exist (null)
  * does not meet any requirement.
  */
-import type { Problem } from '../problem.ts';
+import type { Problem } from '../physics/problem.ts';
 import { checkTarget, evaluateTarget, parseTarget, readingText, type Target } from '../study/target.ts';
-import type { Summary } from '../verdict.ts';
-import { expectationWords } from '../wording.ts';
+import type { Summary } from '../observe/verdict.ts';
+import { expectationWords } from '../observe/wording.ts';
 import { InputError } from './input.ts';
 
 export const collectRequirement = (value: string, previous: string[]): string[] => [...previous, value];

@@ -4,7 +4,7 @@
  * running an asynchronous command body so that its failures end with the same exit codes as the synchronous ones.
  */
 import { EXIT, InputError, readProblem, readText } from './input.ts';
-import type { Problem } from '../problem.ts';
+import type { Problem } from '../physics/problem.ts';
 import type { Outcome } from '../study/scenario-path.ts';
 import { defaultJobs } from './sweep-pool.ts';
 

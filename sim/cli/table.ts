@@ -1,21 +1,21 @@
 /**
  * The human summary of a run: a verdict table for the terminal. Plain text, fixed-width columns, every value with
- * its unit; words (from sim/wording.ts) for a verdict with no value; numbers through sim/format.ts, which never
+ * its unit; words (from sim/observe/wording.ts) for a verdict with no value; numbers through sim/observe/format.ts, which never
  * prints NaN. It ends with the stated expectations, the convection note and the same hazard list as the view.
  */
-import { convectionNote } from '../convection-note.ts';
-import type { ExpectationOutcome } from '../expect.ts';
-import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
-import type { Problem } from '../problem.ts';
-import type { RunRecord } from '../record.ts';
-import type { Summary } from '../verdict.ts';
+import { convectionNote } from '../observe/convection-note.ts';
+import type { ExpectationOutcome } from '../scenario/expect.ts';
+import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../observe/format.ts';
+import type { Problem } from '../physics/problem.ts';
+import type { RunRecord } from '../observe/record.ts';
+import type { Summary } from '../observe/verdict.ts';
 import {
   expectationWords, hazards, hazardsHeading, marginWords, noValueWords, predictionNotCertification, terms, verdictTerms,
   windowStatusWords,
-} from '../wording.ts';
+} from '../observe/wording.ts';
 
 export interface TableExtras {
-  /** Outcomes of the scenario's `expect` block (sim/expect.ts); none printed when empty. */
+  /** Outcomes of the scenario's `expect` block (sim/scenario/expect.ts); none printed when empty. */
   readonly expectations?: readonly ExpectationOutcome[];
   /** Lines of `run --require` (sim/cli/require-check.ts), printed after the expectations. */
   readonly requirements?: readonly string[];

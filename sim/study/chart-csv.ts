@@ -4,8 +4,8 @@
  * whether the run keeps the required margin and melts the separator, and the usable window after heat off.
  * A quantity that does not exist (no limit on file, never molten) is an empty cell, never "NaN".
  */
-import { csvNumber } from '../format.ts';
-import { kToC } from '../units.ts';
+import { csvNumber } from '../observe/format.ts';
+import { kToC } from '../physics/units.ts';
 import { keepsMargin } from './point.ts';
 import type { WindowReport } from './window.ts';
 

@@ -1,7 +1,7 @@
 /**
  * The input a window search varies, at the Problem level (SI): a function value → Problem over a range.
  *
- *   time   the hold: when the heat ends. Every heat input that ends at heat off moves together (sim/verdict.ts
+ *   time   the hold: when the heat ends. Every heat input that ends at heat off moves together (sim/observe/verdict.ts
  *          `heatInputs`, the rule of `heat_off_s`): for a face the `from_s` of the segment after the heating segment,
  *          for a volumetric source the `to_s` of its interval. The range runs from the start of the heating face
  *          segments (or the end of any heat input that ends earlier, if later: below it the heat off would not move)
@@ -14,9 +14,9 @@
  * Working on the Problem rather than the scenario JSON keeps units out of the search (everything here is SI) and
  * needs no second pass through validation: only one number changes, inside the range checked here.
  */
-import type { FaceCondition, FaceSegment, Layer, Problem } from '../problem.ts';
-import { kToC } from '../units.ts';
-import { heatInputs, lastHeatInput, type HeatInput } from '../verdict.ts';
+import type { FaceCondition, FaceSegment, Layer, Problem } from '../physics/problem.ts';
+import { kToC } from '../physics/units.ts';
+import { heatInputs, lastHeatInput, type HeatInput } from '../observe/verdict.ts';
 
 export type Vary = 'time' | 'power';
 

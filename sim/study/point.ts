@@ -10,10 +10,10 @@
  *   until_liquid_s  from heat-off until the separator's mean liquid fraction first falls below the chosen F.
  *   solidifying_s   from heat-off until the first separator cell starts to solidify (after being fully molten).
  */
-import type { LimitKind } from '../scenario-schema.ts';
-import type { Problem } from '../problem.ts';
+import type { LimitKind } from '../physics/material.ts';
+import type { Problem } from '../physics/problem.ts';
 import { runProblem } from '../run.ts';
-import { firstCrossing, type Summary, type WindowStatus } from '../verdict.ts';
+import { firstCrossing, type Summary, type WindowStatus } from '../observe/verdict.ts';
 
 export interface Binding {
   readonly layer: string;

@@ -8,7 +8,7 @@
  * failed (the keys of an object, the ids or index range of a list). The last key may name an optional key the file
  * leaves out (e.g. `top.0.emissivity`); whether the format knows that key is then the scenario parser's call.
  */
-import { formatPath } from '../field-errors.ts';
+import { formatPath } from '../scenario/field-errors.ts';
 
 export type PathStep = { readonly kind: 'key'; readonly key: string } | { readonly kind: 'index'; readonly index: number };
 

@@ -7,10 +7,10 @@
  * stretch seen, so the user knows the answer is the edge of the first (or last) one.
  * A target met nowhere in the scan is reported as not met, with the value that came closest.
  */
-import type { Summary } from '../verdict.ts';
+import type { Summary } from '../observe/verdict.ts';
 import type { Resolved } from './scenario-path.ts';
-import { parseScenario } from '../scenario.ts';
-import { formatFieldError } from '../field-errors.ts';
+import { parseScenario } from '../scenario/scenario.ts';
+import { formatFieldError } from '../scenario/field-errors.ts';
 import { setAt } from './scenario-path.ts';
 import { runSummary } from './sweep.ts';
 import { evaluateTarget, shortfall, type Target } from './target.ts';

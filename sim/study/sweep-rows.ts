@@ -3,7 +3,7 @@
  * (one line per point: the inputs, then every verdict, then the error; numbers at about 6 significant figures).
  * A verdict that does not exist is an empty CSV cell and null in JSON, never a number.
  */
-import { csvNumber } from '../format.ts';
+import { csvNumber } from '../observe/format.ts';
 import type { SweepRow } from './sweep.ts';
 
 export const jsonlRow = (row: SweepRow): string => JSON.stringify(row);

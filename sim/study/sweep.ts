@@ -8,12 +8,12 @@
  * Shards: part K of N (1-based) holds the points whose index ≡ K − 1 (mod N); concatenating every part's rows and
  * sorting them by index gives the whole sweep.
  */
-import { formatFieldError } from '../field-errors.ts';
-import type { Problem } from '../problem.ts';
-import { assertFinite } from '../result.ts';
+import { formatFieldError } from '../scenario/field-errors.ts';
+import type { Problem } from '../physics/problem.ts';
+import { assertFinite } from '../observe/result.ts';
 import { runProblem } from '../run.ts';
-import { parseScenario } from '../scenario.ts';
-import type { Summary } from '../verdict.ts';
+import { parseScenario } from '../scenario/scenario.ts';
+import type { Summary } from '../observe/verdict.ts';
 import { parsePath, resolveLeaf, setAt, type Outcome, type Resolved } from './scenario-path.ts';
 
 export const sweepDefaults = {

@@ -8,8 +8,8 @@
  * A verdict that does not exist (null: no safe window, never molten, a layer without a limit) fails every target,
  * whatever the operator: a requirement on a quantity that is not there is not met.
  */
-import { formatSignificant } from '../format.ts';
-import type { Summary } from '../verdict.ts';
+import { formatSignificant } from '../observe/format.ts';
+import type { Summary } from '../observe/verdict.ts';
 import { parsePath, type Outcome, type PathStep } from './scenario-path.ts';
 
 export const OPERATORS = ['>=', '<=', '==', '>', '<'] as const;

@@ -13,8 +13,8 @@
  * neighbours narrowed to the tolerance (bracket.ts): by regula falsi on the margin, by bisection on molten or not. With `vary: 'power'` the same is done over the strength of the
  * heat input at the scenario's own hold. Every run is counted in `solves`.
  */
-import type { Problem } from '../problem.ts';
-import type { WindowStatus } from '../verdict.ts';
+import type { Problem } from '../physics/problem.ts';
+import type { WindowStatus } from '../observe/verdict.ts';
 import { crossings, intervals, scanValues, type Interval, type Sample } from './bracket.ts';
 import { holdKnob, powerKnob, type Knob, type Vary } from './knob.ts';
 import { showValue } from './words.ts';

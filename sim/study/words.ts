@@ -1,10 +1,10 @@
 /**
  * A window search in words a designer reads, for the CLI and the browser view alike: one sentence per answer
  * (longest hold, shortest hold, usable window, binding constraint) and one line per interval. Numbers go through
- * sim/format.ts (no NaN ever reaches the text); a quantity that does not exist is said in words, with the reason.
+ * sim/observe/format.ts (no NaN ever reaches the text); a quantity that does not exist is said in words, with the reason.
  */
-import { formatMargin, formatNumber, formatTemperature, formatTime } from '../format.ts';
-import { kToC } from '../units.ts';
+import { formatMargin, formatNumber, formatTemperature, formatTime } from '../observe/format.ts';
+import { kToC } from '../physics/units.ts';
 import type { Interval } from './bracket.ts';
 import type { WindowReport } from './window.ts';
 

@@ -6,7 +6,7 @@
 
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { scenarioDefaults } from '../../sim/scenario.ts';
+import { scenarioDefaults } from '../../sim/scenario/scenario.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { runOk } from '../support/scenarios.ts';
 

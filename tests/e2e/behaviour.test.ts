@@ -5,7 +5,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { noValueWords, windowStatusWords } from '../../sim/wording.ts';
+import { noValueWords, windowStatusWords } from '../../sim/observe/wording.ts';
 import { artifacts, freshPage as openPage, repoRoot, startHarness, text, type Harness } from './harness.ts';
 
 let harness: Harness;
@@ -62,7 +62,7 @@ describe('the browser view while a run is long or an input is wrong', () => {
   it('without a separator the verdict says so and nothing shows NaN', async () => {
     const page = await freshPage();
     await page.uncheck('[data-testid="layer-row-1"] input[type="checkbox"]');
-    // the words are the wording table's (sim/wording.ts), as the CLI prints them
+    // the words are the wording table's (sim/observe/wording.ts), as the CLI prints them
     const none = windowStatusWords['no-separator'];
     await page.waitForFunction((w) => document.querySelector('[data-testid="verdict-window"]')?.textContent === w, none.label);
     expect(await text(page, 'run-status')).toBe('done');

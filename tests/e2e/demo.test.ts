@@ -5,9 +5,9 @@
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseScenarioText } from '../../sim/scenario.ts';
+import { parseScenarioText } from '../../sim/scenario/scenario.ts';
 import { runProblem } from '../../sim/run.ts';
-import { noValueWords, windowStatusWords } from '../../sim/wording.ts';
+import { noValueWords, windowStatusWords } from '../../sim/observe/wording.ts';
 import { runnerDefaults } from '../../ui/runner.ts';
 import { assertClose } from '../support/assert-close.ts';
 import {
@@ -29,7 +29,7 @@ function solverSummary() {
 }
 
 /**
- * The page prints event times to 0.1 s (to 1 s as min:s from 10 min) and margins to 1 K (sim/format.ts); the solver's
+ * The page prints event times to 0.1 s (to 1 s as min:s from 10 min) and margins to 1 K (sim/observe/format.ts); the solver's
  * own value, computed here in Node, must lie within half the last printed digit of what is printed, plus the solver's
  * stated accuracy: Chromium and Node differ in the last bits of Math functions, so the
  * adaptive steps differ and each engine's result lands elsewhere within that accuracy (TOOLCHAIN.md). For event times

@@ -1,5 +1,5 @@
 /**
- * Loading a scenario file in the view goes through the solver's strict JSON reader (ui/files.ts → sim/json-text.ts):
+ * Loading a scenario file in the view goes through the solver's strict JSON reader (ui/files.ts → sim/scenario/json-text.ts):
  * a key given twice is refused with both lines, invalid JSON with its line and column, and a leading UTF-8
  * byte-order mark (RFC 8259 §8.1) is skipped, so a file saved by an editor that writes one loads as it is.
  */

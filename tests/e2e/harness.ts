@@ -85,7 +85,7 @@ export async function freshPage(harness: Harness): Promise<Page> {
 }
 
 /**
- * The number in a value the page prints with its unit (sim/format.ts): "84.9 s", "15:59 min:s" (seconds returned),
+ * The number in a value the page prints with its unit (sim/observe/format.ts): "84.9 s", "15:59 min:s" (seconds returned),
  * "257 K", "392.9 °C". NaN for words ("never fully molten"), so a comparison with a number fails loudly.
  */
 export function shownNumber(printed: string): number {

@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import demo from '../../examples/bench-coupon.json' with { type: 'json' };
-import { parseScenario } from '../../sim/scenario.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
 import { searchWindow } from '../../sim/study/window.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { freshPage, startHarness, traceCount, type Harness } from './harness.ts';

@@ -1,14 +1,14 @@
 /**
  * What a reader of the view relies on: the cross-section's slider moves in time; the cautions that apply to the
  * scenario appear beside its verdict; the verdict stays in view on a 900 px screen; the view speaks the words of the
- * one wording table (sim/wording.ts), as the CLI does; the printed report fits one page.
+ * one wording table (sim/observe/wording.ts), as the CLI does; the printed report fits one page.
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { parseScenarioText, scenarioDefaults } from '../../sim/scenario.ts';
+import { parseScenarioText, scenarioDefaults } from '../../sim/scenario/scenario.ts';
 import { runProblem } from '../../sim/run.ts';
-import { hazards, predictionNotCertification, verdictTerms, windowStatusWords } from '../../sim/wording.ts';
+import { hazards, predictionNotCertification, verdictTerms, windowStatusWords } from '../../sim/observe/wording.ts';
 import { cautionDefaults } from '../../ui/cautions.ts';
 import { assertClose } from '../support/assert-close.ts';
 import {

@@ -5,8 +5,8 @@
 // turns a failure into a small reproducer. The data are invented: they probe the solver, they describe no real cell.
 
 import fc from 'fast-check';
-import { libraryMaterial, libraryNames } from '../../sim/library.ts';
-import type { FaceSegmentFile, InlineMaterialFile, LayerFile, ScenarioFile } from '../../sim/scenario-schema.ts';
+import { libraryMaterial, libraryNames } from '../../sim/scenario/library.ts';
+import type { FaceSegmentFile, InlineMaterialFile, LayerFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 
 /** Values with three significant digits, so a reproducer reads as data. */
 const round = (v: number): number => Number(v.toPrecision(3));

@@ -4,10 +4,10 @@
 //   (or, when nothing moves, absolutely within round-off); the maximum principle when there is no heat input.
 // Bounded time and memory are measured by the callers (the test tier by its timeout, `npm run fuzz` by its figures).
 
-import { resultDocument } from '../../sim/result.ts';
+import { resultDocument } from '../../sim/observe/result.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenario } from '../../sim/scenario.ts';
-import type { ScenarioFile } from '../../sim/scenario-schema.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
+import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { ZERO_C_IN_K } from '../support/scenarios.ts';
 
 export type FuzzKind = 'finished' | 'stopped' | 'refused' | 'violation';

@@ -5,7 +5,7 @@
 import { describe, it } from 'vitest';
 import { assertClose } from '../support/assert-close.ts';
 import { last, randomScenario, runOk, seededRandom } from '../support/scenarios.ts';
-import type { InlineMaterialFile } from '../../sim/scenario-schema.ts';
+import type { InlineMaterialFile } from '../../sim/scenario/scenario-schema.ts';
 
 const SEEDS = Array.from({ length: 30 }, (_, i) => i + 1);
 

@@ -4,10 +4,10 @@
 // Equations, 1967, ch. 3; for the implicit scheme, the M-matrix argument of Patankar 1980 §4.3).
 
 import { describe, expect, it } from 'vitest';
-import { evolveDefaults } from '../../sim/evolve.ts';
-import { scenarioDefaults } from '../../sim/scenario.ts';
+import { evolveDefaults } from '../../sim/time/evolve.ts';
+import { scenarioDefaults } from '../../sim/scenario/scenario.ts';
 import { randomScenario, runOk, seededRandom } from '../support/scenarios.ts';
-import type { ScenarioFile } from '../../sim/scenario-schema.ts';
+import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 
 const SEEDS = Array.from({ length: 30 }, (_, i) => i + 1);
 

@@ -3,7 +3,7 @@
 // (DESIGN.md, "Result": every number is finite).
 
 import { describe, expect, it } from 'vitest';
-import { resultDocument } from '../../sim/result.ts';
+import { resultDocument } from '../../sim/observe/result.ts';
 import { runProblem } from '../../sim/run.ts';
 import { parseOk, randomScenario, seededRandom } from '../support/scenarios.ts';
 

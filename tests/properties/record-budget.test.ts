@@ -6,11 +6,11 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { createIndicatorStore } from '../../sim/record-trace.ts';
-import { RowStore } from '../../sim/row-store.ts';
+import { createIndicatorStore } from '../../sim/observe/record-trace.ts';
+import { RowStore } from '../../sim/observe/row-store.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenario } from '../../sim/scenario.ts';
-import { firstCrossing } from '../../sim/verdict.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
+import { firstCrossing } from '../../sim/observe/verdict.ts';
 
 describe('RowStore', () => {
   it('RowStore keeps at most its budget plus the latest row however many rows are committed, first and last included', () => {

@@ -5,8 +5,8 @@
 
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { recordDefaults } from '../../sim/record.ts';
-import type { InlineMaterialFile, ScenarioFile } from '../../sim/scenario-schema.ts';
+import { recordDefaults } from '../../sim/observe/record.ts';
+import type { InlineMaterialFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { checkScenario } from '../fuzz/check.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { parseOk, runOk, scenario, toK } from '../support/scenarios.ts';

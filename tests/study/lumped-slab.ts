@@ -2,7 +2,7 @@
 // number of ~1e-5 it is lumped, T(t) = T_f − (T_f − T_0)·exp(−h·t/(ρ·c·L)) (Incropera, Fundamentals of Heat and Mass
 // Transfer, 6th ed., §5.2, eq. 5.6). The study tests vary h and check verdicts against this closed form.
 import { scenario } from '../support/scenarios.ts';
-import type { ScenarioFile } from '../../sim/scenario-schema.ts';
+import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 
 export const SLAB = {
   /** ρ·c·L = 2000 kg/m³ · 1000 J/(kg·K) · 0.001 m, J/(m²·K). */

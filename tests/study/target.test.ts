@@ -2,7 +2,7 @@
 // literal objects of the result contract (DESIGN.md, "Result"), so each expected outcome follows from the literal.
 import { describe, expect, it } from 'vitest';
 import { checkTarget, evaluateTarget, parseTarget, type Target } from '../../sim/study/target.ts';
-import type { Summary } from '../../sim/verdict.ts';
+import type { Summary } from '../../sim/observe/verdict.ts';
 
 const target = (text: string): Target => {
   const t = parseTarget(text);

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import demo from '../../examples/bench-coupon.json' with { type: 'json' };
 import { searchWindow, windowDefaults } from '../../sim/study/window.ts';
-import type { ScenarioFile } from '../../sim/scenario-schema.ts';
+import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { parseOk, runOk } from '../support/scenarios.ts';
 

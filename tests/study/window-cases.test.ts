@@ -4,7 +4,7 @@
 
 import { describe, expect, it } from 'vitest';
 import { searchWindow } from '../../sim/study/window.ts';
-import type { FaceSegmentFile, InlineMaterialFile, ScenarioFile } from '../../sim/scenario-schema.ts';
+import type { FaceSegmentFile, InlineMaterialFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { parseOk, runOk, slab } from '../support/scenarios.ts';
 

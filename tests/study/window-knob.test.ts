@@ -3,7 +3,7 @@
 
 import { describe, expect, it } from 'vitest';
 import { holdKnob, powerKnob } from '../../sim/study/knob.ts';
-import { heatOffTime } from '../../sim/verdict.ts';
+import { heatOffTime } from '../../sim/observe/verdict.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { PLAIN, parseOk, scenario, slab } from '../support/scenarios.ts';
 

@@ -1,13 +1,13 @@
-// Builders of scenario objects for the tests: the JSON format of sim/scenario-schema.ts, written as plain data so
+// Builders of scenario objects for the tests: the JSON format of sim/scenario/scenario-schema.ts, written as plain data so
 // every test drives the solver through the public contract (parseScenario → runProblem), as the CLI and the browser
 // view do. The materials here are invented test materials with round numbers; the references are closed forms.
 
-import type { Problem } from '../../sim/problem.ts';
-import type { RunRecord } from '../../sim/record.ts';
+import type { Problem } from '../../sim/physics/problem.ts';
+import type { RunRecord } from '../../sim/observe/record.ts';
 import type { RunOptions, RunOutcome } from '../../sim/run.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenario } from '../../sim/scenario.ts';
-import type { FaceSegmentFile, InlineMaterialFile, LayerFile, ScenarioFile } from '../../sim/scenario-schema.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
+import type { FaceSegmentFile, InlineMaterialFile, LayerFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 
 /** 0 °C in kelvin (SI Brochure, 9th ed., §2.3.1): the tests convert their closed forms' K to the contract's °C. */
 export const ZERO_C_IN_K = 273.15;

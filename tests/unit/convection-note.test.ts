@@ -4,9 +4,9 @@
 // low-ra-convection.md §2, given there to 3 figures; and the note on the demo scenario.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { convectionNote, raithbyHollands, vdiHeatAtlas } from '../../sim/convection-note.ts';
+import { convectionNote, raithbyHollands, vdiHeatAtlas } from '../../sim/observe/convection-note.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenarioText } from '../../sim/scenario.ts';
+import { parseScenarioText } from '../../sim/scenario/scenario.ts';
 import { assertClose } from '../support/assert-close.ts';
 
 // the table is rounded to 0.01: half a unit in its last place, relative to the smallest entry (0.77), is < 0.7 %

@@ -1,8 +1,8 @@
 // evaluateExpectations() against hand-written summaries: each statement of an `expect` block is met or not met as its
 // words say, with the run's value in words, and a verdict with no value never passes a comparison it cannot make.
 import { describe, expect, it } from 'vitest';
-import { countExpectations, evaluateExpectations, unmet } from '../../sim/expect.ts';
-import type { Summary } from '../../sim/verdict.ts';
+import { countExpectations, evaluateExpectations, unmet } from '../../sim/scenario/expect.ts';
+import type { Summary } from '../../sim/observe/verdict.ts';
 
 const ENERGY = { in_J_m2: 1, out_J_m2: 1, stored_J_m2: 0, imbalance_rel: 0 };
 const LAYER = (margin: number | null) => ({

@@ -5,8 +5,8 @@
 
 import { readdirSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { capErrors, clip, unitOfPath } from '../../sim/field-errors.ts';
-import { parseScenario } from '../../sim/scenario.ts';
+import { capErrors, clip, unitOfPath } from '../../sim/scenario/field-errors.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
 
 type Json = Record<string, unknown>;

@@ -2,7 +2,7 @@
 // 6 significant figures for CSV and energy, words for a missing value and never "NaN". Expected strings are written
 // out by hand from the stated rules (60 s to the minute; rounding half away from zero as a person does it).
 import { describe, expect, it } from 'vitest';
-import { csvNumber, formatEnergy, formatImbalance, formatMargin, formatNumber, formatSignificant, formatTime, NO_VALUE } from '../../sim/format.ts';
+import { csvNumber, formatEnergy, formatImbalance, formatMargin, formatNumber, formatSignificant, formatTime, NO_VALUE } from '../../sim/observe/format.ts';
 
 const NOT_NUMBERS = [Number.NaN, Infinity, -Infinity];
 

@@ -1,10 +1,10 @@
-// The strict JSON reader (sim/json-text.ts) against the platform's own JSON.parse (ECMA-262 §25.5.1, the reference
+// The strict JSON reader (sim/scenario/json-text.ts) against the platform's own JSON.parse (ECMA-262 §25.5.1, the reference
 // implementation of RFC 8259 at hand): the same value for every valid text, a refusal for every text JSON.parse
 // refuses. Beyond JSON.parse: keys given twice, line and column of a syntax error, a leading byte-order mark.
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { lineColumn, readJsonText } from '../../sim/json-text.ts';
+import { lineColumn, readJsonText } from '../../sim/scenario/json-text.ts';
 
 /** Generous limits: the grammar tests must not meet them. */
 const WIDE = { maxChars: 1e8, maxDepth: 1000 };

@@ -1,9 +1,9 @@
 // Layer ids are the user's own strings and key the summary and the series. Whatever the id, it must come out as an
 // ordinary key: "__proto__" written as `obj[id] = v` would set the object's prototype and drop the layer silently.
 import { describe, expect, it } from 'vitest';
-import { resultDocument } from '../../sim/result.ts';
+import { resultDocument } from '../../sim/observe/result.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenario } from '../../sim/scenario.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
 
 describe('layer ids in the result', () => {
   it('summarize() and resultDocument() keep every layer id as an own key, "__proto__" and "constructor" included', () => {

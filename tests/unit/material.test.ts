@@ -1,17 +1,17 @@
-// The enthalpy–temperature relation of sim/material.ts against the enthalpy method's definition
+// The enthalpy–temperature relation of sim/physics/material.ts against the enthalpy method's definition
 // H(T) = ∫ρcp dT + ρL·f(T), f a linear ramp over [solidus, liquidus] or a jump at an isothermal melt (Voller &
 // Swaminathan 1990; Alexiades & Solomon, Mathematical Modeling of Melting and Freezing Processes, 1993, ch. 4),
 // written out here for invented materials with round numbers.
 
 import { describe, expect, it } from 'vitest';
-import type { Material, Table } from '../../sim/material.ts';
-import { buildMaterial, enthalpyAt, liquidFractionOf, temperatureOf } from '../../sim/material.ts';
+import type { Material, Table } from '../../sim/physics/material.ts';
+import { buildMaterial, enthalpyAt, liquidFractionOf, temperatureOf } from '../../sim/physics/material.ts';
 import { assertClose } from '../support/assert-close.ts';
 
 const K0 = 273.15;
 /** A table in K from rows in °C. */
 const table = (rows: [number, number][]): Table => ({ tK: Float64Array.from(rows, (r) => r[0] + K0), y: Float64Array.from(rows, (r) => r[1]) });
-/** A constant given as one number: the file form `cp_J_kgK: 1000` becomes a one-row table (sim/material-file.ts). */
+/** A constant given as one number: the file form `cp_J_kgK: 1000` becomes a one-row table (sim/scenario/material-file.ts). */
 const single = (v: number): Table => table([[0, v]]);
 
 const RHO = 2000;

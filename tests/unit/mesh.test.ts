@@ -1,9 +1,9 @@
-// The layer stack cut into cells (sim/mesh.ts): cell widths add up to each layer, cells are finer at every layer
+// The layer stack cut into cells (sim/grid/mesh.ts): cell widths add up to each layer, cells are finer at every layer
 // face and graded smoothly (Patankar, Numerical Heat Transfer and Fluid Flow, 1980, §4.6: cell faces placed first),
 // the counts follow the numerics, and a contact resistance sits on the face between its two layers.
 
 import { describe, expect, it } from 'vitest';
-import { buildGrid } from '../../sim/mesh.ts';
+import { buildGrid } from '../../sim/grid/mesh.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { PLAIN, parseOk, scenario } from '../support/scenarios.ts';
 

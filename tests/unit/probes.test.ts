@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { labelDepths, stackProbes } from '../../sim/probes.ts';
-import { parseScenarioText } from '../../sim/scenario.ts';
+import { labelDepths, stackProbes } from '../../sim/grid/probes.ts';
+import { parseScenarioText } from '../../sim/scenario/scenario.ts';
 import { depthListText, parseDepthList } from '../../ui/probes-field.ts';
 import demo from '../../examples/bench-coupon.json' with { type: 'json' };
 

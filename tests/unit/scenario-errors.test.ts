@@ -3,8 +3,8 @@
 // field and the value, e.g. `layers[1].thickness_mm: must be > 0, got -1.5`). One case per row.
 
 import { describe, expect, it } from 'vitest';
-import { parseScenario, parseScenarioText } from '../../sim/scenario.ts';
-import type { FieldError } from '../../sim/scenario.ts';
+import { parseScenario, parseScenarioText } from '../../sim/scenario/scenario.ts';
+import type { FieldError } from '../../sim/scenario/scenario.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
 
 type Json = Record<string, unknown>;

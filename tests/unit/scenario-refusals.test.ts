@@ -1,16 +1,16 @@
 // Refusals that stay short and exact (issue 9, "Refusals stay short", "Bounded resources"; issue 7, "Messages for
 // people"): each class of bad input is refused before any computation in one message that names the field, the value
-// and the limit, however large the input. The limits are those of sim/scenario-limits.ts; what the tests hold the
+// and the limit, however large the input. The limits are those of sim/scenario/scenario-limits.ts; what the tests hold the
 // code to is that the message states the limit in force and the value given, and that nothing grows with the input.
 
 import { describe, expect, it } from 'vitest';
-import type { FieldError } from '../../sim/field-errors.ts';
-import { parseScenario, parseScenarioText } from '../../sim/scenario.ts';
-import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario-limits.ts';
+import type { FieldError } from '../../sim/scenario/field-errors.ts';
+import { parseScenario, parseScenarioText } from '../../sim/scenario/scenario.ts';
+import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario/scenario-limits.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
 import { scenarioFromText } from '../../ui/files.ts';
-import { recordDefaults } from '../../sim/record.ts';
-import { stepGuardDefaults } from '../../sim/step-guards.ts';
+import { recordDefaults } from '../../sim/observe/record.ts';
+import { stepGuardDefaults } from '../../sim/time/step-guards.ts';
 
 type Json = Record<string, unknown>;
 
@@ -156,7 +156,7 @@ describe('parseScenario() refusals', () => {
   it('parseScenario() refuses 100 000 layers in one line, before checking any of them', () => {
     const s = valid();
     s.layers = cut(Array.from({ length: 100_000 }, (_, i) => ({ id: `L${i}`, material: 'metal', thickness_mm: -1 })));
-    expect(onlyError(s, 'layers')).toBe(`holds 100000 layers; the limit is ${LIMIT.maxLayers} (scenarioLimitDefaults, sim/scenario-limits.ts)`);
+    expect(onlyError(s, 'layers')).toBe(`holds 100000 layers; the limit is ${LIMIT.maxLayers} (scenarioLimitDefaults, sim/scenario/scenario-limits.ts)`);
   });
 
   it('scenarioLimitDefaults admits no more output times than the recorder keeps exactly (recordDefaults)', () => {

@@ -6,8 +6,8 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { summaryTable } from '../../sim/cli/table.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenario } from '../../sim/scenario.ts';
-import { noValueWords, windowStatusWords } from '../../sim/wording.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
+import { noValueWords, windowStatusWords } from '../../sim/observe/wording.ts';
 
 function coolPlateRun() {
   const file = JSON.parse(readFileSync(new URL('../../examples/bench-coupon.json', import.meta.url), 'utf8')) as {

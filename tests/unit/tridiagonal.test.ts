@@ -1,9 +1,9 @@
-// solveTridiagonal() (the Thomas algorithm, sim/tridiagonal.ts) against a dense Gaussian elimination with partial
+// solveTridiagonal() (the Thomas algorithm, sim/grid/tridiagonal.ts) against a dense Gaussian elimination with partial
 // pivoting written here (Golub & Van Loan, Matrix Computations, 4th ed., Algorithm 3.4.1), on random diagonally
 // dominant systems from a seeded generator.
 
 import { describe, expect, it } from 'vitest';
-import { solveTridiagonal } from '../../sim/tridiagonal.ts';
+import { solveTridiagonal } from '../../sim/grid/tridiagonal.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { seededRandom } from '../support/scenarios.ts';
 

@@ -3,9 +3,9 @@
 // agrees with the solver's own definition of heat-off (the view reads drafts, so it keeps its own copy of the rule).
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { formatPath as simFormatPath } from '../../sim/field-errors.ts';
-import { parseScenario } from '../../sim/scenario.ts';
-import { heatOffTime } from '../../sim/verdict.ts';
+import { formatPath as simFormatPath } from '../../sim/scenario/field-errors.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
+import { heatOffTime } from '../../sim/observe/verdict.ts';
 import { decodeBase64Url, encodeBase64Url } from '../../ui/base64url.ts';
 import { formatNumber, formatSeconds, NO_VALUE, parseNumberInput } from '../../ui/format.ts';
 import { heaterOffRow } from '../../ui/heat-off.ts';
@@ -14,8 +14,8 @@ import { layerColours } from '../../ui/colours.ts';
 import { fieldsToFill } from '../../ui/incomplete.ts';
 import { footprintAreaM2, shownIn, toWPerM3, unitUnavailable } from '../../ui/source-units.ts';
 import { timeAxis, xOf } from '../../ui/time-axis.ts';
-import { formatDefaults } from '../../sim/format.ts';
-import type { Summary } from '../../sim/verdict.ts';
+import { formatDefaults } from '../../sim/observe/format.ts';
+import type { Summary } from '../../sim/observe/verdict.ts';
 import fc from 'fast-check';
 import { assertClose } from '../support/assert-close.ts';
 import type { Json, JsonObject } from '../../ui/json.ts';
@@ -158,7 +158,7 @@ describe('ui/cautions', () => {
 });
 
 describe('ui/time-axis', () => {
-  it('timeAxis() reads minutes from the duration at which event times switch to min:s (sim/format.ts)', () => {
+  it('timeAxis() reads minutes from the duration at which event times switch to min:s (sim/observe/format.ts)', () => {
     expect(timeAxis(formatDefaults.minutesFromS - 1).unit).toBe('s');
     const a = timeAxis(3600);
     expect(a.unit).toBe('min');

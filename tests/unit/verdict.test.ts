@@ -1,13 +1,13 @@
-// Event times and the end of heating (sim/verdict.ts) on hand-made series and scenarios, against the definitions of
+// Event times and the end of heating (sim/observe/verdict.ts) on hand-made series and scenarios, against the definitions of
 // DESIGN.md ("Result") worked out by hand: linear interpolation between recorded points, never rounding to a step.
 
 import { describe, expect, it } from 'vitest';
 import ndarray from 'ndarray';
-import { firstCrossing, heatInputs, heatOffTime, lastHeatInput, summarize } from '../../sim/verdict.ts';
-import type { RunRecord } from '../../sim/record.ts';
+import { firstCrossing, heatInputs, heatOffTime, lastHeatInput, summarize } from '../../sim/observe/verdict.ts';
+import type { RunRecord } from '../../sim/observe/record.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { PLAIN, parseOk, scenario, slab } from '../support/scenarios.ts';
-import type { FaceSegmentFile, InlineMaterialFile, LayerFile } from '../../sim/scenario-schema.ts';
+import type { FaceSegmentFile, InlineMaterialFile, LayerFile } from '../../sim/scenario/scenario-schema.ts';
 
 const f64 = (values: number[]) => Float64Array.from(values);
 /** Interpolated times are exact up to round-off in one division. */

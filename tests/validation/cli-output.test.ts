@@ -8,9 +8,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { hazards, predictionNotCertification, verdictTerms } from '../../sim/wording.ts';
+import { hazards, predictionNotCertification, verdictTerms } from '../../sim/observe/wording.ts';
 
-const root = fileURLToPath(new URL('../../', import.meta.url));
+const root = fileURLToPath(new URL('../..', import.meta.url));
 const demo = join(root, 'examples/bench-coupon.json');
 const work = mkdtempSync(join(tmpdir(), 'freezeline-cli-'));
 

@@ -1,13 +1,13 @@
-// The salt-soaked separator (sim/composite.ts) against the mixing rules as published: effective-medium theory in its
+// The salt-soaked separator (sim/physics/composite.ts) against the mixing rules as published: effective-medium theory in its
 // two-phase closed form k = [B + √(B² + 8k₁k₂)]/4, B = (3v₁ − 1)k₁ + (3v₂ − 1)k₂ (Landauer 1952; formula as in Wang,
 // Carson, North & Cleland, Int. J. Heat Mass Transfer 49 (2006) 3075), and the series and parallel (Wiener) bounds;
 // ρ, ρc_p and latent heat by volume and mass weighting, checked by hand.
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { compositeMaterial, effectiveMediumConductivity, parallelBound, seriesBound } from '../../sim/composite.ts';
-import { libraryMaterial } from '../../sim/library.ts';
-import { conductivityAt, evalTable } from '../../sim/material.ts';
+import { compositeMaterial, effectiveMediumConductivity, parallelBound, seriesBound } from '../../sim/physics/composite.ts';
+import { libraryMaterial } from '../../sim/scenario/library.ts';
+import { conductivityAt, evalTable } from '../../sim/physics/material.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { parseOk } from '../support/scenarios.ts';
 

@@ -3,7 +3,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenarioText } from '../../sim/scenario.ts';
+import { parseScenarioText } from '../../sim/scenario/scenario.ts';
 
 const dir = new URL('../../examples/', import.meta.url);
 const files = readdirSync(dir).filter((f) => f.endsWith('.json')).sort();

@@ -1,10 +1,10 @@
-// Internal heat in the user's terms (sim/heat-sources.ts) against closed forms: a pellet releases mass × heat per
+// Internal heat in the user's terms (sim/scenario/heat-sources.ts) against closed forms: a pellet releases mass × heat per
 // gram, Joule heat I²R·t, a calibration term ρ·p·d·t per unit area — each read back from the run's energy ledger.
 // The Fe/KClO₄ heat is checked against the reaction KClO₄ + 4 Fe → KCl + 4 FeO with formation enthalpies KClO₄
 // −433 kJ/mol (Wikipedia "Potassium perchlorate"), KCl −436.747 (you-iggy tables), FeO −272.0 (CRC, from memory).
 
 import { describe, expect, it } from 'vitest';
-import { pelletHeatJPerKg } from '../../sim/heat-sources.ts';
+import { pelletHeatJPerKg } from '../../sim/scenario/heat-sources.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { parseOk, PLAIN, runOk, scenario } from '../support/scenarios.ts';
 

@@ -1,4 +1,4 @@
-// Natural convection from small horizontal plates at low Rayleigh numbers (sim/natural-convection.ts) against hand
+// Natural convection from small horizontal plates at low Rayleigh numbers (sim/physics/natural-convection.ts) against hand
 // calculations of the thick-layer correlations of Raithby & Hollands, "Natural convection", ch. 4 of Rohsenow, Hartnett
 // & Cho, Handbook of Heat Transfer, 3rd ed. (1998), as transcribed by Nellis & Klein, Introduction to Engineering Heat
 // Transfer (2021). No textbook worked example at Ra < 10⁴ fits (the horizontal-plate examples of Incropera and Çengel
@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   naturalConvectionCoefficient, naturalConvectionIn, nusselt, raithbyHollandsDown, raithbyHollandsUp, rayleighInRange,
-} from '../../sim/natural-convection.ts';
+} from '../../sim/physics/natural-convection.ts';
 import { assertClose } from '../support/assert-close.ts';
 
 const PR_AIR = 0.71;

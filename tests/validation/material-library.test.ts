@@ -3,7 +3,7 @@
 
 import { readdirSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { libraryFile, libraryMaterial, libraryNames } from '../../sim/library.ts';
+import { libraryFile, libraryMaterial, libraryNames } from '../../sim/scenario/library.ts';
 import { assertClose } from '../support/assert-close.ts';
 
 const MATERIALS_DIR = new URL('../../materials/', import.meta.url);

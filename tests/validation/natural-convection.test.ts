@@ -1,9 +1,9 @@
-// Natural convection from a horizontal plate (sim/natural-convection.ts) against a hand calculation of the
+// Natural convection from a horizontal plate (sim/physics/natural-convection.ts) against a hand calculation of the
 // correlations of Incropera & DeWitt, Fundamentals of Heat and Mass Transfer (6th ed.), §9.6.2, with L = A/P
 // (Goldstein, Sparrow & Jones 1973; Lloyd & Moran 1974) and the air properties written down here.
 
 import { describe, expect, it } from 'vitest';
-import { naturalConvectionCoefficient, plumeRisesFromFace, rayleigh } from '../../sim/natural-convection.ts';
+import { naturalConvectionCoefficient, plumeRisesFromFace, rayleigh } from '../../sim/physics/natural-convection.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { last, runOk, slab } from '../support/scenarios.ts';
 

@@ -2,7 +2,7 @@
 // DeWitt, Fundamentals of Heat and Mass Transfer, 6th ed., eq. 1.7), with σ = 5.670374419e-8 W/m²·K⁴ (CODATA 2018).
 
 import { describe, it } from 'vitest';
-import { faceHeatIn } from '../../sim/faces.ts';
+import { faceHeatIn } from '../../sim/physics/faces.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { brent } from '../support/special.ts';
 import { flat, last, runOk, slab, toK } from '../support/scenarios.ts';

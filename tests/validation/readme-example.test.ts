@@ -3,9 +3,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { summaryTable } from '../../sim/cli/table.ts';
-import { evaluateExpectations } from '../../sim/expect.ts';
+import { evaluateExpectations } from '../../sim/scenario/expect.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenarioText } from '../../sim/scenario.ts';
+import { parseScenarioText } from '../../sim/scenario/scenario.ts';
 
 describe('README.md example', () => {
   it('shows the verdict table that the CLI prints for the demo scenario', () => {

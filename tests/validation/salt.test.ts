@@ -1,12 +1,12 @@
-// The LiCl–KCl liquidus model (sim/salt.ts, sim/salt-mixture.ts) against the measured facts it is built from and
+// The LiCl–KCl liquidus model (sim/physics/salt.ts, sim/scenario/salt-mixture.ts) against the measured facts it is built from and
 // checked by: pure-salt melting points (Wikipedia "Lithium chloride" data page; you-iggy "Potassium chloride" tables),
 // the eutectic at 352 °C (Sandia, "Electrolyte effects in Li(Si)/FeS2 thermal batteries"; Ito et al., J. Chem. Eng.
 // Data 46 (2001)) and 58.5 mol % LiCl (Li et al., "Electrical Conductivity of LiCl–KCl–CsCl Melts", J. Chem. Eng. Data
 // 2016), and the heat-of-fusion fit of Korin & Soifer, J. Thermal Analysis 50 (1997) 347.
 
 import { describe, expect, it } from 'vitest';
-import { branchK, leverLiquidFraction, liquidusModel, meltingRange, mixtureLatentJPerKg, moleFromMass } from '../../sim/salt.ts';
-import { liclMoleFraction, saltMixtureMaterial } from '../../sim/salt-mixture.ts';
+import { branchK, leverLiquidFraction, liquidusModel, meltingRange, mixtureLatentJPerKg, moleFromMass } from '../../sim/physics/salt.ts';
+import { liclMoleFraction, saltMixtureMaterial } from '../../sim/scenario/salt-mixture.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { parseOk } from '../support/scenarios.ts';
 

@@ -6,7 +6,7 @@ import { describe, it } from 'vitest';
 import { assertClose } from '../support/assert-close.ts';
 import { compositeWallSteady } from '../support/closed-forms.ts';
 import { flat, last, probeAt, runOk, scenario, toC, toK } from '../support/scenarios.ts';
-import type { FaceSegmentFile } from '../../sim/scenario-schema.ts';
+import type { FaceSegmentFile } from '../../sim/scenario/scenario-schema.ts';
 
 // Three invented layers (ρcp = 5e5 J/m³·K; the slowest mode decays with τ ≈ 15 s, measured as a factor 1000 per 100 s): 2 mm of k = 10, 3 mm of k = 0.5,
 // 4 mm of k = 2 W/m·K, with contact resistances 1e-3 and 5e-4 m²·K/W between them.

@@ -4,10 +4,10 @@
 // in the cooling rate (Incropera §5.1–5.2); here the salt layer has Bi ≈ h·L/k ≈ 40 W/m²K · 1.5 mm / 0.45 W/mK ≈ 0.13.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { runLumped } from '../../sim/lumped.ts';
+import { runLumped } from '../../sim/lumped/lumped.ts';
 import { runProblem } from '../../sim/run.ts';
-import { parseScenarioText } from '../../sim/scenario.ts';
-import { firstCrossing, heatOffTime } from '../../sim/verdict.ts';
+import { parseScenarioText } from '../../sim/scenario/scenario.ts';
+import { firstCrossing, heatOffTime } from '../../sim/observe/verdict.ts';
 import { assertClose } from '../support/assert-close.ts';
 
 describe('runLumped() and runProblem() on the bench coupon', () => {

@@ -8,7 +8,7 @@ import { assertClose } from '../support/assert-close.ts';
 import { semiInfiniteConstantFlux, semiInfiniteFixedSurface } from '../support/closed-forms.ts';
 import { erfc, ierfc } from '../support/special.ts';
 import { PLAIN, last, probeAt, runOk, slab, toC, toK } from '../support/scenarios.ts';
-import type { FaceSegmentFile } from '../../sim/scenario-schema.ts';
+import type { FaceSegmentFile } from '../../sim/scenario/scenario-schema.ts';
 
 const ALPHA = 5e-7; // k/(ρcp) of PLAIN, m²/s
 const THICKNESS_MM = 20;

@@ -16,12 +16,12 @@
  * This is a sensitivity of the recorded run, not a re-run: a weaker h would leave the faces hotter, which the
  * integral does not follow; the figure is a first-order estimate and says so.
  */
-import { airConductivity, airDiffusivity, airKinematicViscosity } from './air.ts';
-import { evalTable } from './material.ts';
-import { filmTemperature, naturalConvectionCoefficient, plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
-import { characteristicLengthM, conditionAt, type Problem } from './problem.ts';
+import { airConductivity, airDiffusivity, airKinematicViscosity } from '../physics/air.ts';
+import { evalTable } from '../physics/material.ts';
+import { filmTemperature, naturalConvectionCoefficient, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
+import { characteristicLengthM, conditionAt, type Problem } from '../physics/problem.ts';
 import type { RunRecord } from './record.ts';
-import { cToK } from './units.ts';
+import { cToK } from '../physics/units.ts';
 
 export const convectionNoteDefaults = {
   /** Faces within this many kelvin of the air are not weighed (the recorder ignores them too). */

@@ -2,15 +2,15 @@
  * An inline material of the scenario → Material, by kind: properties given directly (material-file.ts), a LiCl–KCl
  * mixture by composition (salt-mixture.ts), or a porous matrix filled with a salt (composite.ts). Errors name the field.
  */
-import { compositeMaterial } from './composite.ts';
+import { compositeMaterial } from '../physics/composite.ts';
 import type { FieldError } from './field-errors.ts';
 import { libraryMaterial, unknownMaterialMessage } from './library.ts';
-import type { Limit, Material } from './material.ts';
+import type { Limit, Material } from '../physics/material.ts';
 import { materialFromFile } from './material-file.ts';
 import type { CompositeFile } from './rig-schema.ts';
 import { liclMoleFraction, saltMixtureMaterial } from './salt-mixture.ts';
 import type { InlineMaterialFile, MaterialEntryFile } from './scenario-schema.ts';
-import { cToK } from './units.ts';
+import { cToK } from '../physics/units.ts';
 
 const show = (v: unknown): string => JSON.stringify(v);
 

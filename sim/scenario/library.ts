@@ -2,9 +2,9 @@
  * The bundled material library (materials/*.json), each file checked against the library schema when first used.
  * A broken library file is a programming error (the test suite checks every file), so it throws here.
  */
-import { libraryMaterialFiles } from '../materials/index.ts';
+import { libraryMaterialFiles } from '../../materials/index.ts';
 import { clip, formatFieldError, formatZodIssue, nearestWord, quote, type FieldError } from './field-errors.ts';
-import type { Material } from './material.ts';
+import type { Material } from '../physics/material.ts';
 import { materialFromFile } from './material-file.ts';
 import { type LibraryMaterialFile, libraryMaterialSchema } from './scenario-schema.ts';
 

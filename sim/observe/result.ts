@@ -3,9 +3,9 @@
  * additions (warnings, solver statistics, per-layer limit lists). Every number is finite: a NaN or infinity here is
  * an internal error, reported as such rather than written as null.
  */
-import type { EvolveStats } from './evolve.ts';
-import type { Grid } from './mesh.ts';
-import type { Problem } from './problem.ts';
+import type { EvolveStats } from '../time/evolve.ts';
+import type { Grid } from '../grid/mesh.ts';
+import type { Problem } from '../physics/problem.ts';
 import type { RunRecord } from './record.ts';
 import type { Summary } from './verdict.ts';
 

@@ -4,12 +4,12 @@
  * h_new = h·clamp(safety·err^(−1/3), shrink, grow) (Hairer & Wanner, Solving ODEs II, §IV.8), and land exactly on
  * every breakpoint: schedule changes of the faces and sources, requested output times and the end of the run.
  */
-import type { StepConditions, Workspace } from './discretization.ts';
-import { createWorkspace, updateCapacity } from './discretization.ts';
-import { enthalpyAt } from './material.ts';
-import type { Grid } from './mesh.ts';
-import type { Problem } from './problem.ts';
-import { characteristicLengthM, conditionAt, sourceAt } from './problem.ts';
+import type { StepConditions, Workspace } from '../grid/discretization.ts';
+import { createWorkspace, updateCapacity } from '../grid/discretization.ts';
+import { enthalpyAt } from '../physics/material.ts';
+import type { Grid } from '../grid/mesh.ts';
+import type { Problem } from '../physics/problem.ts';
+import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
 import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
@@ -70,15 +70,6 @@ export interface EvolveStats {
 export type EvolveEnd =
   | { readonly status: 'ok'; readonly stats: EvolveStats }
   | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: EvolveStats };
-
-/** Sorted, unique times in (0, duration] at which a step must end. */
-export function breakpoints(problem: Problem): number[] {
-  const set = new Set<number>([problem.durationS]);
-  for (const seg of [...problem.bottom, ...problem.top]) set.add(seg.fromS);
-  for (const layer of problem.layers) for (const s of layer.sources) { set.add(s.fromS); set.add(s.toS); }
-  for (const t of problem.outputTimesS) set.add(t);
-  return [...set].filter((t) => t > 0 && t <= problem.durationS).sort((a, b) => a - b);
-}
 
 function conditionsAt(problem: Problem, grid: Grid, tS: number, source: Float64Array): StepConditions {
   for (let i = 0; i < grid.n; i++) source[i] = sourceAt(problem.layers[grid.layerOf[i]!]!, tS);

@@ -9,8 +9,11 @@
  * segment. This conserves energy exactly through the phase change: the solver's unknown is H, never T.
  * Outside the tables the end values are held (flat c_p and k), so H is extended linearly.
  */
-import type { LimitKind } from './scenario-schema.ts';
 import { evalTable, evalTableWithSlope, type Table } from './table.ts';
+
+/** What a layer's limit guards against (the file's `limits[].kind`). */
+export const LIMIT_KINDS = ['melt', 'ignition', 'decomposition', 'softening', 'service'] as const;
+export type LimitKind = (typeof LIMIT_KINDS)[number];
 
 export { evalTable, evalTableWithSlope, type Table };
 

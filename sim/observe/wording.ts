@@ -1,7 +1,7 @@
 /**
  * The one vocabulary of freezeline: one term and one definition per idea, read by the CLI table, the HTML report,
  * the browser view and the README's verdict table (a test keeps the README in step with this file). Plain data:
- * no DOM, no Node, no formatting of numbers (that is sim/format.ts).
+ * no DOM, no Node, no formatting of numbers (that is sim/observe/format.ts).
  *
  * Choices made once, with the reason:
  *   - "heat off" (not "heater removed"): the heat may come from a plate, a held face, a flux or a source inside the
@@ -93,7 +93,7 @@ export const terms = {
   step: { term: 'step', definition: 'One solver time step.' },
 } as const satisfies Record<string, Term>;
 
-/** Outcome words of a stated expectation (sim/expect.ts). */
+/** Outcome words of a stated expectation (sim/scenario/expect.ts). */
 export const expectationWords = { pass: 'met', fail: 'NOT MET', unknown: 'not evaluated' } as const;
 
 /** The short hazard list shown at the end of every run, in the report and in the view; shown as "term: definition". */

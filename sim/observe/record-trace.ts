@@ -8,9 +8,9 @@
  * brackets a crossing is the original pair. So the two points around each change of side are held exactly, and the
  * rest is decimated (row-store.ts).
  */
-import type { Grid } from './mesh.ts';
-import { liquidFractionOf, sensibleCapacity, temperatureOf } from './material.ts';
-import type { Problem } from './problem.ts';
+import type { Grid } from '../grid/mesh.ts';
+import { liquidFractionOf, sensibleCapacity, temperatureOf } from '../physics/material.ts';
+import type { Problem } from '../physics/problem.ts';
 import { RowStore } from './row-store.ts';
 
 /** Separator indicators at step ends and stage points, for event times interpolated inside a step. */

@@ -3,10 +3,10 @@
  * Tables must have strictly increasing temperatures; the solidus may not lie above the liquidus.
  */
 import type { FieldError } from './field-errors.ts';
-import type { Limit, Material, Table } from './material.ts';
-import { buildMaterial } from './material.ts';
+import type { Limit, Material, Table } from '../physics/material.ts';
+import { buildMaterial } from '../physics/material.ts';
 import type { InlineMaterialFile, LibraryMaterialFile, PropertyFile } from './scenario-schema.ts';
-import { cToK } from './units.ts';
+import { cToK } from '../physics/units.ts';
 
 function toTable(p: PropertyFile, path: string, errors: FieldError[]): Table {
   if (typeof p === 'number') return { tK: Float64Array.of(cToK(0)), y: Float64Array.of(p) };

@@ -2,7 +2,7 @@
  * The series of a run as CSV (RFC 4180, comma-separated, one header row, units in the column names): time, each
  * layer's min/mean/max temperature, liquid fractions of the layers that melt, and the two face temperatures.
  * One writer for the CLI (`run --csv`) and the browser view's export. Numbers carry about 6 significant figures
- * (sim/format.ts `csvNumber`); a non-finite value (never expected: the result is checked) is written as an empty cell
+ * (sim/observe/format.ts `csvNumber`); a non-finite value (never expected: the result is checked) is written as an empty cell
  * rather than as "NaN".
  *
  * Two row sets: every recorded point (`seriesCsv`), or the scenario's requested output times (`outputTimesCsv`), with

@@ -9,9 +9,9 @@
  * matrix (I − d·h·J)⁻¹, Shampine's device for stiff problems (Hosea & Shampine 1996, §3).
  * With backwardEuler: true the step is one backward-Euler stage (first order, for the convergence study).
  */
-import type { StepConditions, Workspace } from './discretization.ts';
-import { evaluate, stageJacobian, stageResidual } from './discretization.ts';
-import { solveTridiagonal } from './tridiagonal.ts';
+import type { StepConditions, Workspace } from '../grid/discretization.ts';
+import { evaluate, stageJacobian, stageResidual } from '../grid/discretization.ts';
+import { solveTridiagonal } from '../grid/tridiagonal.ts';
 
 const SQRT2 = Math.SQRT2;
 const GAMMA = 2 - SQRT2;

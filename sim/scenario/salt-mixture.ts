@@ -9,11 +9,11 @@
  */
 import type { FieldError } from './field-errors.ts';
 import { libraryMaterial } from './library.ts';
-import { buildMaterial, type Material } from './material.ts';
+import { buildMaterial, type Material } from '../physics/material.ts';
 import type { SaltMixtureFile } from './rig-schema.ts';
-import { leverLiquidFraction, liquidusModel, meltingRange, mixtureLatentJPerKg, molarMass, moleFromMass } from './salt.ts';
-import { liclKclFacts, saltData } from './salt-data.ts';
-import { cToK } from './units.ts';
+import { leverLiquidFraction, liquidusModel, meltingRange, mixtureLatentJPerKg, molarMass, moleFromMass } from '../physics/salt.ts';
+import { liclKclFacts, saltData } from '../physics/salt-data.ts';
+import { cToK } from '../physics/units.ts';
 
 export const saltMixtureDefaults = {
   /** How far the fractions may miss a sum of 1 (rounded percentages such as 44/56 are exact; 1/3 + 2/3 typed as decimals are not). */

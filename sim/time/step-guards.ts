@@ -9,9 +9,9 @@
  * which TR-BDF2 damps anyway (L-stable). So at a small share of it the step is taken and accepted whatever the error
  * estimate says (a forced step, counted in the run's statistics).
  */
-import type { StepConditions, Workspace } from './discretization.ts';
-import { faceHeatIn } from './faces.ts';
-import type { Problem } from './problem.ts';
+import type { StepConditions, Workspace } from '../grid/discretization.ts';
+import { faceHeatIn } from '../physics/faces.ts';
+import type { Problem } from '../physics/problem.ts';
 
 export const stepGuardDefaults = {
   /**

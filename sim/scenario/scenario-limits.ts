@@ -8,10 +8,10 @@
  * demo refined to 1800 cells: 4.5 M cell-updates/s, 1995 steps in 9.5 s (one core of the 2-core CI machine).
  */
 import type { FieldError } from './field-errors.ts';
-import { cellsInLayer } from './mesh.ts';
-import type { Numerics } from './problem.ts';
+import { cellsInLayer } from '../grid/mesh.ts';
+import type { Numerics } from '../physics/problem.ts';
 import type { ScenarioFile } from './scenario-schema.ts';
-import { mmToM } from './units.ts';
+import { mmToM } from '../physics/units.ts';
 
 export const scenarioLimitDefaults = {
   /** Characters of scenario text: a scenario within every other limit is well under 1 MB; this bounds the reader's memory. */
@@ -70,7 +70,7 @@ const field = (v: unknown, key: string): unknown => (isRecord(v) && Object.hasOw
 
 function tooMany(path: string, list: unknown, max: number, what: string, errors: FieldError[]): boolean {
   if (!Array.isArray(list) || list.length <= max) return false;
-  errors.push({ path, message: `holds ${list.length} ${what}; the limit is ${max} (scenarioLimitDefaults, sim/scenario-limits.ts)` });
+  errors.push({ path, message: `holds ${list.length} ${what}; the limit is ${max} (scenarioLimitDefaults, sim/scenario/scenario-limits.ts)` });
   return true;
 }
 
@@ -96,7 +96,7 @@ export function sizeErrors(raw: unknown): FieldError[] {
   if (isRecord(materials)) {
     const names = Object.keys(materials);
     if (names.length > L.maxMaterials) {
-      errors.push({ path: 'materials', message: `holds ${names.length} materials; the limit is ${L.maxMaterials} (scenarioLimitDefaults, sim/scenario-limits.ts)` });
+      errors.push({ path: 'materials', message: `holds ${names.length} materials; the limit is ${L.maxMaterials} (scenarioLimitDefaults, sim/scenario/scenario-limits.ts)` });
     } else {
       for (const name of names) {
         for (const key of ['k_W_mK', 'cp_J_kgK']) {

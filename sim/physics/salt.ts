@@ -10,7 +10,7 @@
  * liquidus follows from the lever rule with the liquid on the liquidus (moles: f = (1 − x₀)/(1 − x_l) on the LiCl side).
  * The pure salts' Tᵢ and ΔHᵢ come from materials/licl.json and materials/kcl.json.
  */
-import { libraryFile } from './library.ts';
+import { libraryFile } from '../scenario/library.ts';
 import { GAS_CONSTANT_J_MOLK, liclKclFacts, saltData } from './salt-data.ts';
 import { cToK } from './units.ts';
 

@@ -7,11 +7,10 @@
  * and each outer layer exchanges heat with its face condition at its own node temperature (Biot ≪ 1 assumed).
  */
 import { Outcome, Solver } from 'odex';
-import { faceHeatIn, type FaceContext } from './faces.ts';
-import { conductivityAt, enthalpyAt, liquidFractionOf, sensibleCapacity, temperatureOf } from './material.ts';
-import type { FaceCondition, Problem } from './problem.ts';
-import { characteristicLengthM, conditionAt, sourceAt } from './problem.ts';
-import { breakpoints } from './evolve.ts';
+import { faceHeatIn, type FaceContext } from '../physics/faces.ts';
+import { conductivityAt, enthalpyAt, liquidFractionOf, sensibleCapacity, temperatureOf } from '../physics/material.ts';
+import type { FaceCondition, Problem } from '../physics/problem.ts';
+import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
 
 export const lumpedDefaults = {
   /** odex tolerances on E (J/m²): relative, and absolute as the energy of this many kelvin in each layer. */

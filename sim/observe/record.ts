@@ -9,16 +9,16 @@
  */
 import ndarray from 'ndarray';
 import type { NdArray } from 'ndarray';
-import { AIR_TABLE_RANGE_K } from './air.ts';
-import type { StepReport } from './evolve.ts';
-import { liquidFractionOf } from './material.ts';
-import type { Grid } from './mesh.ts';
-import { filmTemperature, naturalConvectionRanges, plumeRisesFromFace, rayleigh, rayleighInRange } from './natural-convection.ts';
-import { characteristicLengthM, type FaceCondition, type Problem } from './problem.ts';
+import { AIR_TABLE_RANGE_K } from '../physics/air.ts';
+import type { StepReport } from '../time/evolve.ts';
+import { liquidFractionOf } from '../physics/material.ts';
+import type { Grid } from '../grid/mesh.ts';
+import { filmTemperature, naturalConvectionRanges, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
+import { characteristicLengthM, type FaceCondition, type Problem } from '../physics/problem.ts';
 import type { SeparatorTrace } from './record-trace.ts';
 import { createTraceRecorder } from './record-trace.ts';
 import { RowStore } from './row-store.ts';
-import { kToC, mToMm } from './units.ts';
+import { kToC, mToMm } from '../physics/units.ts';
 
 export type { SeparatorTrace } from './record-trace.ts';
 

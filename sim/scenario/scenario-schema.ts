@@ -7,7 +7,8 @@
  * scenario.ts, which runs after this shape check and reports errors in the same `path: message, got value` form.
  */
 import { z } from 'zod';
-import { ZERO_CELSIUS_K } from './units.ts';
+import { LIMIT_KINDS } from '../physics/material.ts';
+import { ZERO_CELSIUS_K } from '../physics/units.ts';
 import { scenarioLimitDefaults as LIMIT } from './scenario-limits.ts';
 import { compositeSchema, heatPerKgSchema, jouleSchema, pelletSchema, saltMixtureSchema } from './rig-schema.ts';
 
@@ -33,8 +34,6 @@ const property = () =>
       .min(1, { error: 'must have at least one row' }),
   ], { error: 'must be a number > 0 or a table [[T_C, value], ...]' });
 
-export const LIMIT_KINDS = ['melt', 'ignition', 'decomposition', 'softening', 'service'] as const;
-export type LimitKind = (typeof LIMIT_KINDS)[number];
 
 const limitSchema = z.strictObject({
   kind: z.enum(LIMIT_KINDS, { error: `must be one of ${LIMIT_KINDS.join(', ')}` }),

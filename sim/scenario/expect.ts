@@ -7,10 +7,10 @@
  * by a separator that never half-freezes; "molten before 900 s", "half-frozen before", "window at least" and
  * "window at most" are not met by a verdict that has no value (there is nothing to compare).
  */
-import { formatMargin, formatTime } from './format.ts';
+import { formatMargin, formatTime } from '../observe/format.ts';
 import type { ScenarioFile } from './scenario-schema.ts';
-import type { Summary } from './verdict.ts';
-import { noValueWords, verdictTerms, windowStatusWords } from './wording.ts';
+import type { Summary } from '../observe/verdict.ts';
+import { noValueWords, verdictTerms, windowStatusWords } from '../observe/wording.ts';
 
 export type Expectations = NonNullable<ScenarioFile['expect']>;
 

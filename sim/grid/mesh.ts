@@ -4,10 +4,10 @@
  * finer at the layer's two faces (interfaces and exposed faces, where the gradients are steepest) and the size varies
  * smoothly, which keeps the scheme second order. A contact resistance sits on the face between two layers.
  */
-import type { Material } from './material.ts';
-import { enthalpyAt, withEnthalpyOrigin } from './material.ts';
-import type { Problem } from './problem.ts';
-import { METRES_PER_MM } from './units.ts';
+import type { Material } from '../physics/material.ts';
+import { enthalpyAt, withEnthalpyOrigin } from '../physics/material.ts';
+import type { Problem } from '../physics/problem.ts';
+import { METRES_PER_MM } from '../physics/units.ts';
 
 export const meshDefaults = {
   /** Share of cosine spacing in the blend: 0 is uniform; 0.5 makes end cells ~3× thinner than the middle ones at 8 cells. */

@@ -14,11 +14,11 @@
  *   safe_window_s    half_frozen_at_s − heat_off_s, when the separator was fully molten at some time, it half-froze
  *                    within the run, and no layer reached any of its limits; null otherwise (safe_window_status says why).
  */
-import { isHeatInput } from './faces.ts';
-import type { LimitKind } from './scenario-schema.ts';
-import type { Problem } from './problem.ts';
+import { isHeatInput } from '../physics/faces.ts';
+import type { LimitKind } from '../physics/material.ts';
+import type { Problem } from '../physics/problem.ts';
 import type { RunRecord } from './record.ts';
-import { kToC } from './units.ts';
+import { kToC } from '../physics/units.ts';
 
 export interface LayerVerdict {
   readonly peak_C: number;
@@ -51,7 +51,7 @@ export type HeatInput =
   | { readonly kind: 'face'; readonly side: 'bottom' | 'top'; readonly segment: number; readonly next: number | undefined; readonly fromS: number; readonly endS: number }
   | { readonly kind: 'source'; readonly layer: number; readonly interval: number; readonly fromS: number; readonly endS: number };
 
-/** Every heat input of the problem (the rule of `heat_off_s`: faces by sim/faces.ts `isHeatInput`, positive sources). */
+/** Every heat input of the problem (the rule of `heat_off_s`: faces by sim/physics/faces.ts `isHeatInput`, positive sources). */
 export function heatInputs(problem: Problem): HeatInput[] {
   const found: HeatInput[] = [];
   for (const side of ['bottom', 'top'] as const) {

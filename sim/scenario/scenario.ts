@@ -4,19 +4,19 @@
  * clamped or guessed. Material names are looked up in the scenario's own `materials`, then in the bundled library
  * (materials/), by exact name in a map: a name is never read as a path, and `__proto__` is just an unknown name.
  */
-import type { Material } from './material.ts';
+import type { Material } from '../physics/material.ts';
 import { layerHeatSources } from './heat-sources.ts';
 import { inlineMaterial } from './material-kinds.ts';
-import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from './problem.ts';
-import { footprintGeometry } from './problem.ts';
+import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from '../physics/problem.ts';
+import { footprintGeometry } from '../physics/problem.ts';
 import { capErrors, formatPath, formatZodIssue, nearestWord, quote, type FieldError } from './field-errors.ts';
 import { readJsonText } from './json-text.ts';
 import { libraryMaterial, unknownMaterialMessage } from './library.ts';
 import { scenarioLimitDefaults, sizeErrors, workErrors } from './scenario-limits.ts';
 import type { FaceSegmentFile, ScenarioFile } from './scenario-schema.ts';
-import { labelDepths, stackProbes } from './probes.ts';
+import { labelDepths, stackProbes } from '../grid/probes.ts';
 import { scenarioSchema } from './scenario-schema.ts';
-import { cToK, mmToM } from './units.ts';
+import { cToK, mmToM } from '../physics/units.ts';
 
 /** A value as written in the file; a long text is cut (field-errors.ts). */
 const show = (v: unknown): string => (typeof v === 'string' ? quote(v) : JSON.stringify(v));

@@ -1,7 +1,7 @@
 /**
  * The one place numbers become text, for the CLI, the CSV, the HTML report and the browser view. Every number passes
  * through `formatNumber`, which refuses non-finite values: the output shows a dash instead, never "NaN" or
- * "Infinity". A quantity with no value (null) is written as words chosen by the caller (sim/wording.ts), never as a
+ * "Infinity". A quantity with no value (null) is written as words chosen by the caller (sim/observe/wording.ts), never as a
  * number with a unit.
  *
  * Precision (the precision a number deserves, not the solver's):

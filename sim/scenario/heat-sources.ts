@@ -8,7 +8,7 @@
  * The pellet releases its heat evenly in time and space: a burn front that crosses the pellet is not resolved.
  */
 import type { FieldError } from './field-errors.ts';
-import type { Footprint, SourceInterval } from './problem.ts';
+import type { Footprint, SourceInterval } from '../physics/problem.ts';
 import type { HeatPerKgFile, JouleFile, PelletFile } from './rig-schema.ts';
 
 /**

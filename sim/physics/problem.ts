@@ -132,3 +132,12 @@ export function sourceAt(layer: Layer, tS: number): number {
   for (const s of layer.sources) if (s.fromS <= tS && tS < s.toS) sum += s.value;
   return sum;
 }
+
+/** Sorted, unique times in (0, duration] at which a step must end. */
+export function breakpoints(problem: Problem): number[] {
+  const set = new Set<number>([problem.durationS]);
+  for (const seg of [...problem.bottom, ...problem.top]) set.add(seg.fromS);
+  for (const layer of problem.layers) for (const s of layer.sources) { set.add(s.fromS); set.add(s.toS); }
+  for (const t of problem.outputTimesS) set.add(t);
+  return [...set].filter((t) => t > 0 && t <= problem.durationS).sort((a, b) => a - b);
+}

@@ -9,12 +9,12 @@
  * Unknowns (length n+2): U[0] = bottom face temperature (K), U[1..n] = cell enthalpies H (J/m³), U[n+1] = top face
  * temperature (K). Node temperatures T[0..n+1] follow from U through each cell's T(H).
  */
-import type { FaceContext } from './faces.ts';
-import { faceHeatIn } from './faces.ts';
-import type { EnthalpyCurve } from './material.ts';
-import { conductivityWithSlope, sensibleCapacity, temperatureOf } from './material.ts';
+import type { FaceContext } from '../physics/faces.ts';
+import { faceHeatIn } from '../physics/faces.ts';
+import type { EnthalpyCurve } from '../physics/material.ts';
+import { conductivityWithSlope, sensibleCapacity, temperatureOf } from '../physics/material.ts';
 import type { Grid } from './mesh.ts';
-import type { FaceCondition } from './problem.ts';
+import type { FaceCondition } from '../physics/problem.ts';
 
 /** The conditions that hold over one time step (schedules only change on step boundaries). */
 export interface StepConditions {
