@@ -38,11 +38,18 @@ export const evolveDefaults = {
   landShare: 1e-6,
 } as const;
 
+/**
+ * How steps are chosen. Adaptive steps are always TR-BDF2 (its embedded estimate drives the controller); backward Euler
+ * has no error estimate here, so it exists only with a fixed step, for the convergence study. A union, so that no
+ * contradictory combination (backward Euler with adaptive steps) can be written.
+ */
+export type Stepping =
+  | { readonly kind: 'adaptive' }
+  | { readonly kind: 'fixed'; readonly stepS: number; readonly scheme: 'tr-bdf2' | 'backward-euler' };
+
 export interface EvolveOptions {
-  /** Replace the adaptive step by a fixed one (s), still landing on breakpoints: for convergence studies. */
-  readonly fixedStepS?: number;
-  /** One backward-Euler stage per step (first order), for the convergence study. */
-  readonly backwardEuler?: boolean;
+  /** Default adaptive. A fixed step (s) still lands on every breakpoint. */
+  readonly stepping?: Stepping;
 }
 
 /** What each accepted step exposes. Buffers are the loop's own and valid until the generator resumes. */
@@ -98,7 +105,9 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
   const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0 };
   const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
-  const backwardEuler = options.backwardEuler === true;
+  const stepping: Stepping = options.stepping ?? { kind: 'adaptive' };
+  const fixedStepS = stepping.kind === 'fixed' ? stepping.stepS : undefined;
+  const backwardEuler = stepping.kind === 'fixed' && stepping.scheme === 'backward-euler';
   const breaks = breakpoints(problem);
   const source = new Float64Array(grid.n);
 
@@ -131,16 +140,16 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
   yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0 };
 
-  let h = options.fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
+  let h = fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
-  const adaptive = options.fixedStepS === undefined;
+  const adaptive = stepping.kind === 'adaptive';
   const maxSteps = stepGuardDefaults.maxCellSteps / grid.n;
   while (t < durationS) {
     while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
     const target = breaks[nextBreak] ?? durationS;
     const floor = Math.max(floorS, stepGuardDefaults.floorRelative * t);
     const floored = adaptive && h <= floor;
-    let step = Math.min(options.fixedStepS ?? Math.max(h, floor), numerics.maxStepS);
+    let step = Math.min(fixedStepS ?? Math.max(h, floor), numerics.maxStepS);
     let landing = false;
     if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
     else if (adaptive && t + 2 * step > target) step = Math.max(0.5 * (target - t), Math.min(floor, target - t));
