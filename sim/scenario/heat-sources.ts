@@ -5,11 +5,16 @@
  *                 composition: KClO₄ + 4 Fe → KCl + 4 FeO, 1092 kJ per mol of the limiting reactant's share);
  *   Joule heat:   q̇ = I²·R/(A·d) over [from_s, to_s), A the footprint, d the layer's thickness;
  *   per kilogram: q̇ = ρ·p, p in W/kg (a calibration term).
- * The pellet releases its heat evenly in time and space: a burn front that crosses the pellet is not resolved.
+ * The pellet releases its heat evenly in time and space: a burn front that crosses the pellet is not resolved. Given a
+ * burn-front speed v instead of a burn time, the front is taken to cross the layer's thickness d at that constant speed,
+ * so t_burn = d/v; the heat is still released evenly over the whole layer during that time (the layer's volumetric
+ * source is uniform in this 1D model), which keeps the total ρ·q_m·d per unit area and the burn's duration right and
+ * leaves out only where, inside the pellet, the heat appears first.
  */
 import type { FieldError } from './field-errors.ts';
 import type { Footprint, SourceInterval } from '../physics/problem.ts';
 import type { HeatPerKgFile, JouleFile, PelletFile } from './rig-schema.ts';
+import { mmToM, mToMm } from '../physics/units.ts';
 
 /**
  * Fe/KClO₄ chemistry. Heat of KClO₄ + 4 Fe → KCl + 4 FeO from formation enthalpies: KClO₄ −433 kJ/mol (Wikipedia
@@ -48,13 +53,24 @@ export function layerHeatSources(layer: LayerHeatInput, densityKgM3: number, thi
   const out: SourceInterval[] = [];
   const p = layer.pellet;
   if (p) {
-    if ((p.heat_J_g === undefined) === (p.KClO4_fraction === undefined)) {
+    const heatGiven = (p.heat_J_g === undefined) !== (p.KClO4_fraction === undefined);
+    const timeGiven = (p.burn_s === undefined) !== (p.burn_front_mm_s === undefined);
+    if (!heatGiven) {
       errors.push({ path: `${path}.pellet`, message: `give exactly one of heat_J_g and KClO4_fraction, got ${p.heat_J_g === undefined ? 'neither' : 'both'}` });
-    } else {
+    }
+    if (!timeGiven) {
+      errors.push({ path: `${path}.pellet`, message: `give exactly one of burn_s and burn_front_mm_s, got ${p.burn_s === undefined ? 'neither' : 'both'}` });
+    }
+    if (heatGiven && timeGiven) {
       const jPerKg = p.heat_J_g !== undefined ? p.heat_J_g * 1e3 : pelletHeatJPerKg(p.KClO4_fraction!);
       const from = p.from_s ?? 0;
-      if (from + p.burn_s > durationS) errors.push({ path: `${path}.pellet.burn_s`, message: `the burn must end by duration_s (${durationS}): the run ends before it, got from_s + burn_s = ${from + p.burn_s}` });
-      out.push({ fromS: from, toS: from + p.burn_s, value: (densityKgM3 * jPerKg) / p.burn_s });
+      // a front at constant speed crosses the thickness d in d / v
+      const burnS = p.burn_s ?? thicknessM / mmToM(p.burn_front_mm_s!);
+      const key = p.burn_s !== undefined ? 'burn_s' : 'burn_front_mm_s';
+      if (from + burnS > durationS) {
+        errors.push({ path: `${path}.pellet.${key}`, message: `the burn must end by duration_s (${durationS}): the run ends before it, got from_s + burn time = ${from + burnS}${key === 'burn_front_mm_s' ? ` (thickness ${mToMm(thicknessM)} mm / ${p.burn_front_mm_s} mm/s)` : ''}` });
+      }
+      out.push({ fromS: from, toS: from + burnS, value: (densityKgM3 * jPerKg) / burnS });
     }
   }
   const j = layer.joule;

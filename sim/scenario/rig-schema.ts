@@ -36,7 +36,12 @@ export const pelletSchema = z.strictObject({
   KClO4_fraction: fraction().optional(),
   /** Ignition time (default 0) and burn time: the heat is released evenly over [from_s, from_s + burn_s). */
   from_s: timeS().optional(),
-  burn_s: positive(),
+  burn_s: positive().optional(),
+  /**
+   * Or the burn-front speed, mm/s, in place of burn_s: the front crosses the layer's thickness at this constant speed,
+   * so the burn time is thickness / speed (heat-sources.ts); give exactly one of the two.
+   */
+  burn_front_mm_s: positive().optional(),
 });
 
 /** Joule heat I²R released evenly in the layer's volume (footprint × thickness) over [from_s, to_s). */

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { pelletHeatJPerKg } from '../../sim/scenario/heat-sources.ts';
 import { assertClose } from '../support/assert-close.ts';
-import { parseOk, PLAIN, runOk, scenario } from '../support/scenarios.ts';
+import { parseOk, PLAIN, probeAt, runOk, scenario } from '../support/scenarios.ts';
 
 // Tolerance on ledger totals: sources are integrated exactly over intervals the steps land on, so only round-off
 // remains; 1e-9 relative.
@@ -39,6 +39,31 @@ describe('layer heat sources', () => {
     assertClose(out.record.energy.sourceJ, 2000 * 0.002 * pelletHeatJPerKg(0.16), LEDGER, 'source energy, J/m²');
   });
 
+  it('parseScenario() turns a burn-front speed into the burn time thickness / speed: 2 mm at 0.5 mm/s burns from 1 s to 5 s', () => {
+    // hand computation: t_burn = d / v = 2 mm / 0.5 mm/s = 4 s, q̇ = ρ·q_m / t_burn = 2000 kg/m³ × 1e5 J/kg / 4 s
+    const problem = parseOk(oneLayer({ pellet: { heat_J_g: 100, from_s: 1, burn_front_mm_s: 0.5 } }));
+    const sources = problem.layers[0]!.sources;
+    expect(sources).toHaveLength(1);
+    // the interval ends are sums of a few exactly representable numbers: round-off only
+    assertClose(sources[0]!.fromS, 1, { rel: 1e-15 }, 'burn start, s');
+    assertClose(sources[0]!.toS, 5, { rel: 1e-15 }, 'burn end, s');
+    assertClose(sources[0]!.value, (2000 * 1e5) / 4, { rel: 1e-15 }, 'source, W/m³');
+  });
+
+  it('runProblem() books a pellet given by its burn-front speed as ρ·d·q_m, and the adiabatic layer warms linearly over d / v', () => {
+    // closed form for an adiabatic slab with a uniform source: T rises by q_m/c_p = 1e5 J/kg / 1000 J/(kg·K) = 100 K,
+    // linearly over the burn [1 s, 5 s] — half of it (50 K) at 3 s
+    const out = runOk(oneLayer({ pellet: { heat_J_g: 100, from_s: 1, burn_front_mm_s: 0.5 } },
+      { output: { times_s: [3, 5, 20], probes_mm: [1] } }));
+    assertClose(out.record.energy.sourceJ, 2000 * 0.002 * 1e5, LEDGER, 'source energy, J/m²');
+    // uniform source, adiabatic faces: the temperature stays uniform, so only the step's quadrature error remains and
+    // TR-BDF2 integrates a piecewise-constant source exactly on steps that land on its ends; 1e-6 K of 100 K for round-off
+    // in the enthalpy inversion
+    assertClose(probeAt(out.record, 1, 3), 20 + 50, { abs: 1e-6 }, 'temperature mid-burn, °C');
+    assertClose(probeAt(out.record, 1, 5), 20 + 100, { abs: 1e-6 }, 'temperature at the end of the burn, °C');
+    assertClose(probeAt(out.record, 1, 20), 20 + 100, { abs: 1e-6 }, 'temperature after the burn, °C');
+  });
+
   it('runProblem() books Joule heat I²R·t over the footprint: (2 A)²·0.5 Ω·5 s / 1e-4 m² = 1e5 J/m²', () => {
     const out = runOk(oneLayer({ joule: { current_A: 2, resistance_ohm: 0.5, from_s: 2, to_s: 7 } }));
     assertClose(out.record.energy.sourceJ, (4 * 0.5 * 5) / 1e-4, LEDGER, 'source energy, J/m²');
@@ -52,6 +77,11 @@ describe('layer heat sources', () => {
   it('parseScenario() refuses a pellet with both or neither of heat_J_g and KClO4_fraction, and Joule heat without a footprint', () => {
     expect(() => parseOk(oneLayer({ pellet: { burn_s: 2 } }))).toThrow(/layers\[0\]\.pellet: give exactly one of heat_J_g and KClO4_fraction, got neither/);
     expect(() => parseOk(oneLayer({ pellet: { burn_s: 2, heat_J_g: 1, KClO4_fraction: 0.1 } }))).toThrow(/got both/);
+    expect(() => parseOk(oneLayer({ pellet: { heat_J_g: 1 } }))).toThrow(/layers\[0\]\.pellet: give exactly one of burn_s and burn_front_mm_s, got neither/);
+    expect(() => parseOk(oneLayer({ pellet: { heat_J_g: 1, burn_s: 2, burn_front_mm_s: 1 } }))).toThrow(/burn_s and burn_front_mm_s, got both/);
+    expect(() => parseOk(oneLayer({ pellet: { heat_J_g: 1, burn_front_mm_s: 0 } }))).toThrow(/layers\[0\]\.pellet\.burn_front_mm_s: must be > 0/);
+    // 2 mm at 0.05 mm/s burns for 40 s, past the 20 s run
+    expect(() => parseOk(oneLayer({ pellet: { heat_J_g: 1, burn_front_mm_s: 0.05 } }))).toThrow(/layers\[0\]\.pellet\.burn_front_mm_s: the burn must end by duration_s \(20\).*thickness 2 mm \/ 0\.05 mm\/s/);
     const noFootprint = { ...oneLayer({ joule: { current_A: 1, resistance_ohm: 1, from_s: 0, to_s: 1 } }) } as Record<string, unknown>;
     delete noFootprint.footprint;
     // a burn past the end of the run would leave heat out of the run silently: refused (duration 20 s)
