@@ -55,14 +55,28 @@ export const verdictTerms = {
   },
 } as const satisfies Record<string, Term>;
 
-/** What each usable-window status means: a short label for a table cell and a sentence for a reader. */
-export const windowStatusWords: Readonly<Record<WindowStatus, { readonly label: string; readonly sentence: string }>> = {
-  'ok': { label: 'ok', sentence: 'From heat off to separator half-frozen, with no limit reached.' },
-  'limit-crossed': { label: 'none: limit reached', sentence: 'No usable window: a layer reached one of its limits.' },
-  'never-molten': { label: 'none: never fully molten', sentence: 'No usable window: the separator never became fully molten.' },
-  'no-separator': { label: 'none: no separator', sentence: 'No usable window: no layer is marked as the separator.' },
-  'heat-never-off': { label: 'not known: heat never off', sentence: 'Not known: the heat stays on to the end of the run.' },
-  'still-molten-at-end': { label: 'at least to the end', sentence: 'At least until the end of the run: the separator had not half-frozen; lengthen the duration to measure it.' },
+/**
+ * What each usable-window status means: a short label for a table cell, a sentence for a reader, and `at`, the same
+ * fact as a clause about one run of a study (sim/study/window.ts), where `run` names that run ("this hold",
+ * "this plate temperature"): "usable window after heat off at 14:20 min:s: none — <clause>".
+ */
+export const windowStatusWords: Readonly<Record<WindowStatus, {
+  readonly label: string;
+  readonly sentence: string;
+  readonly at: (run: string) => string;
+}>> = {
+  'ok': { label: 'ok', sentence: 'From heat off to separator half-frozen, with no limit reached.',
+    at: (run) => `usable from heat off to separator half-frozen at ${run}, with no limit reached` },
+  'limit-crossed': { label: 'none: limit reached', sentence: 'No usable window: a layer reached one of its limits.',
+    at: (run) => `a layer reaches one of its limits at ${run}` },
+  'never-molten': { label: 'none: never fully molten', sentence: 'No usable window: the separator never became fully molten.',
+    at: (run) => `the separator is not fully molten at ${run}` },
+  'no-separator': { label: 'none: no separator', sentence: 'No usable window: no layer is marked as the separator.',
+    at: () => 'no layer is marked as the separator' },
+  'heat-never-off': { label: 'not known: heat never off', sentence: 'Not known: the heat stays on to the end of the run.',
+    at: (run) => `the heat stays on to the end of the run at ${run}` },
+  'still-molten-at-end': { label: 'at least to the end', sentence: 'At least until the end of the run: the separator had not half-frozen; lengthen the duration to measure it.',
+    at: () => 'the separator is still at least half molten at the end of the run' },
 };
 
 /** Words for a verdict that has no value (null in the result document). */

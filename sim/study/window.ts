@@ -17,6 +17,7 @@ import type { Problem } from '../physics/problem.ts';
 import type { WindowStatus } from '../observe/verdict.ts';
 import { crossings, intervals, scanValues, type Interval, type Sample } from './bracket.ts';
 import { holdKnob, powerKnob, type Knob, type Vary } from './knob.ts';
+import { windowStatusWords } from '../observe/wording.ts';
 import { showValue } from './words.ts';
 import { evaluatePoint, keepsMargin, type Binding, type WindowPoint } from './point.ts';
 
@@ -88,11 +89,14 @@ export interface WindowReport {
 
 export type WindowResult = { readonly ok: true; readonly report: WindowReport } | { readonly ok: false; readonly reason: string };
 
-const NOT_MOLTEN: Partial<Record<WindowStatus, string>> = {
-  'no-separator': 'no layer is marked as the separator',
-  'never-molten': 'the separator is not fully molten at this hold',
-  'still-molten-at-end': 'the separator is still at least half molten at the end of the run',
-};
+/**
+ * The status that explains why a run has no usable window. A window is measured whatever the margins (the search
+ * judges those), so a run whose status is 'limit-crossed' is explained by the separator's own events instead.
+ */
+function missingWindow(p: WindowPoint): WindowStatus {
+  if (p.status !== 'ok' && p.status !== 'limit-crossed') return p.status;
+  return p.molten_at_s === null ? 'never-molten' : p.heat_off_s === null ? 'heat-never-off' : 'still-molten-at-end';
+}
 
 export function searchWindow(problem: Problem, options: WindowOptions = {}): WindowResult {
   const knob = options.vary === 'power' ? powerKnob(problem) : holdKnob(problem);
@@ -137,7 +141,8 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
   let noLimit: NoLimit | null = null;
   let longestReason: string | null = null;
   const lastSafe = safe[safe.length - 1];
-  if (scan.every((p) => p.margin_K === null)) {
+  const noLimits = scan.every((p) => p.margin_K === null);
+  if (noLimits) {
     longestReason = 'no layer has a limit on file, so none limits the hold';
   } else if (!lastSafe) {
     const b = first.binding!;
@@ -157,15 +162,16 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
   const firstMolten = molten[0];
   const sepId = first.separator;
   const shortest = firstMolten && sepId !== null ? { value: firstMolten.from, layer: sepId, molten_at_s: pointAt(firstMolten.from).molten_at_s } : null;
-  const shortestReason = shortest ? null : sepId === null ? 'no layer is marked as the separator'
+  const run = knob.vary === 'time' ? 'this hold' : `this ${knob.label}`;
+  const shortestReason = shortest ? null : sepId === null ? windowStatusWords['no-separator'].at(run)
     : `the separator does not become fully molten for any value up to ${show(knob.hi)}`;
 
   let window: WindowAt | null = null;
-  const chosen: WindowAt['chosen'] | null = at !== undefined ? 'given' : longest ? 'longest' : lastSafe || longestReason?.startsWith('no layer') ? 'own' : null;
+  const chosen: WindowAt['chosen'] | null = at !== undefined ? 'given' : longest ? 'longest' : lastSafe || noLimits ? 'own' : null;
   if (chosen !== null) {
     const value = at ?? longest?.value ?? knob.own;
     const point = pointAt(value);
-    const why = point.window_s !== null ? null : NOT_MOLTEN[point.status] ?? (point.molten_at_s === null ? NOT_MOLTEN['never-molten']! : 'the separator does not half-freeze within the run');
+    const why = point.window_s !== null ? null : windowStatusWords[missingWindow(point)].at(run);
     window = { value, chosen, point, safe: keepsMargin(point, required), reason: why };
   }
 

@@ -55,7 +55,7 @@ export function windowWords(r: WindowReport): WindowWords {
     binding = `none binds; closest: ${n.layer} (${n.kind}), ${formatMargin(n.margin_K, '—')} margin`;
   } else {
     longest = `${most}: none — ${r.longest_reason ?? 'no value keeps the margin'}`;
-    binding = r.longest_reason?.startsWith('no layer') ? 'none: no layer has a limit on file' : 'none: no value keeps the margin';
+    binding = r.points.every((p) => p.margin_K === null) ? 'none: no layer has a limit on file' : 'none: no value keeps the margin';
   }
   const shortest = r.shortest
     ? `${least} ${showValue(r, r.shortest.value)} for a fully molten separator (${r.shortest.layer} molten at ${formatTime(r.shortest.molten_at_s, 'never')})`
