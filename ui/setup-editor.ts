@@ -48,7 +48,7 @@ export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEd
     store.setField(path, parseNumberInput(heatOff.value), { source: heatOff });
   });
   const refresh = (): void => {
-    const j = heaterOffRow(store.get('bottom'));
+    const j = heaterOffRow(store.current());
     if (j === undefined) {
       heatOff.removeAttribute('data-path');
       heatOff.disabled = true;

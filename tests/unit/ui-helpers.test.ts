@@ -1,6 +1,6 @@
 // The browser view's pure helpers, where a slip would break a promise of the view: numbers never shown as NaN, a
 // field error finds its input, the share link round-trips any text, and the view's "heater removed at" control
-// agrees with the solver's own definition of heat-off (the view reads drafts, so it keeps its own copy of the rule).
+// agrees with the solver's own definition of heat-off (the view reads the draft through the core's rule, ui/heat-off.ts).
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { formatPath as simFormatPath } from '../../sim/scenario/field-errors.ts';
@@ -18,7 +18,7 @@ import { formatDefaults } from '../../sim/observe/format.ts';
 import type { Summary } from '../../sim/observe/verdict.ts';
 import fc from 'fast-check';
 import { assertClose } from '../support/assert-close.ts';
-import type { Json, JsonObject } from '../../ui/json.ts';
+import type { JsonObject } from '../../ui/json.ts';
 import { getAt, parsePath, setAt } from '../../ui/paths.ts';
 
 describe('ui/format', () => {
@@ -74,10 +74,31 @@ describe('ui/heat-off', () => {
     const json = JSON.parse(readFileSync(new URL(file, dir), 'utf8')) as JsonObject;
     const parsed = parseScenario(json);
     if (!parsed.ok) throw new Error('example invalid');
-    const row = heaterOffRow(json.bottom as Json);
+    const row = heaterOffRow(json);
     expect(row).toBeDefined();
     const rows = json.bottom as JsonObject[];
     expect(rows[row!]!.from_s).toBe(heatOffTime(parsed.problem));
+  });
+
+  it('heaterOffRow() still finds the row in a draft refused elsewhere (a thickness typed as text)', () => {
+    const draft = JSON.parse(readFileSync(new URL('bench-coupon.json', dir), 'utf8')) as JsonObject;
+    ((draft.layers as JsonObject[])[0]!).thickness_mm = 'abc';
+    expect(parseScenario(draft).ok).toBe(false);
+    const rows = draft.bottom as JsonObject[];
+    // the example heats from the bottom with a plate, then rests in air (its own description)
+    expect(rows[0]!.plate).toBeDefined();
+    expect(heaterOffRow(draft)).toBe(1);
+  });
+
+  it('heaterOffRow() counts heater power and flux as one net flux, as the solver does', () => {
+    // 0.1 W over a 25 mm disc is 0.1 / (π·0.025²/4) = 203.7 W/m² (plane geometry), less than the 1000 W/m² drawn off:
+    // the row is a net loss, so the heating ends at the row before it
+    const draft = JSON.parse(readFileSync(new URL('bench-coupon.json', dir), 'utf8')) as JsonObject;
+    draft.footprint = { diameter_mm: 25 };
+    draft.bottom = [{ from_s: 0, power_W: 5 }, { from_s: 100, power_W: 0.1, flux_W_m2: -1000 }, { from_s: 200, emissivity: 0.3 }];
+    expect(heaterOffRow(draft)).toBe(1);
+    (draft.bottom[1] as JsonObject).flux_W_m2 = -100;
+    expect(heaterOffRow(draft)).toBe(2);
   });
 });
 
