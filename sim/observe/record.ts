@@ -15,6 +15,7 @@ import { liquidFractionOf } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
 import { filmTemperature, naturalConvectionRanges, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
 import { characteristicLengthM, type FaceCondition, type Problem } from '../physics/problem.ts';
+import { hasEdgeTerms } from '../physics/heat-terms.ts';
 import type { SeparatorTrace } from './record-trace.ts';
 import { createTraceRecorder } from './record-trace.ts';
 import { RowStore } from './row-store.ts';
@@ -54,6 +55,9 @@ export interface EnergyLedger {
   readonly topInJ: number;
   readonly topOutJ: number;
   readonly sourceJ: number;
+  /** Heat in and out through the side walls, J/m², split by sign of each step's exchange; absent without edge losses. */
+  readonly edgeInJ?: number;
+  readonly edgeOutJ?: number;
   /** Change of stored enthalpy (sensible + latent), J/m². */
   readonly storedJ: number;
 }
@@ -116,6 +120,8 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
   const probeT: number[][] = probeX.map(() => []);
   const probeTimesSeen: number[] = [];
   const energy = { bottomInJ: 0, bottomOutJ: 0, topInJ: 0, topOutJ: 0, sourceJ: 0 };
+  const edges = hasEdgeTerms(problem.layers.map((l) => l.terms));
+  const edgeEnergy = { edgeInJ: 0, edgeOutJ: 0 };
   let storedStart = 0;
   let storedEnd = 0;
   const rayleighSeen: Record<'bottom' | 'top', RangeTracker> = {
@@ -209,6 +215,8 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
       energy.topInJ += Math.max(step.topJ, 0);
       energy.topOutJ += Math.max(-step.topJ, 0);
       energy.sourceJ += step.sourceJ;
+      edgeEnergy.edgeInJ += Math.max(step.edgeJ, 0);
+      edgeEnergy.edgeOutJ += Math.max(-step.edgeJ, 0);
       trace?.add(buf.Ug, step.tg);
       trace?.add(buf.U1, step.t1);
     }
@@ -268,7 +276,7 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
       map: ndarray(map, [full ? kept.rows : 0, nodes]),
       separator: separator?.trace,
       probes: { xMm: probeX, tS: probeTimesSeen, tC: probeT },
-      energy: { ...energy, storedJ: storedEnd - storedStart },
+      energy: { ...energy, ...(edges ? edgeEnergy : {}), storedJ: storedEnd - storedStart },
       warnings,
     };
   }

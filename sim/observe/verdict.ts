@@ -39,7 +39,11 @@ export interface Summary {
   readonly safe_window_status: WindowStatus;
   /** The layer with the smallest margin, if any layer has a limit. */
   readonly binding_layer: string | null;
-  readonly energy: { readonly in_J_m2: number; readonly out_J_m2: number; readonly stored_J_m2: number; readonly imbalance_rel: number };
+  readonly energy: {
+    readonly in_J_m2: number; readonly out_J_m2: number; readonly stored_J_m2: number; readonly imbalance_rel: number;
+    /** Heat in and out through the side walls (edge losses; present only when the scenario has them), J/m². */
+    readonly edge_in_J_m2?: number; readonly edge_out_J_m2?: number;
+  };
 }
 
 /**
@@ -161,8 +165,11 @@ export function summarize(problem: Problem, record: RunRecord): Summary {
     : half === null ? 'still-molten-at-end'
     : 'ok';
   const e = record.energy;
-  const inJ = e.bottomInJ + e.topInJ + Math.max(e.sourceJ, 0);
-  const outJ = e.bottomOutJ + e.topOutJ + Math.max(-e.sourceJ, 0);
+  const edgeIn = e.edgeInJ ?? 0;
+  const edgeOut = e.edgeOutJ ?? 0;
+  const inJ = e.bottomInJ + e.topInJ + Math.max(e.sourceJ, 0) + edgeIn;
+  const outJ = e.bottomOutJ + e.topOutJ + Math.max(-e.sourceJ, 0) + edgeOut;
+  const edges = e.edgeInJ === undefined ? {} : { edge_in_J_m2: edgeIn, edge_out_J_m2: edgeOut };
   const scale = Math.max(inJ, outJ, Math.abs(e.storedJ), Number.MIN_VALUE);
   return {
     heat_off_s: heatOff,
@@ -171,6 +178,6 @@ export function summarize(problem: Problem, record: RunRecord): Summary {
     safe_window_s: status === 'ok' && half !== null && heatOff !== null ? half - heatOff : null,
     safe_window_status: status,
     binding_layer: binding,
-    energy: { in_J_m2: inJ, out_J_m2: outJ, stored_J_m2: e.storedJ, imbalance_rel: Math.abs(e.storedJ - (inJ - outJ)) / scale },
+    energy: { in_J_m2: inJ, out_J_m2: outJ, stored_J_m2: e.storedJ, imbalance_rel: Math.abs(e.storedJ - (inJ - outJ)) / scale, ...edges },
   };
 }

@@ -11,6 +11,7 @@ import { LIMIT_KINDS } from '../physics/material.ts';
 import { ZERO_CELSIUS_K } from '../physics/units.ts';
 import { scenarioLimitDefaults as LIMIT } from './scenario-limits.ts';
 import { compositeSchema, heatPerKgSchema, jouleSchema, pelletSchema, saltMixtureSchema } from './rig-schema.ts';
+import { edgesSchema } from './edge-schema.ts';
 
 /** The coldest temperature a °C field may hold: absolute zero. */
 const ABSOLUTE_ZERO_C = -ZERO_CELSIUS_K;
@@ -156,6 +157,8 @@ export const scenarioSchema = z.strictObject({
   materials: z.record(z.string(), materialEntrySchema).optional(),
   layers: z.array(layerSchema).min(1, { error: 'must hold at least one layer' }),
   contacts: z.array(contactSchema).optional(),
+  /** Heat lost through the side walls (an addition to the contract; edge-schema.ts). Off without it. */
+  edges: edgesSchema.optional(),
   bottom: z.array(faceSegmentSchema),
   top: z.array(faceSegmentSchema),
   output: z.strictObject({

@@ -6,6 +6,7 @@
  */
 import type { Material } from '../physics/material.ts';
 import { layerHeatSources } from './heat-sources.ts';
+import { edgeTerms } from './edge-terms.ts';
 import { inlineMaterial } from './material-kinds.ts';
 import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from '../physics/problem.ts';
 import { footprintGeometry } from '../physics/problem.ts';
@@ -249,6 +250,7 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
   const layers = buildLayers(s, materials, errors);
   const contacts = contactResistances(s, errors);
   const footprint = footprintOf(s.footprint);
+  const edge = edgeTerms(s, materials, errors);
   const bottom = faceSchedule(s.bottom, 'bottom', s, footprint, errors);
   const top = faceSchedule(s.top, 'top', s, footprint, errors);
   const totalMm = s.layers.reduce((a, l) => a + l.thickness_mm, 0);
@@ -269,7 +271,7 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
     initialK: cToK(s.initial_C ?? s.ambient_C),
     durationS: s.duration_s,
     footprint,
-    layers,
+    layers: edge.length > 0 ? layers.map((l) => ({ ...l, terms: edge })) : layers,
     contactResistances: contacts,
     bottom,
     top,

@@ -5,7 +5,7 @@
  * every breakpoint: schedule changes of the faces and sources, requested output times and the end of the run.
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
-import { createWorkspace, updateCapacity } from '../grid/discretization.ts';
+import { CHANNEL, createWorkspace, updateCapacity } from '../grid/discretization.ts';
 import { enthalpyAt } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
@@ -64,6 +64,8 @@ export interface StepReport {
   readonly bottomJ: number;
   readonly topJ: number;
   readonly sourceJ: number;
+  /** Heat into the cells through their edges over the step (negative: lost), J/m²; 0 without edge terms. */
+  readonly edgeJ: number;
 }
 
 export interface EvolveStats {
@@ -99,7 +101,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const { numerics, durationS } = problem;
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
-  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM });
+  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM }, problem.layers.map((l) => l.terms));
   const buf = createStepBuffers(grid.n);
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
@@ -138,7 +140,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   if (!settle()) return unsettled(0);
   // report the initial state as a step of zero length
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
-  yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0 };
+  yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0, edgeJ: 0 };
 
   let h = fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
@@ -189,13 +191,13 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q1, at), tS: at, stats };
     }
     stats.steps++;
-    let sourceJ = 0;
-    for (let i = 0; i < grid.n; i++) sourceJ += step * source[i]! * grid.dx[i]!;
     yield {
       t0: t, tg: t + (backwardEuler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
       bottomJ: stepFaceEnergy(buf, 0, step, backwardEuler),
       topJ: stepFaceEnergy(buf, 1, step, backwardEuler),
-      sourceJ,
+      // heat generated and heat through the edges by the stages' own quadrature (exact also for s(T): tr-bdf2.ts)
+      sourceJ: stepFaceEnergy(buf, CHANNEL.generated, step, backwardEuler),
+      edgeJ: stepFaceEnergy(buf, CHANNEL.edge, step, backwardEuler),
     };
     // accept: the end state becomes the start of the next step
     buf.U0.set(buf.U1);

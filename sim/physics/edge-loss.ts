@@ -1,0 +1,135 @@
+/**
+ * Heat lost through the side walls of a 1D stack, as a volumetric term in each cell (a fin-like side loss):
+ *   q_edge = −(P/A)·q_side(T)   W/m³,
+ * with P/A the footprint's perimeter over its area and q_side the heat leaving one square metre of the stack's side
+ * wall at the cell's temperature T. The wall is taken at the cell's temperature (the 1D assumption: no radial
+ * gradient inside the stack; the later r–z model will check that). The bare side loses
+ *   q_side = h_c(T)·(T − T∞) + ε·σ·(T⁴ − T∞⁴)
+ * (grey surface in large isothermal surroundings, Incropera eq. 1.7; the radiative part is h_r·(T − T∞) with
+ * h_r = εσ(T² + T∞²)(T + T∞), the usual linearised coefficient, exactly), h_c from Churchill & Chu for a vertical
+ * plate as tall as the whole stack (vertical-plate.ts), or a fixed coefficient. Air and surroundings are at ambient.
+ *
+ * An insulation sleeve of thickness t and conductivity k is a steady series resistance (its heat capacity is left
+ * out). Per square metre of the stack's side wall it is
+ *   disc of radius r₁ (r₂ = r₁ + t): R = r₁·ln(r₂/r₁)/k, the cylindrical-shell resistance ln(r₂/r₁)/(2πk) per metre of
+ *                                   height (Incropera eq. 3.28) times the inner perimeter 2πr₁; outer/inner area r₂/r₁;
+ *   rectangle: R = t/k, a plane wall (eq. 3.6); outer/inner area (P + 8t)/P (corners square, their 2D spreading
+ *              left out — it would add conductance near the corners).
+ * The sleeve's outer surface T_s balances conduction through it against its own loss:
+ *   (T − T_s)/R = (A_out/A_in)·q_side(T_s),   solved by safeguarded Newton;  dq/dT = g/(1 + R·g),  g = (A_out/A_in)·q_side'(T_s)
+ * (conductances in series). k is read at the sleeve's mean temperature (T + T_s)/2; its slope is left out of the
+ * derivative (it changes Newton's rate, not the answer).
+ */
+import type { Table } from './table.ts';
+import { evalTable } from './table.ts';
+import type { FootprintMm } from './problem.ts';
+import { mmToM } from './units.ts';
+import { STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
+import { verticalPlateLoss } from './vertical-plate.ts';
+
+export const edgeLossDefaults = {
+  /** Sleeve surface temperature converged to this, K: far below any tolerance of the run, far above round-off. */
+  surfaceToleranceK: 1e-9,
+  /** Newton iterations for the sleeve surface; it converges in 3–6 (monotone balance), bisection steps guard it. */
+  maxSurfaceIterations: 60,
+} as const;
+
+export type SideConvection = { readonly kind: 'natural' } | { readonly kind: 'fixed'; /** W·m⁻²·K⁻¹ */ readonly coefficient: number };
+
+export interface Sleeve {
+  /** Sleeve conductivity against temperature, W·m⁻¹·K⁻¹. */
+  readonly conductivity: Table;
+  /** Resistance per square metre of side wall times k, m (so R = resistanceTimesK / k, m²·K/W). */
+  readonly resistanceTimesK: number;
+  /** Outer over inner side area (≥ 1). */
+  readonly areaRatio: number;
+}
+
+export interface EdgeLoss {
+  /** Footprint perimeter over area, 1/m. */
+  readonly perimeterPerArea: number;
+  /** Height of the side wall as a vertical plate (the whole stack), m. */
+  readonly heightM: number;
+  readonly convection: SideConvection;
+  /** Emissivity of the side surface (the sleeve's outer surface when there is one). */
+  readonly emissivity: number;
+  /** Air and surroundings, K. */
+  readonly ambientK: number;
+  readonly sleeve: Sleeve | undefined;
+}
+
+/** The sleeve's geometry on a footprint given in mm (see the header): R·k per square metre of side wall and the area ratio. */
+export function sleeveGeometry(footprint: FootprintMm, thicknessM: number): { resistanceTimesK: number; areaRatio: number } {
+  if ('diameter_mm' in footprint) {
+    const r1 = mmToM(footprint.diameter_mm) / 2;
+    const r2 = r1 + thicknessM;
+    return { resistanceTimesK: r1 * Math.log(r2 / r1), areaRatio: r2 / r1 };
+  }
+  const perimeter = 2 * (mmToM(footprint.width_mm) + mmToM(footprint.length_mm));
+  return { resistanceTimesK: thicknessM, areaRatio: (perimeter + 8 * thicknessM) / perimeter };
+}
+
+const inner = new Float64Array(1);
+
+/** Heat leaving a bare side surface at tK, W/m² (convection + radiation), with its slope in out[0]. */
+function surfaceLoss(loss: EdgeLoss, tK: number, out: Float64Array): number {
+  let q = 0;
+  let dq = 0;
+  const c = loss.convection;
+  if (c.kind === 'fixed') {
+    q = c.coefficient * (tK - loss.ambientK);
+    dq = c.coefficient;
+  } else {
+    q = verticalPlateLoss(tK, loss.ambientK, loss.heightM, inner);
+    dq = inner[0]!;
+  }
+  if (loss.emissivity > 0) {
+    const es = loss.emissivity * STEFAN_BOLTZMANN_W_M2K4;
+    const t2 = tK * tK;
+    const a2 = loss.ambientK * loss.ambientK;
+    q += es * (t2 * t2 - a2 * a2);
+    dq += 4 * es * t2 * tK;
+  }
+  out[0] = dq;
+  return q;
+}
+
+const surface = new Float64Array(1);
+
+/**
+ * Heat leaving one square metre of side wall whose inside is at tK, W/m², with dq/dT (W·m⁻²·K⁻¹) in out[0]: the
+ * bare surface, or through the sleeve to its outer surface. Overwrites out[0]; allocates nothing.
+ */
+export function sideLoss(loss: EdgeLoss, tK: number, out: Float64Array): number {
+  const sleeve = loss.sleeve;
+  if (!sleeve) return surfaceLoss(loss, tK, out);
+  const { areaRatio, resistanceTimesK } = sleeve;
+  const ambient = loss.ambientK;
+  // the surface lies between the inside and the ambient: a bracket for the safeguarded Newton
+  let lo = Math.min(tK, ambient);
+  let hi = Math.max(tK, ambient);
+  let ts = 0.5 * (tK + ambient);
+  let r = 0;
+  let g = 0;
+  for (let it = 0; it < edgeLossDefaults.maxSurfaceIterations; it++) {
+    r = resistanceTimesK / evalTable(sleeve.conductivity, 0.5 * (tK + ts));
+    const phi = areaRatio * surfaceLoss(loss, ts, surface);
+    g = areaRatio * surface[0]!;
+    const f = (tK - ts) / r - phi; // decreasing in ts
+    if (f > 0) lo = ts; else hi = ts;
+    let next = ts + f / (1 / r + g);
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    const moved = Math.abs(next - ts);
+    ts = next;
+    if (moved <= edgeLossDefaults.surfaceToleranceK) break;
+  }
+  out[0] = g / (1 + r * g);
+  return (tK - ts) / r;
+}
+
+/** The edge term of a cell at tK: heat into the cell, W/m³ (negative: lost), with its slope in out[0] (W·m⁻³·K⁻¹). */
+export function edgeHeatIn(loss: EdgeLoss, tK: number, out: Float64Array): number {
+  const q = sideLoss(loss, tK, out);
+  out[0] = -loss.perimeterPerArea * out[0]!;
+  return -loss.perimeterPerArea * q;
+}
