@@ -44,9 +44,9 @@ export function faceHeatIn(c: Terms, ctx: FaceContext, tK: number, out: Float64A
 }
 
 /**
- * Whether a face condition counts as a heat input for `heat_off_s`: a held plate, a positive imposed flux, or a face
- * held at a fixed temperature (a plate of unbounded conductance).
+ * Whether a face condition counts as a heat input for `heat_off_s`: a held plate, a positive imposed flux, a face
+ * held at a fixed temperature (a plate of unbounded conductance), or a heater body (until it is lifted off).
  */
 export function isHeatInput(c: FaceCondition): boolean {
-  return c.kind === 'fixed' || c.plate !== undefined || c.fluxWPerM2 > 0;
+  return c.kind === 'fixed' || c.kind === 'heater' || c.plate !== undefined || c.fluxWPerM2 > 0;
 }

@@ -2,7 +2,7 @@
  * The problem as the solver sees it: a validated scenario converted to SI (m, s, K, W). Plain readonly data; built
  * only by scenario.ts. Face conditions are discriminated unions, so a held face can carry no other term.
  */
-import type { CellHeatTerm } from './heat-terms.ts';
+import type { Heater } from './heater.ts';
 import type { Material } from './material.ts';
 import { mmToM } from './units.ts';
 
@@ -29,7 +29,9 @@ export type FaceCondition =
       readonly emissivity: number;
       readonly surroundingsK: number;
       readonly plate: Plate | undefined;
-    };
+    }
+  /** The face on a heater plate with its own thermal mass and control (heater.ts); the face takes no other term. */
+  | { readonly kind: 'heater'; readonly heater: Heater };
 
 export interface FaceSegment {
   readonly fromS: number;
@@ -53,8 +55,6 @@ export interface Layer {
   readonly separator: boolean;
   readonly sources: readonly SourceInterval[];
   readonly cells: number | undefined;
-  /** Temperature-dependent volumetric terms in every cell of the layer (heat-terms.ts); none when absent. */
-  readonly terms?: readonly CellHeatTerm[];
 }
 
 export interface Footprint {

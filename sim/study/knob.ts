@@ -27,7 +27,7 @@ export interface Knob {
   /** In words, for a reader: "heater hold", "plate temperature". */
   readonly label: string;
   /** Unit of the values as shown (°C for temperatures, held in K inside). */
-  readonly unit: 's' | '°C' | 'W/m²' | 'W/m³';
+  readonly unit: 's' | '°C' | 'W' | 'W/m²' | 'W/m³';
   /** Range and the scenario's own value, SI (s, K, W/m², W/m³). */
   readonly lo: number;
   readonly hi: number;
@@ -133,6 +133,12 @@ export function powerKnob(problem: Problem): Knob | string {
     const { lo, hi } = tempRange(c.tK);
     return { vary: 'power', path: `${base}.fixed_C`, label: 'held face temperature', unit: '°C', lo, hi, own: c.tK, show: kToC,
       apply: checked(lo, hi, (tK) => set({ kind: 'fixed', tK })) };
+  }
+  if (c.kind === 'heater') {
+    const heater = c.heater;
+    const hi = heater.powerW * powerDefaults.stretch;
+    return { vary: 'power', path: `${base}.heater.power_W`, label: 'heater power', unit: 'W', lo: 0, hi, own: heater.powerW, show: (v) => v,
+      apply: checked(0, hi, (powerW) => set({ kind: 'heater', heater: { ...heater, powerW, powerWPerM2: powerW / heater.areaM2 } })) };
   }
   if (c.plate) {
     const plate = c.plate;

@@ -3,15 +3,21 @@
  * decides where output goes). Steps are chosen by the local error estimate of TR-BDF2 with the usual controller
  * h_new = h·clamp(safety·err^(−1/3), shrink, grow) (Hairer & Wanner, Solving ODEs II, §IV.8), and land exactly on
  * every breakpoint: schedule changes of the faces and sources, requested output times and the end of the run.
+ * State events (events.ts: a heater's thermostat, or switches a caller passes in) are located within a time tolerance
+ * by redoing the step that crossed them; the step lands there and the conditions are re-read, as at a breakpoint.
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
-import { CHANNEL, createWorkspace, updateCapacity } from '../grid/discretization.ts';
+import { createWorkspace, updateCapacity } from '../grid/discretization.ts';
 import { enthalpyAt } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
 import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
-import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
+import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
+import type { StateSwitch } from './events.ts';
+import { locateRise } from './events.ts';
+import type { PlateStep } from './plates.ts';
+import { createPlateControl } from './plates.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
@@ -36,6 +42,15 @@ export const evolveDefaults = {
   newtonCut: 0.25,
   /** A step that would end within this share of a breakpoint is stretched onto it. */
   landShare: 1e-6,
+  /**
+   * A state event is landed on at most this late, s: far below the 0.1 s to which event times are printed, and a
+   * sensor rising at 10 K/s overshoots its level by at most 0.01 K.
+   */
+  eventToleranceS: 1e-3,
+  /** Trial steps allowed to locate one event (Illinois converges superlinearly; bisection alone would need ~40). */
+  maxEventTrials: 40,
+  /** Rounds of switches allowed to fire at one instant before the loop moves on (a chattering pair cannot hold it). */
+  maxFiresAtOnce: 8,
 } as const;
 
 /**
@@ -50,6 +65,11 @@ export type Stepping =
 export interface EvolveOptions {
   /** Default adaptive. A fixed step (s) still lands on every breakpoint. */
   readonly stepping?: Stepping;
+  /**
+   * State switches of the caller's own (events.ts), besides the heaters' thermostats; `adjust` lets a switch change
+   * the conditions the schedule gives.
+   */
+  readonly switches?: readonly (StateSwitch & { readonly adjust?: (cond: StepConditions) => StepConditions })[];
 }
 
 /** What each accepted step exposes. Buffers are the loop's own and valid until the generator resumes. */
@@ -64,8 +84,13 @@ export interface StepReport {
   readonly bottomJ: number;
   readonly topJ: number;
   readonly sourceJ: number;
-  /** Heat into the cells through their edges over the step (negative: lost), J/m²; 0 without edge terms. */
-  readonly edgeJ: number;
+  /**
+   * What the heater under each face did over the step ([bottom, top]; physics/heater.ts). On a heater face bottomJ /
+   * topJ hold minus the plate's loss to the surroundings: the plate is part of the body whose ledger is kept.
+   */
+  readonly plates: readonly [PlateStep, PlateStep];
+  /** Whether a state event fired at t1. */
+  readonly switched: boolean;
 }
 
 export interface EvolveStats {
@@ -74,6 +99,9 @@ export interface EvolveStats {
   newtonIterations: number;
   /** Steps accepted at the smallest step (step-guards.ts) although the error estimate asked for less. */
   forced: number;
+  /** State events landed on, and the trial steps it took to locate them. */
+  events: number;
+  eventTrials: number;
 }
 
 export type EvolveEnd =
@@ -101,11 +129,11 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const { numerics, durationS } = problem;
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
-  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM }, problem.layers.map((l) => l.terms));
+  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM });
   const buf = createStepBuffers(grid.n);
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
-  const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0 };
+  const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0, events: 0, eventTrials: 0 };
   const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
   const stepping: Stepping = options.stepping ?? { kind: 'adaptive' };
   const fixedStepS = stepping.kind === 'fixed' ? stepping.stepS : undefined;
@@ -113,9 +141,27 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const breaks = breakpoints(problem);
   const source = new Float64Array(grid.n);
 
+  const plates = createPlateControl(problem, grid, ws);
+  const switches = [...plates.switches, ...(options.switches ?? [])];
+  const gStart = new Float64Array(switches.length);
+  const plateSteps: [PlateStep, PlateStep] = [
+    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN }, { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN },
+  ];
+  const weights = backwardEuler ? [0, 0, 1] as const : WEIGHTS;
+  /** The conditions at tS: the schedules, then each caller's switch's adjustment; the plates follow them. */
+  const readConditions = (tS: number, before: StepConditions | undefined): StepConditions => {
+    let c = conditionsAt(problem, grid, tS, source);
+    for (const sw of options.switches ?? []) if (sw.adjust) c = sw.adjust(c);
+    plates.attach(c, before);
+    return c;
+  };
+  /** The largest event function at the state in ws (an event is due where it is ≥ 0). */
+  const highestG = (tS: number): number => switches.reduce((most, sw) => Math.max(most, sw.g(ws, tS)), -Infinity);
+
   let t = 0;
   let nextBreak = 0;
-  let cond = conditionsAt(problem, grid, t, source);
+  for (const node of ws.plates) node.tK = problem.initialK;
+  let cond = readConditions(t, undefined);
   initialState(problem, grid, buf.U0);
   let floorS = 0;
   const settle = (): boolean => {
@@ -137,10 +183,25 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       message: bottom || top || coldestK(ws.T) < 0 ? belowAbsoluteZeroMessage(problem, ws, cond, faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
     };
   };
-  if (!settle()) return unsettled(0);
+  /**
+   * Fires every switch whose event is due at the state in ws, re-reading the conditions and settling the faces after
+   * each round; then keeps each switch's value as the start of the next step. False if a face did not settle.
+   */
+  const fireDue = (tS: number): boolean => {
+    for (let round = 0; round < d.maxFiresAtOnce; round++) {
+      const due = switches.filter((sw) => sw.g(ws, tS) >= 0);
+      if (due.length === 0) break;
+      for (const sw of due) sw.fire(tS);
+      cond = readConditions(tS, cond);
+      if (!settle()) return false;
+    }
+    switches.forEach((sw, k) => { gStart[k] = sw.g(ws, tS); });
+    return true;
+  };
+  if (!settle() || !fireDue(0)) return unsettled(0);
   // report the initial state as a step of zero length
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
-  yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0, edgeJ: 0 };
+  yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0, plates: plateSteps, switched: false };
 
   let h = fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
@@ -182,6 +243,27 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       continue;
     }
     if (atFloor && outcome.errorNorm > 1) stats.forced++;
+    plates.afterTrial();
+    const armed = gStart.reduce((a, g) => Math.max(a, g), -Infinity);
+    const gEnd = armed < 0 ? highestG(t + step) : -Infinity;
+    const switched = gEnd >= 0;
+    if (switched) {
+      // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
+      const from = t;
+      const trial = (s: number): number | undefined => {
+        takeStep(ws, buf, s, cond, newton, scale, backwardEuler, outcome);
+        stats.newtonIterations += outcome.newtonIterations;
+        stats.eventTrials++;
+        if (outcome.status !== 'ok') return undefined;
+        plates.afterTrial();
+        return highestG(from + s);
+      };
+      const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials);
+      if (found.lastS !== found.s) trial(found.s);
+      step = found.s;
+      landing = false;
+      stats.events++;
+    }
     const t1 = landing ? target : t + step;
     if (coldestK(ws.T) < 0) {
       // where the coldest node crossed 0 K, by linear interpolation over the step
@@ -191,13 +273,19 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q1, at), tS: at, stats };
     }
     stats.steps++;
+    let sourceJ = 0;
+    for (let i = 0; i < grid.n; i++) sourceJ += step * source[i]! * grid.dx[i]!;
+    plates.commit(step, weights, buf.qg, buf.q1, buf.Ug, buf.U1, plateSteps);
+    // on a heater face what leaves the body (stack + plate) is the plate's loss; its heat into the face is internal
+    const faceJ = (side: 0 | 1): number => ((side === 0 ? cond.bottom : cond.top).kind === 'heater'
+      ? -plateSteps[side].lossJ : stepFaceEnergy(buf, side, step, backwardEuler));
     yield {
       t0: t, tg: t + (backwardEuler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
-      bottomJ: stepFaceEnergy(buf, 0, step, backwardEuler),
-      topJ: stepFaceEnergy(buf, 1, step, backwardEuler),
-      // heat generated and heat through the edges by the stages' own quadrature (exact also for s(T): tr-bdf2.ts)
-      sourceJ: stepFaceEnergy(buf, CHANNEL.generated, step, backwardEuler),
-      edgeJ: stepFaceEnergy(buf, CHANNEL.edge, step, backwardEuler),
+      bottomJ: faceJ(0),
+      topJ: faceJ(1),
+      plates: plateSteps,
+      switched,
+      sourceJ,
     };
     // accept: the end state becomes the start of the next step
     buf.U0.set(buf.U1);
@@ -216,12 +304,14 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     t = t1;
     if (landing && t < durationS) {
       const before = cond;
-      cond = conditionsAt(problem, grid, t, source);
+      cond = readConditions(t, before);
       if (cond.bottom !== before.bottom || cond.top !== before.top) {
         if (adaptive) h = Math.min(h, d.stepAfterChangeS);
       }
       if (!settle()) return unsettled(t);
     }
+    if (switched && adaptive) h = Math.min(h, d.stepAfterChangeS);
+    if (switches.length > 0 && !fireDue(t)) return unsettled(t);
   }
   return { status: 'ok', stats };
 }

@@ -71,7 +71,7 @@ export function belowAbsoluteZeroMessage(problem: Problem, ws: Workspace, cond: 
  */
 export function faceBelowAbsoluteZero(ws: Workspace, cond: StepConditions, side: 0 | 1): boolean {
   const c = side === 0 ? cond.bottom : cond.top;
-  if (c.kind === 'fixed') return false;
+  if (c.kind !== 'terms') return false;
   const g = side === 0 ? ws.G[0]! : ws.G[ws.n]!;
   const cellK = side === 0 ? ws.T[1]! : ws.T[ws.n]!;
   const scratch = new Float64Array(1);

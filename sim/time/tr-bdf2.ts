@@ -9,9 +9,10 @@
  * matrix (I − d·h·J)⁻¹, Shampine's device for stiff problems (Hosea & Shampine 1996, §3).
  * With backwardEuler: true the step is one backward-Euler stage (first order, for the convergence study).
  */
-import type { LedgerChannel, StepConditions, Workspace } from '../grid/discretization.ts';
-import { CHANNEL_COUNT, evaluate, linearizeCellTerms, stageJacobian, stageResidual } from '../grid/discretization.ts';
+import type { StepConditions, Workspace } from '../grid/discretization.ts';
+import { evaluate, stageJacobian, stageResidual } from '../grid/discretization.ts';
 import { solveTridiagonal } from '../grid/tridiagonal.ts';
+import { beginPlateStage } from './plates.ts';
 
 const SQRT2 = Math.SQRT2;
 const GAMMA = 2 - SQRT2;
@@ -53,7 +54,7 @@ export interface StepBuffers {
   readonly F0: Float64Array;
   readonly Fg: Float64Array;
   readonly F1: Float64Array;
-  /** Rates of the ledger channels (CHANNEL: bottom face, top face, generated, edges), W/m², at the three points. */
+  /** Heat into [bottom, top] faces, W/m², at the three points. */
   readonly q0: Float64Array;
   readonly qg: Float64Array;
   readonly q1: Float64Array;
@@ -70,7 +71,7 @@ export function createStepBuffers(n: number): StepBuffers {
   return {
     U0: new Float64Array(m), Ug: new Float64Array(m), U1: new Float64Array(m),
     F0: new Float64Array(n), Fg: new Float64Array(n), F1: new Float64Array(n),
-    q0: new Float64Array(CHANNEL_COUNT), qg: new Float64Array(CHANNEL_COUNT), q1: new Float64Array(CHANNEL_COUNT), T0: new Float64Array(m),
+    q0: new Float64Array(2), qg: new Float64Array(2), q1: new Float64Array(2), T0: new Float64Array(m),
     B: new Float64Array(n), res: new Float64Array(m), delta: new Float64Array(m), work: new Float64Array(m),
   };
 }
@@ -130,7 +131,7 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
 /**
  * After the last Newton update U ← U − δ, brings ws to the new U by the same linearisation the update solved, instead
  * of evaluating again: F ← F − (Δx·δ − R)/h on the cells (so Δx·(U − B) − h·F = 0 holds exactly), T ← T − τ·δ, and
- * each face's heat input and each cell term's rate moves along its slope. The linearised interior fluxes telescope and the face rows balance,
+ * each face's heat input moves along its slope. The linearised interior fluxes telescope and the face rows balance,
  * so the energy ledger closes to round-off; the remaining difference from a fresh evaluation is O(δ²), far below the
  * Newton tolerance. Overwrites ws.F, ws.T, ws.faceQ.
  */
@@ -152,7 +153,6 @@ function acceptLinearUpdate(ws: Workspace, buf: StepBuffers, U: Float64Array, h:
   } else {
     faceQ[1] = faceQ[1]! - faceDq[1]! * delta[n + 1]!;
   }
-  linearizeCellTerms(ws, delta);
   for (let i = 0; i < n; i++) {
     const j = i + 1;
     F[i] = F[i]! - (dx[i]! * delta[j]! - res[j]!) / h;
@@ -194,6 +194,7 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
 
   if (backwardEuler) {
     for (let i = 0; i < n; i++) B[i] = U0[i + 1]!;
+    beginPlateStage(ws, cond, h, 'euler', buf.q0, buf.qg, Ug);
     U1.set(U0);
     outcome.status = solveStage(ws, buf, U1, h, cond, newton, outcome);
     if (outcome.status !== 'ok') return outcome;
@@ -208,6 +209,7 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
   const hd = D * h;
   // trapezoidal stage to t + γh
   for (let i = 0; i < n; i++) B[i] = U0[i + 1]! + (hd * F0[i]!) / dx[i]!;
+  beginPlateStage(ws, cond, hd, 'trapezoid', buf.q0, buf.qg, Ug);
   Ug.set(U0);
   outcome.status = solveStage(ws, buf, Ug, hd, cond, newton, outcome);
   if (outcome.status !== 'ok') return outcome;
@@ -218,6 +220,7 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
   const lean = (1 - GAMMA) / GAMMA;
   for (let j = 0; j < n + 2; j++) U1[j] = Ug[j]! + lean * (Ug[j]! - U0[j]!);
   for (let i = 0; i < n; i++) B[i] = A * Ug[i + 1]! - BB * U0[i + 1]!;
+  beginPlateStage(ws, cond, hd, 'bdf2', buf.q0, buf.qg, Ug, A, BB);
   outcome.status = solveStage(ws, buf, U1, hd, cond, newton, outcome);
   if (outcome.status !== 'ok') return outcome;
   F1.set(ws.F);
@@ -259,11 +262,8 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
   return outcome;
 }
 
-/**
- * Energy per unit area (J/m²) that a ledger channel (a face, the cells' generation, their edges) took in over a step
- * of size h, by the method's own quadrature: the same weights that advance the enthalpies, so the ledger closes.
- */
-export function stepFaceEnergy(buf: StepBuffers, side: LedgerChannel, h: number, backwardEuler: boolean): number {
+/** Energy per unit area (J/m²) that a face took in over a step of size h, by the method's own quadrature. */
+export function stepFaceEnergy(buf: StepBuffers, side: 0 | 1, h: number, backwardEuler: boolean): number {
   if (backwardEuler) return h * buf.q1[side]!;
   return h * (WEIGHTS[0] * buf.q0[side]! + WEIGHTS[1] * buf.qg[side]! + WEIGHTS[2] * buf.q1[side]!);
 }

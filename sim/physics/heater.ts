@@ -1,0 +1,105 @@
+/**
+ * The heater as a body: a plate of thermal mass under a face of the stack, heated electrically with a power P limited
+ * to P_max, coupled to the face through a contact conductance G_c, and losing heat to the surroundings through a linear
+ * loss coefficient h_loss. Per unit footprint area A (W/m², J/m²), with c′ = ρ·c_p·t_plate:
+ *   c′·dT_p/dt = p − G_c·(T_p − T_face) − h_loss·(T_p − T_∞),     p = P/A
+ * (a lumped-capacitance node, Incropera et al., Fundamentals of Heat and Mass Transfer, §5.1–5.3; valid while the
+ * plate's Biot number h·t/k is small, which a metal plate a few millimetres thick meets).
+ *
+ * Each implicit stage of the time step reads c′·(T_p − b) = d·h·f(T_p, T_face), with b known from earlier stages. With
+ * p fixed over the step (it changes only at state events) this is linear in T_p, so T_p is eliminated per stage:
+ *   T_p = (c′·b + d·h·(p + G_c·T_face + h_loss·T_∞)) / (c′ + d·h·(G_c + h_loss))
+ * and the face sees q(T_face) = G_c·(T_p − T_face), dq/dT_face = G_c·(d·h·G_c/(c′ + d·h·(G_c + h_loss)) − 1).
+ * The tridiagonal structure and the exact energy ledger of the stack are kept; T_p is recovered after each stage.
+ */
+
+/** What the controller reads: the plate itself, or the mean temperature of a layer of the stack. */
+export type HeaterSensor =
+  | { readonly kind: 'plate' }
+  | { readonly kind: 'layer'; readonly index: number; readonly id: string };
+
+/** How the power is chosen. */
+export type HeaterControl =
+  | { readonly kind: 'constant' }
+  | {
+      /** Full power below set-point − band, none from the set-point up, switching only at the two levels. */
+      readonly kind: 'on-off';
+      /** Hysteresis band, K (> 0). */
+      readonly bandK: number;
+      readonly sensor: HeaterSensor;
+    };
+
+/** One point of the set-point schedule: linear between points (ramps), held before the first and after the last. */
+export interface SetPoint {
+  readonly atS: number;
+  readonly tK: number;
+}
+
+export interface Heater {
+  /** Electric power limit, W, and the same over the footprint, W/m². */
+  readonly powerW: number;
+  readonly powerWPerM2: number;
+  /** Footprint area the plate covers, m² (the stack's footprint). */
+  readonly areaM2: number;
+  /** Areal heat capacity of the plate ρ·c_p·t, J·m⁻²·K⁻¹ (c_p at a fixed temperature: see heaterPlateCapacity). */
+  readonly capacityJPerM2K: number;
+  /** Contact conductance plate → face, W·m⁻²·K⁻¹. */
+  readonly contactWPerM2K: number;
+  /** Loss from the plate to the surroundings per footprint area, W·m⁻²·K⁻¹, and the temperature it loses to, K. */
+  readonly lossWPerM2K: number;
+  readonly lossToK: number;
+  readonly control: HeaterControl;
+  /** Empty for constant power. */
+  readonly setPoints: readonly SetPoint[];
+}
+
+/** The plate during a run: mutable, one per face, owned by the solver's workspace. */
+export interface PlateNode {
+  /** Plate temperature at the start of the current step (the last accepted state), K. */
+  tK: number;
+  /** Stage constants: the explicit part b (K) and the stage's effective step d·h (s); d·h = 0 balances the face only. */
+  b: number;
+  hd: number;
+  /** Power over the footprint during the current step, W/m². */
+  powerWPerM2: number;
+}
+
+export function createPlateNode(tK: number): PlateNode {
+  return { tK, b: tK, hd: 0, powerWPerM2: 0 };
+}
+
+/** The set-point at time tS, K: linear between points, held outside them. */
+export function setPointAt(points: readonly SetPoint[], tS: number): number {
+  const first = points[0];
+  if (first === undefined) return NaN;
+  if (tS <= first.atS) return first.tK;
+  for (let i = 1; i < points.length; i++) {
+    const p = points[i]!;
+    if (tS <= p.atS) {
+      const q = points[i - 1]!;
+      return q.tK + ((p.tK - q.tK) * (tS - q.atS)) / (p.atS - q.atS);
+    }
+  }
+  return points[points.length - 1]!.tK;
+}
+
+/** The plate temperature that solves the current stage for a face at faceK, K. */
+export function plateStageTemperature(h: Heater, node: PlateNode, faceK: number): number {
+  const c = h.capacityJPerM2K;
+  const d = node.hd;
+  return (c * node.b + d * (node.powerWPerM2 + h.contactWPerM2K * faceK + h.lossWPerM2K * h.lossToK))
+    / (c + d * (h.contactWPerM2K + h.lossWPerM2K));
+}
+
+/** Heat into the face from the plate in the current stage, W/m²; writes dq/dT_face to out[0]. Allocates nothing. */
+export function plateHeatIn(h: Heater, node: PlateNode, faceK: number, out: Float64Array): number {
+  const g = h.contactWPerM2K;
+  const d = node.hd;
+  out[0] = g * ((d * g) / (h.capacityJPerM2K + d * (g + h.lossWPerM2K)) - 1);
+  return g * (plateStageTemperature(h, node, faceK) - faceK);
+}
+
+/** The plate's net heat rate per footprint area, W/m², given the heat q it passes into the face. */
+export function plateRate(h: Heater, node: PlateNode, plateK: number, faceQ: number): number {
+  return node.powerWPerM2 - faceQ - h.lossWPerM2K * (plateK - h.lossToK);
+}

@@ -1,0 +1,121 @@
+/**
+ * State events: a switch watches a function g of the state (a sensor temperature minus a set-point) and acts when g
+ * rises through zero. After each accepted step the time loop evaluates every armed switch (g < 0 at the step's start);
+ * if one has risen to g ≥ 0 by the step's end, the step is redone from the same start with a shorter length until it
+ * ends just past the earliest crossing: the Illinois variant of regula falsi on the step length (Dowell & Jarratt,
+ * BIT 11 (1971) 168–174), stopped when the bracket is narrower than the time tolerance. The step that is kept is the
+ * bracket's right end, so the switch sees its level reached, at most the tolerance late. Then the switch acts and the
+ * loop re-reads the face conditions, as at a schedule change (Hairer, Nørsett & Wanner, Solving ODEs I, §II.6, "dense
+ * output and event location"; here without dense output: each trial is a real step, so the landed state is the
+ * method's own).
+ * A g that dips above zero and back within one step is not seen; the step limit bounds how long such a dip can be.
+ */
+import type { Workspace } from '../grid/discretization.ts';
+import type { Grid } from '../grid/mesh.ts';
+
+/** A switch driven by the state. */
+export interface StateSwitch {
+  /** The event function at the state evaluated into ws, at time tS: the event is its rise from < 0 to ≥ 0. */
+  readonly g: (ws: Workspace, tS: number) => number;
+  /** The loop has landed on the crossing at tS: act (the loop then re-reads the conditions and settles the faces). */
+  readonly fire: (tS: number) => void;
+}
+
+/** A sensor of the stack: a face's temperature, or the thickness-weighted mean temperature of a layer. */
+export type StackSensor =
+  | { readonly kind: 'face'; readonly side: 0 | 1 }
+  | { readonly kind: 'layer'; readonly index: number };
+
+/** The sensor's temperature at the state evaluated into ws, K. */
+export function stackSensorK(sensor: StackSensor, ws: Workspace, grid: Grid): number {
+  if (sensor.kind === 'face') return sensor.side === 0 ? ws.T[0]! : ws.T[grid.n + 1]!;
+  let sum = 0;
+  let width = 0;
+  for (let i = grid.layerStart[sensor.index]!; i < grid.layerEnd[sensor.index]!; i++) {
+    sum += ws.T[i + 1]! * grid.dx[i]!;
+    width += grid.dx[i]!;
+  }
+  return sum / width;
+}
+
+export interface ThermostatSpec {
+  /** The sensed temperature at the state in ws, K. */
+  readonly sensorK: (ws: Workspace) => number;
+  /** The set-point at time tS, K. */
+  readonly setPointK: (tS: number) => number;
+  /** Hysteresis band, K: off when the sensor reaches the set-point, on again when it falls to set-point − band. */
+  readonly bandK: () => number;
+  /** Whether the thermostat watches at all (e.g. only while its heater is under the stack). */
+  readonly active?: () => boolean;
+  /** Called at every switch with the new state. */
+  readonly onSwitch: (on: boolean, tS: number) => void;
+}
+
+export interface Thermostat extends StateSwitch {
+  readonly isOn: () => boolean;
+  /** Puts the thermostat on or off without an event (at the start, or when its heater is attached). */
+  readonly reset: (on: boolean) => void;
+}
+
+/** An on/off thermostat with hysteresis (the sensor stays in [set-point − band, set-point] once it has reached it). */
+export function thermostat(spec: ThermostatSpec): Thermostat {
+  let on = true;
+  return {
+    g: (ws, tS) => {
+      if (spec.active && !spec.active()) return -1;
+      const sensed = spec.sensorK(ws);
+      const level = spec.setPointK(tS);
+      return on ? sensed - level : level - spec.bandK() - sensed;
+    },
+    fire: (tS) => {
+      on = !on;
+      spec.onSwitch(on, tS);
+    },
+    isOn: () => on,
+    reset: (state) => { on = state; },
+  };
+}
+
+export interface Located {
+  /** The step length kept: the bracket's right end, where g ≥ 0. */
+  readonly s: number;
+  /** Length of the last trial taken (the buffers hold that step; redo s if it differs). */
+  readonly lastS: number;
+  readonly trials: number;
+}
+
+/**
+ * Locates the rise of g through zero on (0, sB], given g(0) = gA < 0 ≤ g(sB) = gB, by Illinois regula falsi on the
+ * step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or undefined if
+ * that step failed (then the bracket found so far is kept). Stops when the bracket is narrower than tolS or after
+ * maxTrials trials.
+ */
+export function locateRise(trial: (s: number) => number | undefined, gA: number, sB: number, gB: number,
+  tolS: number, maxTrials: number): Located {
+  let a = 0;
+  let fa = gA;
+  let b = sB;
+  let fb = gB;
+  let side = 0;
+  let lastS = sB;
+  let trials = 0;
+  while (b - a > tolS && trials < maxTrials) {
+    // regula falsi point, kept a hundredth of the bracket inside it so a stalled end still moves
+    const inset = 0.01 * (b - a);
+    const s = Math.min(b - inset, Math.max(a + inset, b - (fb * (b - a)) / (fb - fa)));
+    const fs = trial(s);
+    trials++;
+    lastS = s;
+    if (fs === undefined) break;
+    if (fs >= 0) {
+      b = s; fb = fs;
+      if (side === 1) fa *= 0.5; // Illinois: the same end twice in a row halves the other end's value
+      side = 1;
+    } else {
+      a = s; fa = fs;
+      if (side === -1) fb *= 0.5;
+      side = -1;
+    }
+  }
+  return { s: b, lastS, trials };
+}
