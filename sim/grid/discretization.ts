@@ -1,6 +1,7 @@
 /**
  * The semi-discrete heat equation on the grid, in conservation form (finite volumes, Patankar 1980 ch. 4):
  *   Δx_i · dH_i/dt = Q_{i−½} − Q_{i+½} + s_i·Δx_i,     Q_{i+½} = G_{i+½}·(T_i − T_{i+1}),
+ *   s_i = s_sched,i(t) + Σ s_term(T_i)   (the layer's schedule and its temperature-dependent terms, heat-terms.ts),
  *   1/G_{i+½} = Δx_i/(2k_i) + R_contact + Δx_{i+1}/(2k_{i+1})   (series resistance; harmonic mean of k).
  * Each exposed face carries a node of zero volume whose temperature balances the half-cell conduction against the
  * face's heat input (flux, convection, radiation, plate), or is held fixed. So the face temperature that drives
@@ -17,6 +18,17 @@ import type { EnthalpyCurve } from '../physics/material.ts';
 import { conductivityWithSlope, sensibleCapacity, temperatureOf } from '../physics/material.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
+import type { CellHeatTerm } from '../physics/heat-terms.ts';
+import { cellTermRate } from '../physics/heat-terms.ts';
+
+/**
+ * The ledger's channels, indices into ws.faceQ and the step buffers' q0/qg/q1: heat into the bottom and top faces,
+ * heat generated in the cells, and heat into the cells through their edges (W/m² of footprint; negative: out).
+ */
+export const CHANNEL = { bottom: 0, top: 1, generated: 2, edge: 3 } as const;
+export type LedgerChannel = (typeof CHANNEL)[keyof typeof CHANNEL];
+export const CHANNEL_COUNT = 4;
+const NO_TERMS: readonly CellHeatTerm[] = [];
 
 /** The conditions that hold over one time step (schedules only change on step boundaries). */
 export interface StepConditions {
@@ -48,8 +60,19 @@ export interface Workspace {
   readonly segmentHint: Int32Array;
   /** Latent heat per volume ρ·L per cell, J/m³ (0 where the material does not melt): the liquid-fraction error scale. */
   readonly latent: Float64Array;
-  /** Heat into the bottom and top faces, W/m², from the face model, and their derivatives dq/dT at the last evaluation. */
+  /**
+   * Rates of the ledger channels (CHANNEL), W/m²: heat into the bottom and top faces from the face model, heat
+   * generated in the cells Σ s·Δx, heat into the cells through their edges. faceDq: the faces' dq/dT.
+   */
   readonly faceQ: Float64Array;
+  /** Each cell's terms (the layer's list, shared). */
+  readonly cellTerms: readonly (readonly CellHeatTerm[])[];
+  /** ∂s/∂T per cell of its generated and of its edge terms, W·m⁻³·K⁻¹ (n each), at the last evaluation. */
+  readonly generatedDs: Float64Array;
+  readonly edgeDs: Float64Array;
+  readonly termScratch: Float64Array;
+  /** Whether any cell has a term (else the term passes are skipped). */
+  readonly hasTerms: boolean;
 
   readonly faceDq: Float64Array;
   /** The heater plate behind each face (used while that face's condition is a heater; see physics/heater.ts). */
@@ -60,9 +83,12 @@ export interface Workspace {
   readonly scratch2: Float64Array;
 }
 
-export function createWorkspace(grid: Grid, bottomContext: FaceContext, topContext: FaceContext): Workspace {
+/** termsByLayer: each layer's temperature-dependent terms (heat-terms.ts), by layer index; none if omitted. */
+export function createWorkspace(grid: Grid, bottomContext: FaceContext, topContext: FaceContext,
+  termsByLayer: readonly (readonly CellHeatTerm[] | undefined)[] = []): Workspace {
   const n = grid.n;
   const m = n + 2;
+  const cellTerms = Array.from(grid.layerOf, (li) => termsByLayer[li] ?? NO_TERMS);
   return {
     grid, n,
     curves: grid.materials.map((mat) => mat.enthalpy),
@@ -71,15 +97,18 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     F: new Float64Array(n),
     capacity: new Float64Array(n), segmentHint: new Int32Array(n),
     latent: Float64Array.from(grid.materials, (mat) => (mat.melt ? mat.density * mat.melt.latentJPerKg : 0)),
-    faceQ: new Float64Array(2), faceDq: new Float64Array(2), plates: [createPlateNode(NaN), createPlateNode(NaN)],
+    faceQ: new Float64Array(CHANNEL_COUNT), faceDq: new Float64Array(2), plates: [createPlateNode(NaN), createPlateNode(NaN)],
+    cellTerms, hasTerms: cellTerms.some((t) => t.length > 0),
+    generatedDs: new Float64Array(n), edgeDs: new Float64Array(n), termScratch: new Float64Array(1),
     lower: new Float64Array(m), diag: new Float64Array(m), upper: new Float64Array(m),
     scratch2: new Float64Array(2),
   };
 }
 
 /**
- * Evaluates everything that depends on U: T, tau, conductances G, face heat inputs and the net rates F.
- * Overwrites ws.T, ws.tau, ws.G, ws.dHalf, ws.F, ws.segmentHint, ws.faceQ, ws.faceDq, ws.scratch2.
+ * Evaluates everything that depends on U: T, tau, conductances G, face heat inputs, cell terms and the net rates F.
+ * Overwrites ws.T, ws.tau, ws.G, ws.dHalf, ws.F, ws.segmentHint, ws.faceQ, ws.faceDq, ws.generatedDs, ws.edgeDs,
+ * ws.scratch2, ws.termScratch.
  */
 export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): void {
   const { n, T, tau, G, F, curves, segmentHint, scratch2, grid, dHalf } = ws;
@@ -117,10 +146,29 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     halfBelow = half;
   }
   G[n] = 1 / halfBelow;
+  const { cellTerms, generatedDs, edgeDs, termScratch } = ws;
+  let generated = 0;
+  let edge = 0;
   for (let i = 0; i < n; i++) {
     const j = i + 1;
-    F[i] = G[j - 1]! * (T[j - 1]! - T[j]!) - G[j]! * (T[j]! - T[j + 1]!) + cond.source[i]! * dx[i]!;
+    let s = cond.source[i]!;
+    let e = 0;
+    let ds = 0;
+    let de = 0;
+    const terms = cellTerms[i]!;
+    for (let k = 0; k < terms.length; k++) {
+      const term = terms[k]!;
+      const q = cellTermRate(term, T[j]!, termScratch);
+      if (term.kind === 'edge') { e += q; de += termScratch[0]!; } else { s += q; ds += termScratch[0]!; }
+    }
+    generatedDs[i] = ds;
+    edgeDs[i] = de;
+    generated += s * dx[i]!;
+    edge += e * dx[i]!;
+    F[i] = G[j - 1]! * (T[j - 1]! - T[j]!) - G[j]! * (T[j]! - T[j + 1]!) + (s + e) * dx[i]!;
   }
+  ws.faceQ[CHANNEL.generated] = generated;
+  ws.faceQ[CHANNEL.edge] = edge;
   evaluateFace(ws, cond.bottom, 0, 0);
   evaluateFace(ws, cond.top, 1, n + 1);
 }
@@ -165,11 +213,11 @@ export function stageResidual(ws: Workspace, U: Float64Array, B: Float64Array, h
 /**
  * Jacobian of stageResidual() with respect to U. The flux through face j (node j to j+1), Q_j = G_j·(T_j − T_{j+1}),
  * has slopes a_j = ∂Q_j/∂U_j and b_j = ∂Q_j/∂U_{j+1}, which include the change of G through the half-cell resistance
- * of two-phase cells (k follows the liquid fraction) and of single-phase cells (tabulated k(T)).
- * Overwrites ws.lower, ws.diag, ws.upper.
+ * of two-phase cells (k follows the liquid fraction) and of single-phase cells (tabulated k(T)). A cell's own terms
+ * add −h·Δx·(∂s/∂T)·τ to its diagonal. Overwrites ws.lower, ws.diag, ws.upper.
  */
 export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): void {
-  const { n, G, tau, lower, diag, upper, grid, T, dHalf } = ws;
+  const { n, G, tau, lower, diag, upper, grid, T, dHalf, generatedDs, edgeDs } = ws;
   let aPrev = 0;
   let bPrev = 0;
   for (let j = 0; j <= n; j++) {
@@ -183,7 +231,7 @@ export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): v
     } else {
       // cell row j: Δx·(U_j − B) − h·(Q_{j−1} − Q_j)
       lower[j] = -h * aPrev;
-      diag[j] = grid.dx[j - 1]! - h * (bPrev - a);
+      diag[j] = grid.dx[j - 1]! - h * (bPrev - a + grid.dx[j - 1]! * (generatedDs[j - 1]! + edgeDs[j - 1]!) * tau[j]!);
       upper[j] = h * b;
     }
     aPrev = a;
@@ -191,4 +239,24 @@ export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): v
   }
   if (cond.top.kind === 'fixed') { diag[n + 1] = 1; lower[n + 1] = 0; }
   else { lower[n + 1] = -h * aPrev; diag[n + 1] = h * (-bPrev - ws.faceDq[1]!); }
+}
+
+/**
+ * Moves the cell-term channels of ws.faceQ along their slopes for a Newton update U ← U − δ (δ = delta, n+2), as
+ * acceptLinearUpdate (time/tr-bdf2.ts) moves F: the same linearisation the update solved, so the energy ledger closes
+ * to round-off. Overwrites ws.faceQ[CHANNEL.generated], ws.faceQ[CHANNEL.edge].
+ */
+export function linearizeCellTerms(ws: Workspace, delta: Float64Array): void {
+  if (!ws.hasTerms) return;
+  const { n, tau, generatedDs, edgeDs, faceQ } = ws;
+  const dx = ws.grid.dx;
+  let generated = 0;
+  let edge = 0;
+  for (let i = 0; i < n; i++) {
+    const move = dx[i]! * tau[i + 1]! * delta[i + 1]!;
+    generated += generatedDs[i]! * move;
+    edge += edgeDs[i]! * move;
+  }
+  faceQ[CHANNEL.generated] = faceQ[CHANNEL.generated]! - generated;
+  faceQ[CHANNEL.edge] = faceQ[CHANNEL.edge]! - edge;
 }

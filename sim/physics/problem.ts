@@ -2,6 +2,7 @@
  * The problem as the solver sees it: a validated scenario converted to SI (m, s, K, W). Plain readonly data; built
  * only by scenario.ts. Face conditions are discriminated unions, so a held face can carry no other term.
  */
+import type { CellHeatTerm } from './heat-terms.ts';
 import type { Heater } from './heater.ts';
 import type { Material } from './material.ts';
 import { mmToM } from './units.ts';
@@ -55,6 +56,8 @@ export interface Layer {
   readonly separator: boolean;
   readonly sources: readonly SourceInterval[];
   readonly cells: number | undefined;
+  /** Temperature-dependent volumetric terms in every cell of the layer (heat-terms.ts); none when absent. */
+  readonly terms?: readonly CellHeatTerm[];
 }
 
 export interface Footprint {

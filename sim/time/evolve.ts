@@ -7,7 +7,7 @@
  * by redoing the step that crossed them; the step lands there and the conditions are re-read, as at a breakpoint.
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
-import { createWorkspace, updateCapacity } from '../grid/discretization.ts';
+import { CHANNEL, createWorkspace, updateCapacity } from '../grid/discretization.ts';
 import { enthalpyAt } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
@@ -84,6 +84,8 @@ export interface StepReport {
   readonly bottomJ: number;
   readonly topJ: number;
   readonly sourceJ: number;
+  /** Heat into the cells through their edges over the step (negative: lost), J/m²; 0 without edge terms. */
+  readonly edgeJ: number;
   /**
    * What the heater under each face did over the step ([bottom, top]; physics/heater.ts). On a heater face bottomJ /
    * topJ hold minus the plate's loss to the surroundings: the plate is part of the body whose ledger is kept.
@@ -129,7 +131,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const { numerics, durationS } = problem;
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
-  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM });
+  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM }, problem.layers.map((l) => l.terms));
   const buf = createStepBuffers(grid.n);
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
@@ -201,7 +203,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   if (!settle() || !fireDue(0)) return unsettled(0);
   // report the initial state as a step of zero length
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
-  yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0, plates: plateSteps, switched: false };
+  yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0, edgeJ: 0, plates: plateSteps, switched: false };
 
   let h = fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
@@ -273,8 +275,6 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q1, at), tS: at, stats };
     }
     stats.steps++;
-    let sourceJ = 0;
-    for (let i = 0; i < grid.n; i++) sourceJ += step * source[i]! * grid.dx[i]!;
     plates.commit(step, weights, buf.qg, buf.q1, buf.Ug, buf.U1, plateSteps);
     // on a heater face what leaves the body (stack + plate) is the plate's loss; its heat into the face is internal
     const faceJ = (side: 0 | 1): number => ((side === 0 ? cond.bottom : cond.top).kind === 'heater'
@@ -285,7 +285,9 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       topJ: faceJ(1),
       plates: plateSteps,
       switched,
-      sourceJ,
+      // heat generated and heat through the edges by the stages' own quadrature (exact also for s(T): tr-bdf2.ts)
+      sourceJ: stepFaceEnergy(buf, CHANNEL.generated, step, backwardEuler),
+      edgeJ: stepFaceEnergy(buf, CHANNEL.edge, step, backwardEuler),
     };
     // accept: the end state becomes the start of the next step
     buf.U0.set(buf.U1);

@@ -9,8 +9,8 @@
  * matrix (I − d·h·J)⁻¹, Shampine's device for stiff problems (Hosea & Shampine 1996, §3).
  * With backwardEuler: true the step is one backward-Euler stage (first order, for the convergence study).
  */
-import type { StepConditions, Workspace } from '../grid/discretization.ts';
-import { evaluate, stageJacobian, stageResidual } from '../grid/discretization.ts';
+import type { LedgerChannel, StepConditions, Workspace } from '../grid/discretization.ts';
+import { CHANNEL_COUNT, evaluate, linearizeCellTerms, stageJacobian, stageResidual } from '../grid/discretization.ts';
 import { solveTridiagonal } from '../grid/tridiagonal.ts';
 import { beginPlateStage } from './plates.ts';
 
@@ -54,7 +54,7 @@ export interface StepBuffers {
   readonly F0: Float64Array;
   readonly Fg: Float64Array;
   readonly F1: Float64Array;
-  /** Heat into [bottom, top] faces, W/m², at the three points. */
+  /** Rates of the ledger channels (CHANNEL: bottom face, top face, generated, edges), W/m², at the three points. */
   readonly q0: Float64Array;
   readonly qg: Float64Array;
   readonly q1: Float64Array;
@@ -71,7 +71,7 @@ export function createStepBuffers(n: number): StepBuffers {
   return {
     U0: new Float64Array(m), Ug: new Float64Array(m), U1: new Float64Array(m),
     F0: new Float64Array(n), Fg: new Float64Array(n), F1: new Float64Array(n),
-    q0: new Float64Array(2), qg: new Float64Array(2), q1: new Float64Array(2), T0: new Float64Array(m),
+    q0: new Float64Array(CHANNEL_COUNT), qg: new Float64Array(CHANNEL_COUNT), q1: new Float64Array(CHANNEL_COUNT), T0: new Float64Array(m),
     B: new Float64Array(n), res: new Float64Array(m), delta: new Float64Array(m), work: new Float64Array(m),
   };
 }
@@ -131,7 +131,7 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
 /**
  * After the last Newton update U ← U − δ, brings ws to the new U by the same linearisation the update solved, instead
  * of evaluating again: F ← F − (Δx·δ − R)/h on the cells (so Δx·(U − B) − h·F = 0 holds exactly), T ← T − τ·δ, and
- * each face's heat input moves along its slope. The linearised interior fluxes telescope and the face rows balance,
+ * each face's heat input and each cell term's rate moves along its slope. The linearised interior fluxes telescope and the face rows balance,
  * so the energy ledger closes to round-off; the remaining difference from a fresh evaluation is O(δ²), far below the
  * Newton tolerance. Overwrites ws.F, ws.T, ws.faceQ.
  */
@@ -153,6 +153,7 @@ function acceptLinearUpdate(ws: Workspace, buf: StepBuffers, U: Float64Array, h:
   } else {
     faceQ[1] = faceQ[1]! - faceDq[1]! * delta[n + 1]!;
   }
+  linearizeCellTerms(ws, delta);
   for (let i = 0; i < n; i++) {
     const j = i + 1;
     F[i] = F[i]! - (dx[i]! * delta[j]! - res[j]!) / h;
@@ -262,8 +263,11 @@ export function takeStep(ws: Workspace, buf: StepBuffers, h: number, cond: StepC
   return outcome;
 }
 
-/** Energy per unit area (J/m²) that a face took in over a step of size h, by the method's own quadrature. */
-export function stepFaceEnergy(buf: StepBuffers, side: 0 | 1, h: number, backwardEuler: boolean): number {
+/**
+ * Energy per unit area (J/m²) that a ledger channel (a face, the cells' generation, their edges) took in over a step
+ * of size h, by the method's own quadrature: the same weights that advance the enthalpies, so the ledger closes.
+ */
+export function stepFaceEnergy(buf: StepBuffers, side: LedgerChannel, h: number, backwardEuler: boolean): number {
   if (backwardEuler) return h * buf.q1[side]!;
   return h * (WEIGHTS[0] * buf.q0[side]! + WEIGHTS[1] * buf.qg[side]! + WEIGHTS[2] * buf.q1[side]!);
 }
