@@ -24,7 +24,10 @@ export interface MaterialChoice { readonly name: string; readonly label: string 
 
 /** The material names to offer: the file's own first, then the library. */
 export function materialChoices(draft: JsonObject): MaterialChoice[] {
-  const inline = Object.keys(asObject(draft.materials)).map((name) => ({ name, label: `${name} (in this file)` }));
+  const own = asObject(draft.materials);
+  const inline = Object.keys(own).map((name) => ({
+    name, label: `${name} (${isObject(own[name]) && own[name].composite !== undefined ? 'salt-soaked matrix, ' : ''}in this file)`,
+  }));
   const library = libraryNames().map((name) => ({ name, label: name }));
   return [...inline, ...library];
 }

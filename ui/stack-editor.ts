@@ -1,6 +1,7 @@
 /**
  * The layer stack, drawn top layer first (as it sits on the bench): per layer its id, material, thickness, the
- * separator flag and any volumetric heat source; between neighbours the contact resistance. Test hooks:
+ * separator flag and any volumetric heat source; between neighbours the contact resistance. A layer's material may be a
+ * salt-soaked matrix of the file's own (composite-editor.ts), edited in a panel under the layer. Test hooks:
  * `layer-row-<i>`, `layer-thickness-<i>`, `layer-material-<i>`, with i the index in the file (0 = bottom).
  */
 import { layerColours } from './colours.ts';
@@ -9,6 +10,7 @@ import { button, h } from './dom.ts';
 import { checkField, numberField, selectField, stringField } from './fields.ts';
 import { inputText } from './format.ts';
 import { asList, asObject, asString, isObject, type JsonObject } from './json.ts';
+import { addComposite, compositeEntry, compositePanel, NEW_COMPOSITE } from './composite-editor.ts';
 import { materialCard } from './material-card.ts';
 import { materialChoices, materialInfo } from './materials.ts';
 import { sourceRows } from './source-rows.ts';
@@ -54,15 +56,16 @@ function layerRow(store: DraftStore, i: number, count: number, tell: Tell, colou
     }),
     selectField(store, {
       path: `${base}.material`, label: 'material', testid: `layer-material-${i}`,
-      choices: materialChoices(d).map((c) => ({ value: c.name, label: c.label })),
-      write: (value) => store.change((x) => setMaterial(x, i, value)),
+      choices: [...materialChoices(d).map((c) => ({ value: c.name, label: c.label })),
+        { value: NEW_COMPOSITE, label: 'salt-soaked matrix (new: matrix + salt, porosity, fill)' }],
+      write: (value) => store.change((x) => { if (value === NEW_COMPOSITE) addComposite(x, i); else setMaterial(x, i, value); }),
     }),
     numberField(store, { path: `${base}.thickness_mm`, label: 'thickness', unit: 'mm', testid: `layer-thickness-${i}` }),
     checkField(store, { path: `${base}.separator`, label: 'separator', hint: 'The molten-salt layer whose melting and freezing set the usable window.' }));
   return h('div', { class: `layer-row${layer.separator === true ? ' is-separator' : ''}`, 'data-testid': `layer-row-${i}`,
     style: colour ? `border-left-color: ${colour}` : undefined, 'data-colour': colour },
     h('div', { class: 'layer-head' }, h('span', { class: 'layer-place' }, place), fields, controls),
-    materialCard(materialInfo(d, materialName)),
+    compositeEntry(d, materialName) ? compositePanel(store, i, materialName) : materialCard(materialInfo(d, materialName)),
     sourceRows(store, i));
 }
 
