@@ -10,6 +10,7 @@ import { Outcome, Solver } from 'odex';
 import { faceHeatIn, type FaceContext } from '../physics/faces.ts';
 import { conductivityAt, enthalpyAt, liquidFractionOf, sensibleCapacity, temperatureOf } from '../physics/material.ts';
 import type { FaceCondition, Problem } from '../physics/problem.ts';
+import { facingOf } from '../physics/natural-convection.ts';
 import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
 
 export const lumpedDefaults = {
@@ -33,8 +34,8 @@ export function runLumped(problem: Problem): LumpedTrace {
   const layers = problem.layers;
   const n = layers.length;
   const lengthM = characteristicLengthM(problem.footprint);
-  const bottomCtx: FaceContext = { facing: 'down', lengthM };
-  const topCtx: FaceContext = { facing: 'up', lengthM };
+  const bottomCtx: FaceContext = { facing: facingOf('bottom'), lengthM };
+  const topCtx: FaceContext = { facing: facingOf('top'), lengthM };
   const scratch = new Float64Array(2);
   const hints = new Int32Array(n);
   const temps = new Float64Array(n);

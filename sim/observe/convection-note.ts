@@ -18,7 +18,7 @@
  */
 import { airConductivity, airDiffusivity, airKinematicViscosity } from '../physics/air.ts';
 import { evalTable } from '../physics/material.ts';
-import { filmTemperature, naturalConvectionCoefficient, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
+import { facingOf, filmTemperature, naturalConvectionCoefficient, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
 import { characteristicLengthM, conditionAt, type Problem } from '../physics/problem.ts';
 import type { RunRecord } from './record.ts';
 import { cToK } from '../physics/units.ts';
@@ -87,14 +87,14 @@ export function convectionNote(problem: Problem, record: RunRecord): ConvectionN
       if (c.kind === 'terms' && c.convection.kind === 'natural' && Math.abs(tK - c.fluidK) >= convectionNoteDefaults.watchMinK && lengthM > 0) {
         seen = true;
         const ra = rayleigh(tK, c.fluidK, lengthM);
-        const rises = plumeRisesFromFace(side === 'bottom' ? 'down' : 'up', tK, c.fluidK);
+        const rises = plumeRisesFromFace(facingOf(side), tK, c.fluidK);
         if (!rayleighInRange(ra, rises)) outside = true;
         const film = filmTemperature(tK, c.fluidK);
         const pr = evalTable(airKinematicViscosity, film) / evalTable(airDiffusivity, film);
         const dT = Math.abs(tK - c.fluidK);
         const kOverL = evalTable(airConductivity, film) / lengthM;
         families.forEach((f, i) => { now[i] = f(ra, rises, pr) * kOverL * dT; });
-        now[USED] = Math.abs(naturalConvectionCoefficient(side === 'bottom' ? 'down' : 'up', tK, c.fluidK, lengthM)) * dT;
+        now[USED] = Math.abs(naturalConvectionCoefficient(facingOf(side), tK, c.fluidK, lengthM)) * dT;
       }
       if (j > 0) {
         const dt = record.tS[j]! - record.tS[j - 1]!;

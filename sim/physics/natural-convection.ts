@@ -50,6 +50,9 @@ export function rayleigh(tK: number, fluidK: number, lengthM: number): number {
 /** Prandtl number of air at the film temperature, ν/α from the same table. */
 export const airPrandtl = (filmK: number): number => evalTable(airKinematicViscosity, filmK) / evalTable(airDiffusivity, filmK);
 
+/** Which way each face of the stack looks: it lies flat, so its bottom face looks down and its top face up. */
+export const facingOf = (side: 'bottom' | 'top'): Facing => (side === 'bottom' ? 'down' : 'up');
+
 /** Whether the buoyant plume leaves the face (hot face up, cold face down): the "upper surface" correlations apply. */
 export function plumeRisesFromFace(facing: Facing, tK: number, fluidK: number): boolean {
   return (facing === 'up') === (tK > fluidK);

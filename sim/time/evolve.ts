@@ -11,6 +11,7 @@ import { CHANNEL, createWorkspace, updateCapacity } from '../grid/discretization
 import { enthalpyAt } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
+import { facingOf } from '../physics/natural-convection.ts';
 import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
 import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
@@ -131,7 +132,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const { numerics, durationS } = problem;
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
-  const ws = createWorkspace(grid, { facing: 'down', lengthM }, { facing: 'up', lengthM }, problem.layers.map((l) => l.terms));
+  const ws = createWorkspace(grid, { facing: facingOf('bottom'), lengthM }, { facing: facingOf('top'), lengthM }, problem.layers.map((l) => l.terms));
   const buf = createStepBuffers(grid.n);
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
