@@ -4,7 +4,7 @@
  * with the separator's solidus and liquidus and the half-frozen and frozen events marked.
  */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
-import { verdictTerms } from '../sim/index.ts';
+import { noValueWords, verdictTerms } from '../sim/index.ts';
 import { formatNumber, formatTemperature, formatTime } from './format.ts';
 import { baseLayout, hoverTexts, levelLine, TEXT_ONLY, type Figure } from './plot-common.ts';
 import { heatOffLabel } from './plot-temperatures.ts';
@@ -23,7 +23,7 @@ export function freezeWindow(r: ShownResult): { fromS: number; toS: number } | {
   const s = r.summary;
   const endS = r.record.tS[r.record.tS.length - 1] ?? 0;
   if (!r.layers.some((l) => l.separator)) return { why: 'No separator layer: nothing freezes to zoom on.' };
-  if (s.heat_off_s === null) return { why: 'The heat stays on to the end of the run: nothing to zoom on after heat off.' };
+  if (s.heat_off_s === null) return { why: `${noValueWords.heat_off_s[0]!.toUpperCase()}${noValueWords.heat_off_s.slice(1)}: nothing to zoom on after heat off.` };
   const last = s.separator.frozen_at_s ?? s.separator.half_frozen_at_s ?? endS;
   const tail = Math.max((last - s.heat_off_s) * freezeDefaults.tailShare, freezeDefaults.minTailS);
   const toS = Math.min(endS, last + tail);

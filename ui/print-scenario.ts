@@ -3,7 +3,7 @@
  * the editor) and the face rows in plain words. Hidden on screen, where the editor shows the same. Built from the
  * snapshot that produced the result, so the print never mixes a result with later edits. Test hook: `print-scenario`.
  */
-import { verdictTerms } from '../sim/index.ts';
+import { noValueWords, verdictTerms } from '../sim/index.ts';
 import { h } from './dom.ts';
 import { segmentSummary } from './face-summary.ts';
 import { formatNumber, formatTime } from './format.ts';
@@ -34,7 +34,7 @@ export function renderPrintScenario(root: HTMLElement, r: ShownResult): void {
     h('h2', {}, asString(sc.name) ?? 'Scenario'),
     h('p', { class: 'print-settings' },
       `duration ${formatTime(asNumber(sc.duration_s) ?? null, '—')} · ambient ${celsius(sc.ambient_C)} · initial ${celsius(sc.initial_C ?? sc.ambient_C)} · `
-      + `footprint ${footprint} · ${verdictTerms.heat_off_s.term} ${formatTime(r.summary.heat_off_s, 'never')}`),
+      + `footprint ${footprint} · ${r.summary.heat_off_s === null ? noValueWords.heat_off_s : `${verdictTerms.heat_off_s.term} ${formatTime(r.summary.heat_off_s, '')}`}`),
     h('table', { class: 'print-stack' },
       h('thead', {}, h('tr', {}, h('th', {}, 'layer (top first)'), h('th', {}, 'material'), h('th', {}, 'thickness'), h('th', {}, ''), h('th', {}, ''))),
       h('tbody', {}, ...rows)),
