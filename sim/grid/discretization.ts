@@ -70,7 +70,10 @@ export interface Workspace {
   /** ∂s/∂T per cell of its generated and of its edge terms, W·m⁻³·K⁻¹ (n each), at the last evaluation. */
   readonly generatedDs: Float64Array;
   readonly edgeDs: Float64Array;
+  /** [∂s/∂T, warm start] of the term being evaluated (heat-terms.ts cellTermRate). */
   readonly termScratch: Float64Array;
+  /** Each cell's edge-term warm start (the sleeve's surface temperature, K; NaN: none yet) (n). */
+  readonly termState: Float64Array;
   /** Whether any cell has a term (else the term passes are skipped). */
   readonly hasTerms: boolean;
 
@@ -99,7 +102,8 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     latent: Float64Array.from(grid.materials, (mat) => (mat.melt ? mat.density * mat.melt.latentJPerKg : 0)),
     faceQ: new Float64Array(CHANNEL_COUNT), faceDq: new Float64Array(2), plates: [createPlateNode(NaN), createPlateNode(NaN)],
     cellTerms, hasTerms: cellTerms.some((t) => t.length > 0),
-    generatedDs: new Float64Array(n), edgeDs: new Float64Array(n), termScratch: new Float64Array(1),
+    generatedDs: new Float64Array(n), edgeDs: new Float64Array(n), termScratch: new Float64Array(2),
+    termState: new Float64Array(n).fill(NaN),
     lower: new Float64Array(m), diag: new Float64Array(m), upper: new Float64Array(m),
     scratch2: new Float64Array(2),
   };
@@ -108,7 +112,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
 /**
  * Evaluates everything that depends on U: T, tau, conductances G, face heat inputs, cell terms and the net rates F.
  * Overwrites ws.T, ws.tau, ws.G, ws.dHalf, ws.F, ws.segmentHint, ws.faceQ, ws.faceDq, ws.generatedDs, ws.edgeDs,
- * ws.scratch2, ws.termScratch.
+ * ws.scratch2, ws.termScratch, ws.termState.
  */
 export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): void {
   const { n, T, tau, G, F, curves, segmentHint, scratch2, grid, dHalf } = ws;
@@ -146,7 +150,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     halfBelow = half;
   }
   G[n] = 1 / halfBelow;
-  const { cellTerms, generatedDs, edgeDs, termScratch } = ws;
+  const { cellTerms, generatedDs, edgeDs, termScratch, termState } = ws;
   let generated = 0;
   let edge = 0;
   for (let i = 0; i < n; i++) {
@@ -158,8 +162,9 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     const terms = cellTerms[i]!;
     for (let k = 0; k < terms.length; k++) {
       const term = terms[k]!;
+      termScratch[1] = termState[i]!;
       const q = cellTermRate(term, T[j]!, termScratch);
-      if (term.kind === 'edge') { e += q; de += termScratch[0]!; } else { s += q; ds += termScratch[0]!; }
+      if (term.kind === 'edge') { e += q; de += termScratch[0]!; termState[i] = termScratch[1]!; } else { s += q; ds += termScratch[0]!; }
     }
     generatedDs[i] = ds;
     edgeDs[i] = de;

@@ -16,21 +16,25 @@
  *   rectangle: R = t/k, a plane wall (eq. 3.6); outer/inner area (P + 8t)/P (corners square, their 2D spreading
  *              left out — it would add conductance near the corners).
  * The sleeve's outer surface T_s balances conduction through it against its own loss:
- *   (T − T_s)/R = (A_out/A_in)·q_side(T_s),   solved by safeguarded Newton;  dq/dT = g/(1 + R·g),  g = (A_out/A_in)·q_side'(T_s)
- * (conductances in series). k is read at the sleeve's mean temperature (T + T_s)/2; its slope is left out of the
- * derivative (it changes Newton's rate, not the answer).
+ *   f(T, T_s) = (T − T_s)·k(T_m)/(R·k) − (A_out/A_in)·q_side(T_s) = 0,   T_m = (T + T_s)/2,
+ * solved for T_s by safeguarded Newton (k at the sleeve's mean temperature, with its slope); then
+ * dq/dT = g·dT_s/dT with dT_s/dT = −(∂f/∂T)/(∂f/∂T_s), g = (A_out/A_in)·q_side'(T_s) (without k(T) this is the series
+ * conductance g/(1 + R·g)).
  */
 import type { Table } from './table.ts';
-import { evalTable } from './table.ts';
+import { evalTableWithSlope } from './table.ts';
 import type { FootprintMm } from './problem.ts';
 import { mmToM } from './units.ts';
 import { STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
 import { verticalPlateLoss } from './vertical-plate.ts';
 
 export const edgeLossDefaults = {
-  /** Sleeve surface temperature converged to this, K: far below any tolerance of the run, far above round-off. */
-  surfaceToleranceK: 1e-9,
-  /** Newton iterations for the sleeve surface; it converges in 3–6 (monotone balance), bisection steps guard it. */
+  /**
+   * The sleeve's surface temperature is taken once a Newton move is below this, K: Newton converges quadratically, so
+   * the error left is of the order of its square (1e-12 K), far below any tolerance of the run.
+   */
+  surfaceToleranceK: 1e-6,
+  /** Newton iterations for the sleeve surface: 2–3 from the cell's last surface, ~6 cold; bisection steps guard it. */
   maxSurfaceIterations: 60,
 } as const;
 
@@ -95,36 +99,50 @@ function surfaceLoss(loss: EdgeLoss, tK: number, out: Float64Array): number {
 }
 
 const surface = new Float64Array(1);
+const kSlope = new Float64Array(1);
 
 /**
  * Heat leaving one square metre of side wall whose inside is at tK, W/m², with dq/dT (W·m⁻²·K⁻¹) in out[0]: the
- * bare surface, or through the sleeve to its outer surface. Overwrites out[0]; allocates nothing.
+ * bare surface, or through the sleeve to its outer surface. out[1] is, on entry, a start for the sleeve's surface
+ * temperature (K; used if it lies between tK and the ambient, e.g. the last one of the same cell) and, on exit, the
+ * surface temperature found. Overwrites out[0], out[1]; allocates nothing.
  */
 export function sideLoss(loss: EdgeLoss, tK: number, out: Float64Array): number {
   const sleeve = loss.sleeve;
-  if (!sleeve) return surfaceLoss(loss, tK, out);
+  if (!sleeve) {
+    out[1] = tK;
+    return surfaceLoss(loss, tK, out);
+  }
   const { areaRatio, resistanceTimesK } = sleeve;
   const ambient = loss.ambientK;
   // the surface lies between the inside and the ambient: a bracket for the safeguarded Newton
   let lo = Math.min(tK, ambient);
   let hi = Math.max(tK, ambient);
-  let ts = 0.5 * (tK + ambient);
-  let r = 0;
+  const start = out.length > 1 ? out[1]! : NaN;
+  let ts = start >= lo && start <= hi ? start : 0.5 * (tK + ambient);
+  let conductance = 0;
   let g = 0;
+  let dfdT = 0;
+  let dfdTs = -1;
   for (let it = 0; it < edgeLossDefaults.maxSurfaceIterations; it++) {
-    r = resistanceTimesK / evalTable(sleeve.conductivity, 0.5 * (tK + ts));
+    const k = evalTableWithSlope(sleeve.conductivity, 0.5 * (tK + ts), kSlope);
+    conductance = k / resistanceTimesK;
+    const halfSlope = (0.5 * (tK - ts) * kSlope[0]!) / resistanceTimesK;
     const phi = areaRatio * surfaceLoss(loss, ts, surface);
     g = areaRatio * surface[0]!;
-    const f = (tK - ts) / r - phi; // decreasing in ts
-    if (f > 0) lo = ts; else hi = ts;
-    let next = ts + f / (1 / r + g);
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    const f = (tK - ts) * conductance - phi;
+    dfdT = conductance + halfSlope;
+    dfdTs = -conductance + halfSlope - g;
+    if ((f > 0) === (dfdTs < 0)) lo = ts; else hi = ts;
+    let next = ts - f / dfdTs;
+    if (!(next >= lo && next <= hi)) next = 0.5 * (lo + hi);
     const moved = Math.abs(next - ts);
     ts = next;
     if (moved <= edgeLossDefaults.surfaceToleranceK) break;
   }
-  out[0] = g / (1 + r * g);
-  return (tK - ts) / r;
+  out[0] = (-g * dfdT) / dfdTs;
+  if (out.length > 1) out[1] = ts;
+  return (tK - ts) * conductance;
 }
 
 /** The edge term of a cell at tK: heat into the cell, W/m³ (negative: lost), with its slope in out[0] (W·m⁻³·K⁻¹). */

@@ -29,7 +29,11 @@ export type TermChannel = 'generated' | 'edge';
 
 export const termChannel = (term: CellHeatTerm): TermChannel => (term.kind === 'edge' ? 'edge' : 'generated');
 
-/** Heat into a cell at tK from one term, W/m³, with ∂s/∂T (W·m⁻³·K⁻¹) in out[0]. Overwrites out[0]; allocates nothing. */
+/**
+ * Heat into a cell at tK from one term, W/m³, with ∂s/∂T (W·m⁻³·K⁻¹) in out[0]. out[1] carries a term's own warm
+ * start for this cell in and out (the edge term's sleeve surface temperature; NaN: none); the result does not depend on
+ * it beyond round-off. Overwrites out[0] (and out[1] for an edge term); allocates nothing.
+ */
 export function cellTermRate(term: CellHeatTerm, tK: number, out: Float64Array): number {
   if (term.kind === 'linear') {
     out[0] = term.bWPerM3K;
