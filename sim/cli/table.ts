@@ -7,6 +7,7 @@ import { convectionNote } from '../observe/convection-note.ts';
 import type { ExpectationOutcome } from '../scenario/expect.ts';
 import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../observe/format.ts';
 import type { Problem } from '../physics/problem.ts';
+import { accuracyLine } from '../scenario/accuracy.ts';
 import type { RunRecord } from '../observe/record.ts';
 import type { Summary } from '../observe/verdict.ts';
 import {
@@ -77,6 +78,7 @@ export function summaryTable(problem: Problem, summary: Summary, record: RunReco
   lines.push('');
   lines.push(`  ${verdictTerms.energy.term}: in ${formatEnergy(e.in_J_m2)}, out ${formatEnergy(e.out_J_m2)}, stored ${formatEnergy(e.stored_J_m2)}, imbalance ${formatImbalance(e.imbalance_rel)}`);
   lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${extras.steps ?? record.tS.length - 1} ${terms.step.term}s`);
+  lines.push(`  ${accuracyLine(problem.numerics.accuracy)}`);
   lines.push(...expectationLines(extras.expectations ?? []));
   if (extras.requirements?.length) lines.push('', ...extras.requirements);
   const note = convectionSentence(problem, record);

@@ -19,6 +19,8 @@ import { hasEdgeTerms } from '../physics/heat-terms.ts';
 import type { SeparatorTrace } from './record-trace.ts';
 import { createTraceRecorder } from './record-trace.ts';
 import { RowStore } from './row-store.ts';
+import type { HeaterRecord } from './record-heater.ts';
+import { createHeaterRecorder, hasHeater } from './record-heater.ts';
 import { kToC, mToMm } from '../physics/units.ts';
 
 export type { SeparatorTrace } from './record-trace.ts';
@@ -58,8 +60,11 @@ export interface EnergyLedger {
   /** Heat in and out through the side walls, J/m², split by sign of each step's exchange; absent without edge losses. */
   readonly edgeInJ?: number;
   readonly edgeOutJ?: number;
-  /** Change of stored enthalpy (sensible + latent), J/m². */
+  /** Change of stored enthalpy (sensible + latent; with a heater, its plate's too), J/m². */
   readonly storedJ: number;
+  /** Electric heat into the heater plates, and the plates' share of storedJ, J/m² (present only with a heater). */
+  readonly heaterJ?: number;
+  readonly plateStoredJ?: number;
 }
 
 export interface RunRecord {
@@ -78,6 +83,8 @@ export interface RunRecord {
   readonly probes: { readonly xMm: readonly number[]; readonly tS: readonly number[]; readonly tC: number[][] };
   readonly energy: EnergyLedger;
   readonly warnings: readonly string[];
+  /** The heaters' power and plate temperature per row, and their totals (present only with a heater face). */
+  readonly heater?: HeaterRecord;
 }
 
 interface RangeTracker { low: number; high: number; outside: boolean; filmLowK: number; filmHighK: number }
@@ -104,6 +111,9 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
   const layerAt = new Int32Array(layerCount);
   let width = 3;
   problem.layers.forEach((l, li) => { layerAt[li] = width; width += l.material.melt ? 4 : 3; });
+  const heater = hasHeater(problem) ? createHeaterRecorder() : undefined;
+  const heaterAt = width;
+  if (heater) width += 2;
   const mapAt = width;
   if (full) width += nodes;
   const budget = full ? Math.max(2, Math.min(recordDefaults.seriesPoints, Math.floor(recordDefaults.mapValues / nodes))) : 0;
@@ -220,6 +230,7 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
       trace?.add(buf.Ug, step.tg);
       trace?.add(buf.U1, step.t1);
     }
+    heater?.onStep(step);
     storedEnd = storedOf(buf.U1);
     // a summary keeps only the first, the last and each layer's peak row: find out cheaply whether this is one
     let wanted = full || first || step.t1 >= problem.durationS;
@@ -230,6 +241,7 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
     if (wanted) {
       const row = rows.row;
       fillRow(row, T, buf.U1, step.t1);
+      if (heater) { row[heaterAt] = heater.latest.powerW; row[heaterAt + 1] = kToC(heater.latest.plateK); }
       rows.commit();
       if (first) rows.hold('latest');
       holdPeaks(row);
@@ -276,8 +288,9 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
       map: ndarray(map, [full ? kept.rows : 0, nodes]),
       separator: separator?.trace,
       probes: { xMm: probeX, tS: probeTimesSeen, tC: probeT },
-      energy: { ...energy, ...(edges ? edgeEnergy : {}), storedJ: storedEnd - storedStart },
+      energy: { ...energy, ...(edges ? edgeEnergy : {}), ...heater?.ledger, storedJ: storedEnd - storedStart + (heater?.ledger.plateStoredJ ?? 0) },
       warnings,
+      ...(heater ? { heater: heater.finish(column(heaterAt), column(heaterAt + 1)) } : {}),
     };
   }
 

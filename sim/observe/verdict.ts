@@ -43,7 +43,14 @@ export interface Summary {
     readonly in_J_m2: number; readonly out_J_m2: number; readonly stored_J_m2: number; readonly imbalance_rel: number;
     /** Heat in and out through the side walls (edge losses; present only when the scenario has them), J/m². */
     readonly edge_in_J_m2?: number; readonly edge_out_J_m2?: number;
+    /** Electric heat into the heater plates (part of in_J_m2; present only with a heater), J/m². */
+    readonly heater_J_m2?: number;
   };
+  /**
+   * The heater (an addition to the contract; present only with a heater face): its electric energy, J; its duty cycle,
+   * that energy over what full power would have given while it was under the stack; that time, s; the hottest plate.
+   */
+  readonly heater?: { readonly energy_J: number; readonly duty_cycle: number; readonly under_stack_s: number; readonly plate_peak_C: number };
 }
 
 /**
@@ -167,7 +174,8 @@ export function summarize(problem: Problem, record: RunRecord): Summary {
   const e = record.energy;
   const edgeIn = e.edgeInJ ?? 0;
   const edgeOut = e.edgeOutJ ?? 0;
-  const inJ = e.bottomInJ + e.topInJ + Math.max(e.sourceJ, 0) + edgeIn;
+  const heaterJ = e.heaterJ ?? 0;
+  const inJ = e.bottomInJ + e.topInJ + Math.max(e.sourceJ, 0) + edgeIn + heaterJ;
   const outJ = e.bottomOutJ + e.topOutJ + Math.max(-e.sourceJ, 0) + edgeOut;
   const edges = e.edgeInJ === undefined ? {} : { edge_in_J_m2: edgeIn, edge_out_J_m2: edgeOut };
   const scale = Math.max(inJ, outJ, Math.abs(e.storedJ), Number.MIN_VALUE);
@@ -178,6 +186,21 @@ export function summarize(problem: Problem, record: RunRecord): Summary {
     safe_window_s: status === 'ok' && half !== null && heatOff !== null ? half - heatOff : null,
     safe_window_status: status,
     binding_layer: binding,
-    energy: { in_J_m2: inJ, out_J_m2: outJ, stored_J_m2: e.storedJ, imbalance_rel: Math.abs(e.storedJ - (inJ - outJ)) / scale, ...edges },
+    energy: {
+      in_J_m2: inJ, out_J_m2: outJ, stored_J_m2: e.storedJ, imbalance_rel: Math.abs(e.storedJ - (inJ - outJ)) / scale, ...edges,
+      ...(e.heaterJ === undefined ? {} : { heater_J_m2: heaterJ }),
+    },
+    ...(record.heater ? { heater: heaterVerdict(problem, record.heater, heaterJ) } : {}),
+  };
+}
+
+/** The heater's energy (J, over the footprint), duty cycle and hottest plate, from the record (record-heater.ts). */
+function heaterVerdict(problem: Problem, h: NonNullable<RunRecord['heater']>, heaterJPerM2: number): NonNullable<Summary['heater']> {
+  const area = problem.footprint?.areaM2 ?? 0;
+  return {
+    energy_J: heaterJPerM2 * area,
+    duty_cycle: h.fullPowerJ > 0 ? heaterJPerM2 / h.fullPowerJ : 0,
+    under_stack_s: h.attachedS,
+    plate_peak_C: Number.isFinite(h.plateMaxK) ? kToC(h.plateMaxK) : kToC(problem.initialK),
   };
 }

@@ -48,6 +48,10 @@ export interface Melt {
   /** The table rows those come from, K: the solid is read at T ≤ solidTableK, the liquid at T ≥ liquidTableK. */
   readonly solidTableK: number;
   readonly liquidTableK: number;
+  /** Half-width of the melt ramp, K (melt-ramp.ts); absent or 0: the curve has its kinks. */
+  readonly rampK?: number | undefined;
+  /** With a ramp: the unramped curve, from which the liquid fraction is read (the same enthalpies as without it). */
+  readonly lever?: EnthalpyCurve | undefined;
 }
 
 export interface Limit {
@@ -230,10 +234,14 @@ export function withEnthalpyOrigin(material: Material, originJ: number): Materia
   const e = material.enthalpy;
   const shift = (a: Float64Array) => Float64Array.from(a, (v) => v - originJ);
   const melt = material.melt;
+  const moved = (c: EnthalpyCurve): EnthalpyCurve => ({ tK: c.tK, h: shift(c.h), cLeft: c.cLeft, cRight: c.cRight, kinks: shift(c.kinks) });
   return {
     ...material,
-    enthalpy: { tK: e.tK, h: shift(e.h), cLeft: e.cLeft, cRight: e.cRight, kinks: shift(e.kinks) },
-    melt: melt ? { ...melt, hSolidus: melt.hSolidus - originJ, hLiquidus: melt.hLiquidus - originJ } : undefined,
+    enthalpy: moved(e),
+    melt: melt ? {
+      ...melt, hSolidus: melt.hSolidus - originJ, hLiquidus: melt.hLiquidus - originJ,
+      lever: melt.lever ? moved(melt.lever) : undefined,
+    } : undefined,
   };
 }
 
@@ -293,6 +301,8 @@ export function temperatureOf(curve: EnthalpyCurve, hJ: number, hint: number, ou
   return i;
 }
 
+const leverScratch = new Float64Array(2);
+
 /** Liquid fraction in [0, 1] from H (J/m³) and its T (K): linear in T over the mushy range, linear in H on a jump. */
 export function liquidFractionOf(material: Material, hJ: number, tK: number): number {
   const melt = material.melt;
@@ -300,7 +310,10 @@ export function liquidFractionOf(material: Material, hJ: number, tK: number): nu
   if (hJ <= melt.hSolidus) return 0;
   if (hJ >= melt.hLiquidus) return 1;
   if (melt.liquidusK === melt.solidusK) return (hJ - melt.hSolidus) / (melt.hLiquidus - melt.hSolidus);
-  return (tK - melt.solidusK) / (melt.liquidusK - melt.solidusK);
+  // with a melt ramp tK is the ramped temperature: the lever rule reads the unramped curve at the same enthalpy
+  let t = tK;
+  if (melt.lever) { temperatureOf(melt.lever, hJ, 0, leverScratch); t = leverScratch[0]!; }
+  return (t - melt.solidusK) / (melt.liquidusK - melt.solidusK);
 }
 
 /** Sensible volumetric heat capacity ρ·c_p(T), J·m⁻³·K⁻¹, used to scale enthalpy errors to kelvin. */

@@ -125,6 +125,30 @@ const contactSchema = z.strictObject({
 
 const plateSchema = z.strictObject({ temperature_C: celsius(), conductance_W_m2K: positive() });
 
+/**
+ * A heater with a body (an addition to the contract; physics/heater.ts): a plate of a named material and thickness
+ * under the footprint, an electric power limit, a contact conductance to the face, an optional loss to the ambient,
+ * and its control. The set-point is one number in the control, or a schedule of ramps and holds in `set_points`.
+ */
+const heaterSchema = z.strictObject({
+  power_W: positive(),
+  plate: z.strictObject({ material: shortName(), thickness_mm: positive() }),
+  contact_W_m2K: positive(),
+  loss_W_m2K: nonNegative().optional(),
+  control: z.discriminatedUnion('kind', [
+    z.strictObject({ kind: z.literal('constant') }),
+    z.strictObject({
+      kind: z.literal('on-off'),
+      set_point_C: celsius().optional(),
+      band_K: positive(),
+      /** "plate", or a layer id (its mean temperature). */
+      sensor: shortName(),
+    }),
+  ], { error: 'must be { "kind": "constant" } or { "kind": "on-off", "band_K": …, "sensor": "plate" or a layer id }' }),
+  set_points: z.array(z.strictObject({ at_s: timeS(), set_point_C: celsius() })).min(1, { error: 'must hold at least one point' }).optional(),
+});
+export type HeaterFile = z.infer<typeof heaterSchema>;
+
 /** One segment of a face schedule: the sum of its terms holds from `from_s` until the next segment. */
 const faceSegmentSchema = z.strictObject({
   from_s: timeS(),
@@ -139,6 +163,7 @@ const faceSegmentSchema = z.strictObject({
   surroundings_C: celsius().optional(),
   plate: plateSchema.optional(),
   fixed_C: celsius().optional(),
+  heater: heaterSchema.optional(),
 });
 
 const footprintSchema = z.union([

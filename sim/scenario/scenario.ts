@@ -8,6 +8,7 @@ import type { Material } from '../physics/material.ts';
 import { layerHeatSources } from './heat-sources.ts';
 import { edgeTerms } from './edge-terms.ts';
 import { inlineMaterial } from './material-kinds.ts';
+import { heaterCondition } from './heater-input.ts';
 import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from '../physics/problem.ts';
 import { footprintGeometry } from '../physics/problem.ts';
 import { capErrors, formatPath, formatZodIssue, nearestWord, quote, type FieldError } from './field-errors.ts';
@@ -110,7 +111,7 @@ function footprintOf(f: ScenarioFile['footprint']): Footprint | undefined {
 }
 
 function faceSchedule(segments: readonly FaceSegmentFile[], side: 'bottom' | 'top', s: ScenarioFile,
-  footprint: Footprint | undefined, errors: FieldError[]): FaceSegment[] {
+  footprint: Footprint | undefined, materials: ReadonlyMap<string, Material>, errors: FieldError[]): FaceSegment[] {
   const ambientK = cToK(s.ambient_C);
   return segments.map((seg, i) => {
     const path = `${side}[${i}]`;
@@ -121,7 +122,9 @@ function faceSchedule(segments: readonly FaceSegmentFile[], side: 'bottom' | 'to
       errors.push({ path: `${path}.from_s`, message: `must be ≤ duration_s (${s.duration_s}), got ${seg.from_s}` });
     }
     let condition: FaceCondition;
-    if (seg.fixed_C !== undefined) {
+    if (seg.heater !== undefined) {
+      condition = heaterCondition(seg, path, s, footprint, materials, errors);
+    } else if (seg.fixed_C !== undefined) {
       const others = (['flux_W_m2', 'power_W', 'convection_W_m2K', 'fluid_C', 'emissivity', 'surroundings_C', 'plate'] as const)
         .filter((k) => seg[k] !== undefined);
       if (others.length > 0) {
@@ -251,8 +254,8 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
   const contacts = contactResistances(s, errors);
   const footprint = footprintOf(s.footprint);
   const edge = edgeTerms(s, materials, errors);
-  const bottom = faceSchedule(s.bottom, 'bottom', s, footprint, errors);
-  const top = faceSchedule(s.top, 'top', s, footprint, errors);
+  const bottom = faceSchedule(s.bottom, 'bottom', s, footprint, materials, errors);
+  const top = faceSchedule(s.top, 'top', s, footprint, materials, errors);
   const totalMm = s.layers.reduce((a, l) => a + l.thickness_mm, 0);
   const times = s.output?.times_s ?? [];
   times.forEach((t, i) => {
