@@ -8,6 +8,7 @@ import type { EvolveEnd, EvolveOptions, EvolveStats } from './time/evolve.ts';
 import { evolve } from './time/evolve.ts';
 import type { Grid } from './grid/mesh.ts';
 import { buildGrid } from './grid/mesh.ts';
+import { withMeltRamp } from './physics/melt-ramp.ts';
 import type { Problem } from './physics/problem.ts';
 import type { RecordDetail, RunRecord } from './observe/record.ts';
 import { createRecorder } from './observe/record.ts';
@@ -28,8 +29,20 @@ export type RunOutcome =
   | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: EvolveStats }
   | { readonly status: 'cancelled'; readonly tS: number };
 
-export function runProblem(problem: Problem, options: RunOptions = {}): RunOutcome {
-  const grid = buildGrid(problem, options.refine ?? 1);
+/**
+ * The problem as solved: with its accuracy plan's melt ramp applied to every melting layer (scenario/accuracy.ts;
+ * the ramp is 0 at the defaults and whenever the file sets its own tolerances).
+ */
+export function solvedProblem(problem: Problem): Problem {
+  const rampK = problem.numerics.accuracy?.meltRampK ?? 0;
+  if (rampK === 0) return problem;
+  return { ...problem, layers: problem.layers.map((l) => ({ ...l, material: withMeltRamp(l.material, rampK) })) };
+}
+
+export function runProblem(asWritten: Problem, options: RunOptions = {}): RunOutcome {
+  const problem = solvedProblem(asWritten);
+  // the plan's grid factor (1 at the defaults) times a refinement study's own
+  const grid = buildGrid(problem, (options.refine ?? 1) * (problem.numerics.accuracy?.gridRefine ?? 1));
   const recorder = createRecorder(problem, grid, { detail: options.detail ?? 'full' });
   const loop = evolve(problem, grid, options);
   let end: EvolveEnd;

@@ -19,6 +19,16 @@ export interface ResultDocument {
     readonly faces: { readonly bottom_C: readonly number[]; readonly top_C: readonly number[] };
   };
   readonly solver: { readonly cells: number; readonly steps: number; readonly rejected_steps: number; readonly newton_iterations: number };
+  /**
+   * The accuracy the run was solved to (an addition to the contract; scenario/accuracy.ts): the accuracy asked of the
+   * verdict times, the refinement level chosen for it, its grid factor and tolerance divisor, the tolerances used, the
+   * melt ramp, and the event-time error the rule expects there (modelled, not measured). event_accuracy_s is null
+   * for a problem built without a scenario file.
+   */
+  readonly numerics: {
+    readonly event_accuracy_s: number | null; readonly level: number; readonly grid_refine: number; readonly tolerance_divisor: number;
+    readonly tolerance_K: number; readonly liquid_fraction_tolerance: number; readonly melt_ramp_K: number; readonly expected_error_s: number | null;
+  };
 }
 
 export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, summary: Summary, stats: EvolveStats): ResultDocument {
@@ -32,9 +42,19 @@ export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, 
     probes: { x_mm: record.probes.xMm, label: problem.probeLabels, t_s: record.probes.tS, T_C: record.probes.tC },
     series: { t_s: Array.from(record.tS), layers, faces: { bottom_C: Array.from(record.bottomC), top_C: Array.from(record.topC) } },
     solver: { cells: grid.n, steps: stats.steps, rejected_steps: stats.rejected, newton_iterations: stats.newtonIterations },
+    numerics: numericsKeys(problem),
   };
   assertFinite(doc, 'result');
   return doc;
+}
+
+function numericsKeys(problem: Problem): ResultDocument['numerics'] {
+  const { accuracy, toleranceK, liquidFractionTolerance } = problem.numerics;
+  return {
+    event_accuracy_s: accuracy?.eventAccuracyS ?? null, level: accuracy?.level ?? 0, grid_refine: accuracy?.gridRefine ?? 1,
+    tolerance_divisor: accuracy?.toleranceDivisor ?? 1, tolerance_K: toleranceK, liquid_fraction_tolerance: liquidFractionTolerance,
+    melt_ramp_K: accuracy?.meltRampK ?? 0, expected_error_s: accuracy?.expectedErrorS ?? null,
+  };
 }
 
 /** Throws if any number in a JSON-like value is NaN or infinite (null is allowed: it means "never"). */

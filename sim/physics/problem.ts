@@ -97,6 +97,31 @@ export interface Numerics {
   readonly separatorCellsPerMm: number;
   readonly minSeparatorCells: number;
   readonly maxStepS: number;
+  /**
+   * The accuracy the run is solved to (scenario/accuracy.ts: numerics.event_accuracy_s → grid and tolerances). The
+   * tolerances above are already divided for it; the grid factor and the melt ramp are applied by runProblem().
+   * Absent for a Problem built by hand: the settings above, as they are.
+   */
+  readonly accuracy?: AccuracyPlan | undefined;
+}
+
+/** The settings chosen for an accuracy asked in seconds (scenario/accuracy.ts). */
+export interface AccuracyPlan {
+  /** The accuracy asked of the verdict times, s. */
+  readonly eventAccuracyS: number;
+  /** Refinement level (0 = the defaults). */
+  readonly level: number;
+  /** Cells multiplied by this (1 when the file gives its own grid). */
+  readonly gridRefine: number;
+  /** Tolerances divided by this (1 when the file gives its own tolerances). */
+  readonly toleranceDivisor: number;
+  /** Half-width of the melt ramp, K (physics/melt-ramp.ts; 0: the enthalpy curve as written). */
+  readonly meltRampK: number;
+  /** The event-time error the rule expects at this level, s (modelled, not measured). */
+  readonly expectedErrorS: number;
+  /** The file set its own grid / its own tolerances (expert keys win: used as given). */
+  readonly ownGrid: boolean;
+  readonly ownTolerances: boolean;
 }
 
 export interface Problem {
