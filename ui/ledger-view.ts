@@ -16,7 +16,7 @@ export function renderLedger(root: HTMLElement, r: ShownResult): void {
   const e = r.record.energy;
   const area = r.areaM2;
   // about 6 significant figures on the largest term, the same decimals for all (round-off shows as 0, not 4e-18)
-  const terms = [e.bottomInJ, e.topInJ, e.sourceJ, e.bottomOutJ, e.topOutJ, e.storedJ].map(Math.abs);
+  const terms = [e.bottomInJ, e.topInJ, e.sourceJ, e.bottomOutJ, e.topOutJ, e.storedJ, e.edgeInJ ?? 0, e.edgeOutJ ?? 0].map(Math.abs);
   const places = (scale: number): number => {
     const big = Math.max(...terms) * scale;
     return big > 0 && Number.isFinite(big) ? Math.max(0, ledgerDefaults.significant - 1 - Math.floor(Math.log10(big))) : 0;
@@ -35,6 +35,8 @@ export function renderLedger(root: HTMLElement, r: ShownResult): void {
       row('heat from sources in layers', e.sourceJ),
       row('heat out, bottom face', e.bottomOutJ),
       row('heat out, top face', e.topOutJ),
+      // the side walls' channel exists only when the scenario has edge losses (key edges)
+      ...(e.edgeOutJ === undefined ? [] : [row('heat in, side walls (edges)', e.edgeInJ ?? 0), row('heat out, side walls (edges)', e.edgeOutJ)]),
       row('stored at the end (sensible + latent)', e.storedJ))),
   h('p', { class: 'note' }, `Imbalance (in − out − stored) relative to the largest term: ${formatNumber(r.summary.energy.imbalance_rel, { significant: 2 })}.`));
 }
