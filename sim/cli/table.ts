@@ -7,6 +7,7 @@ import { convectionNote } from '../observe/convection-note.ts';
 import type { ExpectationOutcome } from '../scenario/expect.ts';
 import { formatEnergy, formatImbalance, formatMargin, formatNumber, formatTemperature, formatTime } from '../observe/format.ts';
 import type { Problem } from '../physics/problem.ts';
+import { accuracyLine } from '../scenario/accuracy.ts';
 import type { RunRecord } from '../observe/record.ts';
 import type { Summary } from '../observe/verdict.ts';
 import {
@@ -79,6 +80,7 @@ export function summaryTable(problem: Problem, summary: Summary, record: RunReco
   // the edge channel (scenario key edges) is part of in and out above; shown on its own when the run has it
   if (e.edge_out_J_m2 !== undefined) lines.push(`    of which through the side walls (edges): in ${formatEnergy(e.edge_in_J_m2 ?? 0)}, out ${formatEnergy(e.edge_out_J_m2)}`);
   lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${extras.steps ?? record.tS.length - 1} ${terms.step.term}s`);
+  lines.push(`  ${accuracyLine(problem.numerics.accuracy)}`);
   lines.push(...expectationLines(extras.expectations ?? []));
   if (extras.requirements?.length) lines.push('', ...extras.requirements);
   const note = convectionSentence(problem, record);

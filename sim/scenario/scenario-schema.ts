@@ -10,6 +10,7 @@ import { z } from 'zod';
 import { LIMIT_KINDS } from '../physics/material.ts';
 import { ZERO_CELSIUS_K } from '../physics/units.ts';
 import { scenarioLimitDefaults as LIMIT } from './scenario-limits.ts';
+import { accuracyDefaults } from './accuracy.ts';
 import { compositeSchema, heatPerKgSchema, jouleSchema, pelletSchema, saltMixtureSchema } from './rig-schema.ts';
 import { edgesSchema } from './edge-schema.ts';
 
@@ -216,6 +217,10 @@ export const scenarioSchema = z.strictObject({
     separator_cells_per_mm: positive().optional(),
     min_separator_cells: z.number().int().gte(1).optional(),
     max_step_s: positive().optional(),
+    /** Accuracy wanted on the verdict times, s: the grid and the tolerances are chosen for it (scenario/accuracy.ts). */
+    event_accuracy_s: z.number().gte(accuracyDefaults.minEventAccuracyS, {
+      error: `must be ≥ ${accuracyDefaults.minEventAccuracyS} s (accuracyDefaults.minEventAccuracyS: finer needs more cells than a run may hold)`,
+    }).optional(),
   }).optional(),
 });
 

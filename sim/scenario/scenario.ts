@@ -15,6 +15,7 @@ import { capErrors, formatPath, formatZodIssue, nearestWord, quote, type FieldEr
 import { readJsonText } from './json-text.ts';
 import { libraryMaterial, unknownMaterialMessage } from './library.ts';
 import { scenarioLimitDefaults, sizeErrors, workErrors } from './scenario-limits.ts';
+import { applyAccuracy } from './accuracy.ts';
 import type { FaceSegmentFile, ScenarioFile } from './scenario-schema.ts';
 import { labelDepths, stackProbes } from '../grid/probes.ts';
 import { scenarioSchema } from './scenario-schema.ts';
@@ -245,7 +246,9 @@ function numericsOf(s: ScenarioFile): Numerics {
 }
 
 function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefined {
-  const numerics = numericsOf(s);
+  const planned = applyAccuracy(s, numericsOf(s));
+  if ('path' in planned) { errors.push(planned); return undefined; }
+  const numerics = planned;
   // cells and forced steps beyond the limits are refused alone: the rest of the file may be fine
   const work = workErrors(s, numerics);
   if (work.length > 0) { errors.push(...work); return undefined; }
