@@ -95,7 +95,7 @@ ${r.expectations.map((o) => `<tr${o.met ? '' : ' class="unmet"'}><td>${esc(o.met
 <h2>Charts</h2>
 ${temperatures}
 ${liquid}
-<p class="small">${esc(verdictTerms.energy.term)}: in ${esc(formatEnergy(e.in_J_m2))}, out ${esc(formatEnergy(e.out_J_m2))}, stored ${esc(formatEnergy(e.stored_J_m2))}, relative imbalance ${esc(formatImbalance(e.imbalance_rel))}.</p>
+<p class="small">${esc(verdictTerms.energy.term)}: in ${esc(formatEnergy(e.in_J_m2))}, out ${esc(formatEnergy(e.out_J_m2))}, stored ${esc(formatEnergy(e.stored_J_m2))}, relative imbalance ${esc(formatImbalance(e.imbalance_rel))}.${e.edge_out_J_m2 === undefined ? '' : ` Of which through the side walls (edges): in ${esc(formatEnergy(e.edge_in_J_m2 ?? 0))}, out ${esc(formatEnergy(e.edge_out_J_m2))}.`}</p>
 ${note ? `<p class="small">Note: ${esc(note)}</p>` : ''}
 ${record.warnings.filter((w) => !(note && isRayleighDetail(w))).map((w) => `<p class="small">Warning: ${esc(w)}</p>`).join('\n')}
 ${note ? `<details class="small"><summary>Convection details</summary>${record.warnings.filter(isRayleighDetail).map((w) => `<p>${esc(w)}</p>`).join('')}</details>` : ''}
