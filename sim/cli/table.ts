@@ -79,6 +79,10 @@ export function summaryTable(problem: Problem, summary: Summary, record: RunReco
   lines.push(`  ${verdictTerms.energy.term}: in ${formatEnergy(e.in_J_m2)}, out ${formatEnergy(e.out_J_m2)}, stored ${formatEnergy(e.stored_J_m2)}, imbalance ${formatImbalance(e.imbalance_rel)}`);
   // the edge channel (scenario key edges) is part of in and out above; shown on its own when the run has it
   if (e.edge_out_J_m2 !== undefined) lines.push(`    of which through the side walls (edges): in ${formatEnergy(e.edge_in_J_m2 ?? 0)}, out ${formatEnergy(e.edge_out_J_m2)}`);
+  const heater = summary.heater;
+  if (heater) {
+    lines.push(`  heater: ${formatNumber(heater.energy_J / 1e3, { significant: 3 })} kJ over ${formatTime(heater.under_stack_s, '')} under the stack, duty cycle ${formatNumber(100 * heater.duty_cycle, { decimals: 1 })} %, plate up to ${formatTemperature(heater.plate_peak_C, '')}`);
+  }
   lines.push(`  run: ${formatTime(problem.durationS, '')} simulated in ${extras.steps ?? record.tS.length - 1} ${terms.step.term}s`);
   lines.push(`  ${accuracyLine(problem.numerics.accuracy)}`);
   lines.push(...expectationLines(extras.expectations ?? []));

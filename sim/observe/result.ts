@@ -17,6 +17,11 @@ export interface ResultDocument {
     readonly t_s: readonly number[];
     readonly layers: Readonly<Record<string, { min_C: number[]; mean_C: number[]; max_C: number[]; liquid_fraction?: number[] }>>;
     readonly faces: { readonly bottom_C: readonly number[]; readonly top_C: readonly number[] };
+    /**
+     * The heater (an addition; present only with a heater face): the power during the step ending at each time, W,
+     * and the plate temperature, °C (null where no heater is under the stack: a lifted-off plate is not followed).
+     */
+    readonly heater?: { readonly power_W: readonly number[]; readonly plate_C: readonly (number | null)[] };
   };
   readonly solver: { readonly cells: number; readonly steps: number; readonly rejected_steps: number; readonly newton_iterations: number };
   /**
@@ -40,7 +45,10 @@ export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, 
   const doc: ResultDocument = {
     summary: { ...summary, warnings: record.warnings },
     probes: { x_mm: record.probes.xMm, label: problem.probeLabels, t_s: record.probes.tS, T_C: record.probes.tC },
-    series: { t_s: Array.from(record.tS), layers, faces: { bottom_C: Array.from(record.bottomC), top_C: Array.from(record.topC) } },
+    series: {
+      t_s: Array.from(record.tS), layers, faces: { bottom_C: Array.from(record.bottomC), top_C: Array.from(record.topC) },
+      ...(record.heater ? { heater: { power_W: Array.from(record.heater.powerW), plate_C: Array.from(record.heater.plateC, (c) => (Number.isNaN(c) ? null : c)) } } : {}),
+    },
     solver: { cells: grid.n, steps: stats.steps, rejected_steps: stats.rejected, newton_iterations: stats.newtonIterations },
     numerics: numericsKeys(problem),
   };
