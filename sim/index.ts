@@ -17,7 +17,7 @@ export * from './scenario/library.ts';
 export * from './scenario/scenario-limits.ts';
 export * from './scenario/scenario-schema.ts';
 export { inlineMaterial } from './scenario/material-kinds.ts';
-export type { Material, Melt } from './physics/material.ts';
+export type { Material, Melt, Table } from './physics/material.ts';
 export { liquidusModel } from './physics/salt.ts';
 export { kToC } from './physics/units.ts';
 export * from './physics/problem.ts';

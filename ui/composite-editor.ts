@@ -7,12 +7,12 @@
  * `composite-licl-<i>`, `composite-basis-<i>`, `composite-porosity-<i>`, `composite-fill-<i>`, and the computed
  * `composite-rho-<i>`, `composite-k-solid-<i>`, `composite-k-liquid-<i>`, `composite-latent-<i>`, `composite-melt-<i>`.
  */
-import { formatNumber, formatTemperature, inlineMaterial, kToC, libraryMaterial, libraryNames, liquidusModel,
-  materialEntrySchema, type FieldError, type Material } from '../sim/index.ts';
+import { formatNumber, formatTemperature, kToC, libraryMaterial, libraryNames, liquidusModel } from '../sim/index.ts';
 import type { DraftStore } from './draft.ts';
 import { append, h } from './dom.ts';
 import { fieldWrapper, numberField } from './fields.ts';
 import { asList, asObject, asString, isObject, type Json, type JsonObject } from './json.ts';
+import { modelledMaterial } from './materials.ts';
 
 export const compositeEditorDefaults = {
   /**
@@ -60,16 +60,6 @@ export function addComposite(draft: JsonObject, i: number): string {
   draft.materials[name] = { composite: { ...compositeEditorDefaults.start } };
   if (isObject(layer)) layer.material = name;
   return name;
-}
-
-/** The Material the core builds from the entry, or the core's errors about it. */
-export function compositeMaterial(draft: JsonObject, name: string): { ok: true; material: Material } | { ok: false; errors: string[] } {
-  const entry = asObject(draft.materials)[name];
-  const shape = materialEntrySchema.safeParse(entry);
-  if (!shape.success) return { ok: false, errors: ['a field of the entry is not filled in as the format asks (see the fields marked in red)'] };
-  const errors: FieldError[] = [];
-  const material = inlineMaterial(name, shape.data, `materials.${name}`, errors);
-  return material && errors.length === 0 ? { ok: true, material } : { ok: false, errors: errors.map((e) => e.message) };
 }
 
 const melts = (name: string): boolean => libraryMaterial(name)?.melt !== undefined;
@@ -151,7 +141,7 @@ const nameOf = (base: string): string => /^materials\.(.+)\.composite$/.exec(bas
 function effectiveView(store: DraftStore, name: string, i: number): { root: HTMLElement; update: () => void } {
   const root = h('div', { class: 'composite-effective', 'data-testid': `composite-effective-${i}` });
   const update = (): void => {
-    const built = compositeMaterial(store.current(), name);
+    const built = modelledMaterial(store.current(), name);
     if (!built.ok) {
       root.replaceChildren(h('span', { class: 'note' }, `Effective properties: not computed — ${built.errors.join('; ')}.`));
       return;

@@ -1,8 +1,10 @@
 /**
  * What the page needs to know about a material named in the draft: from the scenario's own `materials`, or from the
- * bundled library (with its sources). Only for display; the solver resolves materials itself.
+ * bundled library (with its sources). Only for display; the solver resolves materials itself. A material the file
+ * gives by a model (a salt-soaked matrix, a LiCl–KCl mixture) is built by the core (`inlineMaterial`), so the page
+ * shows the properties the run will use, not a second computation.
  */
-import { libraryFile, libraryNames } from '../sim/index.ts';
+import { inlineMaterial, kToC, libraryFile, libraryNames, materialEntrySchema, type FieldError, type Material, type Table } from '../sim/index.ts';
 import { asList, asNumber, asObject, asString, isObject, type Json, type JsonObject } from './json.ts';
 
 export interface MaterialLimit { readonly kind: string; readonly atC: number | undefined; readonly source?: string; readonly note?: string }
@@ -25,9 +27,9 @@ export interface MaterialChoice { readonly name: string; readonly label: string 
 /** The material names to offer: the file's own first, then the library. */
 export function materialChoices(draft: JsonObject): MaterialChoice[] {
   const own = asObject(draft.materials);
-  const inline = Object.keys(own).map((name) => ({
-    name, label: `${name} (${isObject(own[name]) && own[name].composite !== undefined ? 'salt-soaked matrix, ' : ''}in this file)`,
-  }));
+  const kind = (e: Json | undefined): string => (!isObject(e) ? '' : e.composite !== undefined ? 'salt-soaked matrix, '
+    : e.salt !== undefined ? 'LiCl–KCl mixture, ' : '');
+  const inline = Object.keys(own).map((name) => ({ name, label: `${name} (${kind(own[name])}in this file)` }));
   const library = libraryNames().map((name) => ({ name, label: name }));
   return [...inline, ...library];
 }
@@ -54,10 +56,35 @@ function sourcesOf(v: Json | undefined): Record<string, string> {
 
 const libraryCache = new Map<string, MaterialInfo>();
 
+/** The Material the core builds from the file's own entry of this name, or the core's words on why it cannot. */
+export function modelledMaterial(draft: JsonObject, name: string): { ok: true; material: Material } | { ok: false; errors: string[] } {
+  const shape = materialEntrySchema.safeParse(asObject(draft.materials)[name]);
+  if (!shape.success) return { ok: false, errors: ['a field of the entry is not filled in as the format asks (see the fields marked in red)'] };
+  const errors: FieldError[] = [];
+  const material = inlineMaterial(name, shape.data, `materials.${name}`, errors);
+  return material && errors.length === 0 ? { ok: true, material } : { ok: false, errors: errors.map((e) => e.message) };
+}
+
+/** A core table (K) as the file writes one: [[T_C, v], …]. */
+const tableJson = (t: Table): Json => Array.from(t.tK, (tK, j) => [kToC(tK), t.y[j]!]);
+
+function modelledInfo(name: string, m: Material): MaterialInfo {
+  return {
+    name, origin: 'file', title: m.title, k: tableJson(m.conductivity), rho: m.density, cp: tableJson(m.specificHeat),
+    melt: m.melt ? { solidusC: kToC(m.melt.solidusK), liquidusC: kToC(m.melt.liquidusK), latentJPerKg: m.melt.latentJPerKg } : undefined,
+    limits: m.limits.map((l) => ({ kind: l.kind, atC: kToC(l.atK), source: l.source, note: l.note })),
+    sources: { ...m.sources }, notes: undefined,
+  };
+}
+
 export function materialInfo(draft: JsonObject, name: string): MaterialInfo {
   const inline = asObject(draft.materials);
   if (Object.hasOwn(inline, name) && isObject(inline[name])) {
     const m = inline[name];
+    if (m.composite !== undefined || m.salt !== undefined) {
+      const built = modelledMaterial(draft, name);
+      if (built.ok) return modelledInfo(name, built.material);
+    }
     return {
       name, origin: 'file', title: asString(m.title) ?? name, k: m.k_W_mK, rho: m.rho_kg_m3, cp: m.cp_J_kgK,
       melt: meltOf(m.melt), limits: limitsOf(m.limits), sources: sourcesOf(m.sources), notes: asString(m.notes),

@@ -80,13 +80,16 @@ describe('ui/heat-off', () => {
     expect(rows[row!]!.from_s).toBe(heatOffTime(parsed.problem));
   });
 
-  it('heaterOffRow() still finds the row in a draft refused elsewhere (a thickness typed as text)', () => {
+  it('heaterOffRow() still finds the row in a refused draft (a thickness typed as text, then rows out of time order)', () => {
     const draft = JSON.parse(readFileSync(new URL('bench-coupon.json', dir), 'utf8')) as JsonObject;
     ((draft.layers as JsonObject[])[0]!).thickness_mm = 'abc';
     expect(parseScenario(draft).ok).toBe(false);
     const rows = draft.bottom as JsonObject[];
     // the example heats from the bottom with a plate, then rests in air (its own description)
     expect(rows[0]!.plate).toBeDefined();
+    expect(heaterOffRow(draft)).toBe(1);
+    // "heat off at" typed as 0 puts the row before the plate's start: the control must still point at it
+    rows[1]!.from_s = 0;
     expect(heaterOffRow(draft)).toBe(1);
   });
 
