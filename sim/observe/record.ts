@@ -13,7 +13,7 @@ import { AIR_TABLE_RANGE_K } from '../physics/air.ts';
 import type { StepReport } from '../time/evolve.ts';
 import { liquidFractionOf } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
-import { filmTemperature, naturalConvectionRanges, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
+import { facingOf, filmTemperature, naturalConvectionRanges, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
 import { characteristicLengthM, type FaceCondition, type Problem } from '../physics/problem.ts';
 import { hasEdgeTerms } from '../physics/heat-terms.ts';
 import type { SeparatorTrace } from './record-trace.ts';
@@ -206,7 +206,7 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
     const r = rayleighSeen[side];
     r.low = Math.min(r.low, ra);
     r.high = Math.max(r.high, ra);
-    if (!rayleighInRange(ra, plumeRisesFromFace(side === 'bottom' ? 'down' : 'up', faceK, c.fluidK))) r.outside = true;
+    if (!rayleighInRange(ra, plumeRisesFromFace(facingOf(side), faceK, c.fluidK))) r.outside = true;
     const film = filmTemperature(faceK, c.fluidK);
     r.filmLowK = Math.min(r.filmLowK, film);
     r.filmHighK = Math.max(r.filmHighK, film);
