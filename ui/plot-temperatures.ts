@@ -1,7 +1,8 @@
 /**
  * Temperature against time, per layer: the mean as a line, the min–max over the layer as a band; a labelled level
  * at each layer limit that lies near the curves (the binding limit always), the separator's solidus and liquidus,
- * and a vertical line where the heater is removed.
+ * and a vertical line where the heater is removed. With a heater body, its plate temperature as a line and its power
+ * (W, stepped: each value holds over the step that ends at it) on an axis of its own at the right.
  */
 import type { Annotation, Data, Shape } from 'plotly.js-dist-min';
 import { translucent } from './colours.ts';
@@ -46,6 +47,16 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
         hovertemplate: TEXT_ONLY,
       });
   });
+  const heater = record.heater;
+  if (heater) {
+    // NaN where the cell is off the heater (a lifted-off plate is not followed): a gap in the line
+    const plate = Array.from(heater.plateC, (c) => (Number.isNaN(c) ? null : c));
+    for (const c of plate) if (c !== null) { low = Math.min(low, c); high = Math.max(high, c); }
+    data.push(
+      { type: 'scatter', mode: 'lines', x, y: plate, line: { width: 1.5, color: '#9a3412', dash: 'dot' }, name: 'heater plate, °C', hovertemplate: 'heater plate %{y:.1f} °C<extra></extra>' },
+      { type: 'scatter', mode: 'lines', x, y: Array.from(heater.powerW), yaxis: 'y2', line: { width: 1, color: '#b45309', shape: 'vh' }, name: 'heater power, W', hovertemplate: 'heater power %{y:.0f} W<extra></extra>' },
+    );
+  }
   const shapes: Partial<Shape>[] = [];
   const annotations: Partial<Annotation>[] = [];
   const add = (l: { shape: Partial<Shape>; annotation: Partial<Annotation> }) => { shapes.push(l.shape); annotations.push(l.annotation); };
@@ -91,7 +102,8 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
     layout: baseLayout('temperature, °C', axis, {
       hovermode: 'x unified',
       yaxis: { title: { text: 'temperature, °C' }, range: [low - pad, top + pad], zeroline: false, gridcolor: '#e4e8ec' },
-      margin: { l: 64, r: 24, t: 28, b: 48 },
+      ...(heater ? { yaxis2: { title: { text: 'heater power, W' }, overlaying: 'y', side: 'right', rangemode: 'tozero', showgrid: false } } : {}),
+      margin: { l: 64, r: heater ? 64 : 24, t: 28, b: 48 },
       shapes, annotations,
     }),
   };
