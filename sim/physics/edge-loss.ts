@@ -24,8 +24,7 @@
 import type { Table } from './table.ts';
 import { evalTableWithSlope } from './table.ts';
 import type { FootprintMm } from './problem.ts';
-import { mmToM } from './units.ts';
-import { STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
+import { mmToM, STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
 import { verticalPlateLoss } from './vertical-plate.ts';
 
 export const edgeLossDefaults = {
@@ -133,7 +132,8 @@ export function sideLoss(loss: EdgeLoss, tK: number, out: Float64Array): number 
     const f = (tK - ts) * conductance - phi;
     dfdT = conductance + halfSlope;
     dfdTs = -conductance + halfSlope - g;
-    if ((f > 0) === (dfdTs < 0)) lo = ts; else hi = ts;
+    // f > 0 at the bracket's low end and < 0 at its high end (T∞ and T, whichever is lower first)
+    if (f > 0) lo = ts; else hi = ts;
     let next = ts - f / dfdTs;
     if (!(next >= lo && next <= hi)) next = 0.5 * (lo + hi);
     const moved = Math.abs(next - ts);
