@@ -76,6 +76,34 @@ export function thermostat(spec: ThermostatSpec): Thermostat {
   };
 }
 
+/** The switches of a run, with each one's event value at the start of the current step. */
+export function createEventWatch(switches: readonly StateSwitch[]) {
+  const gStart = new Float64Array(switches.length);
+  const highest = (ws: Workspace, tS: number): number => switches.reduce((most, sw) => Math.max(most, sw.g(ws, tS)), -Infinity);
+  return {
+    /** The largest value at the step's start: below 0 every switch is armed (−∞ without switches). */
+    armed: (): number => gStart.reduce((a, g) => Math.max(a, g), -Infinity),
+    /** The largest event value at the state in ws: an event is due where it is ≥ 0. */
+    highest,
+    /**
+     * Fires every switch whose event is due at the state in ws, calling `reread` (re-read the conditions, settle the
+     * faces; false if they did not settle) after each round, at most maxRounds rounds; then keeps each switch's value
+     * as the start of the next step. False if `reread` failed.
+     */
+    fireDue(ws: Workspace, tS: number, reread: () => boolean, maxRounds: number): boolean {
+      if (switches.length === 0) return true;
+      for (let round = 0; round < maxRounds; round++) {
+        const due = switches.filter((sw) => sw.g(ws, tS) >= 0);
+        if (due.length === 0) break;
+        for (const sw of due) sw.fire(tS);
+        if (!reread()) return false;
+      }
+      switches.forEach((sw, k) => { gStart[k] = sw.g(ws, tS); });
+      return true;
+    },
+  };
+}
+
 export interface Located {
   /** The step length kept: the bracket's right end, where g ≥ 0. */
   readonly s: number;

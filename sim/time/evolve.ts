@@ -16,7 +16,7 @@ import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../ph
 import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
 import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
 import type { StateSwitch } from './events.ts';
-import { locateRise } from './events.ts';
+import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
 import { createPlateControl } from './plates.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
@@ -145,11 +145,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const source = new Float64Array(grid.n);
 
   const plates = createPlateControl(problem, grid, ws);
-  const switches = [...plates.switches, ...(options.switches ?? [])];
-  const gStart = new Float64Array(switches.length);
-  const plateSteps: [PlateStep, PlateStep] = [
-    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN }, { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN },
-  ];
+  const watch = createEventWatch([...plates.switches, ...(options.switches ?? [])]);
+  const plateSteps = plates.steps;
   const weights = backwardEuler ? [0, 0, 1] as const : WEIGHTS;
   /** The conditions at tS: the schedules, then each caller's switch's adjustment; the plates follow them. */
   const readConditions = (tS: number, before: StepConditions | undefined): StepConditions => {
@@ -158,8 +155,6 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     plates.attach(c, before);
     return c;
   };
-  /** The largest event function at the state in ws (an event is due where it is ≥ 0). */
-  const highestG = (tS: number): number => switches.reduce((most, sw) => Math.max(most, sw.g(ws, tS)), -Infinity);
 
   let t = 0;
   let nextBreak = 0;
@@ -186,21 +181,9 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       message: bottom || top || coldestK(ws.T) < 0 ? belowAbsoluteZeroMessage(problem, ws, cond, faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
     };
   };
-  /**
-   * Fires every switch whose event is due at the state in ws, re-reading the conditions and settling the faces after
-   * each round; then keeps each switch's value as the start of the next step. False if a face did not settle.
-   */
-  const fireDue = (tS: number): boolean => {
-    for (let round = 0; round < d.maxFiresAtOnce; round++) {
-      const due = switches.filter((sw) => sw.g(ws, tS) >= 0);
-      if (due.length === 0) break;
-      for (const sw of due) sw.fire(tS);
-      cond = readConditions(tS, cond);
-      if (!settle()) return false;
-    }
-    switches.forEach((sw, k) => { gStart[k] = sw.g(ws, tS); });
-    return true;
-  };
+  /** Fires the switches due at tS, re-reading the conditions and settling the faces (false if they did not settle). */
+  const fireDue = (tS: number): boolean =>
+    watch.fireDue(ws, tS, () => { cond = readConditions(tS, cond); return settle(); }, d.maxFiresAtOnce);
   if (!settle() || !fireDue(0)) return unsettled(0);
   // report the initial state as a step of zero length
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
@@ -247,8 +230,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     }
     if (atFloor && outcome.errorNorm > 1) stats.forced++;
     plates.afterTrial();
-    const armed = gStart.reduce((a, g) => Math.max(a, g), -Infinity);
-    const gEnd = armed < 0 ? highestG(t + step) : -Infinity;
+    const armed = watch.armed();
+    const gEnd = armed < 0 ? watch.highest(ws, t + step) : -Infinity;
     const switched = gEnd >= 0;
     if (switched) {
       // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
@@ -259,7 +242,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
         stats.eventTrials++;
         if (outcome.status !== 'ok') return undefined;
         plates.afterTrial();
-        return highestG(from + s);
+        return watch.highest(ws, from + s);
       };
       const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials);
       if (found.lastS !== found.s) trial(found.s);
@@ -314,7 +297,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       if (!settle()) return unsettled(t);
     }
     if (switched && adaptive) h = Math.min(h, d.stepAfterChangeS);
-    if (switches.length > 0 && !fireDue(t)) return unsettled(t);
+    if (!fireDue(t)) return unsettled(t);
   }
   return { status: 'ok', stats };
 }

@@ -83,9 +83,14 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
   });
   const switches: readonly StateSwitch[] = thermostats;
 
+  const steps: [PlateStep, PlateStep] = [
+    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN }, { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN },
+  ];
   return {
     switches,
     stats,
+    /** What each side's heater did over the last accepted step (commit() writes it; evolve's StepReport holds it). */
+    steps,
     /** New conditions from tS on (the start, a schedule change): powers follow each heater's control. */
     attach(next: StepConditions, previous: StepConditions | undefined): void {
       cond = next;
