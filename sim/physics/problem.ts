@@ -47,6 +47,11 @@ export interface SourceInterval {
   readonly toS: number;
   /** W/m³ */
   readonly value: number;
+  /**
+   * The layer's file field the interval came from, for messages and study labels: `source_W_m3[0]`, `pellet`,
+   * `joule`, `heat_W_kg[1]` (absent: `source_W_m3[k]` by its index).
+   */
+  readonly origin?: string;
 }
 
 export interface Layer {

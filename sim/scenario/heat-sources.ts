@@ -70,7 +70,7 @@ export function layerHeatSources(layer: LayerHeatInput, densityKgM3: number, thi
       if (from + burnS > durationS) {
         errors.push({ path: `${path}.pellet.${key}`, message: `the burn must end by duration_s (${durationS}): the run ends before it, got from_s + burn time = ${from + burnS}${key === 'burn_front_mm_s' ? ` (thickness ${mToMm(thicknessM)} mm / ${p.burn_front_mm_s} mm/s)` : ''}` });
       }
-      out.push({ fromS: from, toS: from + burnS, value: (densityKgM3 * jPerKg) / burnS });
+      out.push({ fromS: from, toS: from + burnS, value: (densityKgM3 * jPerKg) / burnS, origin: 'pellet' });
     }
   }
   const j = layer.joule;
@@ -78,16 +78,16 @@ export function layerHeatSources(layer: LayerHeatInput, densityKgM3: number, thi
     if (j.to_s > durationS) errors.push({ path: `${path}.joule.to_s`, message: `must be ≤ duration_s (${durationS}): the run ends before it, got ${j.to_s}` });
     if (!(j.to_s > j.from_s)) errors.push({ path: `${path}.joule.to_s`, message: `must be > from_s (${j.from_s}), got ${j.to_s}` });
     else if (!footprint) errors.push({ path: `${path}.joule`, message: 'needs the scenario\'s footprint (the heat is spread over footprint × thickness), got none' });
-    else out.push({ fromS: j.from_s, toS: j.to_s, value: (j.current_A * j.current_A * j.resistance_ohm) / (footprint.areaM2 * thicknessM) });
+    else out.push({ fromS: j.from_s, toS: j.to_s, value: (j.current_A * j.current_A * j.resistance_ohm) / (footprint.areaM2 * thicknessM), origin: 'joule' });
   }
   const w = layer.heat_W_kg;
   if (w !== undefined) {
-    if (typeof w === 'number') out.push({ fromS: 0, toS: durationS, value: densityKgM3 * w });
+    if (typeof w === 'number') out.push({ fromS: 0, toS: durationS, value: densityKgM3 * w, origin: 'heat_W_kg' });
     else {
       w.forEach((iv, i) => {
         if (iv.to_s > durationS) errors.push({ path: `${path}.heat_W_kg[${i}].to_s`, message: `must be ≤ duration_s (${durationS}): the run ends before it, got ${iv.to_s}` });
         if (!(iv.to_s > iv.from_s)) errors.push({ path: `${path}.heat_W_kg[${i}].to_s`, message: `must be > from_s (${iv.from_s}), got ${iv.to_s}` });
-        else out.push({ fromS: iv.from_s, toS: iv.to_s, value: densityKgM3 * iv.value });
+        else out.push({ fromS: iv.from_s, toS: iv.to_s, value: densityKgM3 * iv.value, origin: `heat_W_kg[${i}]` });
       });
     }
   }

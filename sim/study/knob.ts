@@ -45,8 +45,18 @@ export const powerDefaults = {
   aboveLimitK: 50,
 } as const;
 
+/** The file field a source interval came from (a pellet, Joule heat and W/kg are sources of the Problem too). */
+const sourceField = (problem: Problem, h: Extract<HeatInput, { kind: 'source' }>): string =>
+  problem.layers[h.layer]!.sources[h.interval]?.origin ?? `source_W_m3[${h.interval}]`;
+
+/** Where a source's end is set in the file: a pellet's end is from_s plus its burn time, not a key of its own. */
+const sourceEnd = (problem: Problem, h: Extract<HeatInput, { kind: 'source' }>): string => {
+  const field = sourceField(problem, h);
+  return field === 'pellet' ? `layers[${h.layer}].pellet (its end, from_s + burn time)` : `layers[${h.layer}].${field}.to_s`;
+};
+
 const where = (h: HeatInput, problem: Problem): string =>
-  (h.kind === 'face' ? `${h.side}[${h.segment}]` : `layers[${h.layer}] (${problem.layers[h.layer]!.id}).source_W_m3[${h.interval}]`);
+  (h.kind === 'face' ? `${h.side}[${h.segment}]` : `layers[${h.layer}] (${problem.layers[h.layer]!.id}).${sourceField(problem, h)}`);
 
 function lastOrError(problem: Problem): HeatInput | string {
   const last = lastHeatInput(problem);
@@ -77,7 +87,7 @@ export function holdKnob(problem: Problem): Knob | string {
   const afterS = problem.durationS - last.endS;
   const path = [
     ...faces.map((h) => `${h.side}[${h.next!}].from_s`),
-    ...sources.map((h) => `layers[${h.layer}].source_W_m3[${h.interval}].to_s`),
+    ...sources.map((h) => sourceEnd(problem, h)),
   ].join(', ');
   const apply = (value: number): Problem => {
     let p = problem;
@@ -119,7 +129,7 @@ export function powerKnob(problem: Problem): Knob | string {
     const hi = own * powerDefaults.stretch;
     const apply = (value: number) => withLayer(problem, last.layer,
       { ...layer, sources: layer.sources.map((s, k) => (k === last.interval ? { ...s, value } : s)) });
-    return { vary: 'power', path: `layers[${last.layer}].source_W_m3[${last.interval}].value`, label: 'heat source', unit: 'W/m³', lo: 0, hi, own, show: (v) => v, apply: checked(0, hi, apply) };
+    return { vary: 'power', path: `layers[${last.layer}].${sourceField(problem, last)}${layer.sources[last.interval]!.origin === undefined ? '.value' : ' (as W/m³)'}`, label: 'heat source', unit: 'W/m³', lo: 0, hi, own, show: (v) => v, apply: checked(0, hi, apply) };
   }
   const segments = problem[last.side];
   const c = segments[last.segment]!.condition;

@@ -38,6 +38,22 @@ describe('holdKnob()', () => {
     expect(heatOffTime(k.apply(250))).toBe(250);
   });
 
+  it('holdKnob() and powerKnob() name the file field a derived source came from: W/kg heat and a pellet, not source_W_m3', () => {
+    const perKg = slab({ material: PLAIN, thickness_mm: 2, duration_s: 1000, bottom: [{ from_s: 0, convection_W_m2K: 6 }] });
+    perKg.layers[0] = { ...perKg.layers[0]!, heat_W_kg: [{ from_s: 50, to_s: 400, value: 100 }] };
+    const k = holdKnob(parseOk(perKg));
+    if (typeof k === 'string') throw new Error(k);
+    expect(k.path).toBe('layers[0].heat_W_kg[0].to_s');
+    const pk = powerKnob(parseOk(perKg));
+    if (typeof pk === 'string') throw new Error(pk);
+    expect(pk.path).toBe('layers[0].heat_W_kg[0] (as W/m³)');
+    const pellet = slab({ material: PLAIN, thickness_mm: 2, duration_s: 1000, bottom: [{ from_s: 0, convection_W_m2K: 6 }] });
+    pellet.layers[0] = { ...pellet.layers[0]!, pellet: { heat_J_g: 1, burn_s: 20, from_s: 10 } };
+    const kp = holdKnob(parseOk(pellet));
+    if (typeof kp === 'string') throw new Error(kp);
+    expect([kp.path, kp.own]).toEqual(['layers[0].pellet (its end, from_s + burn time)', 30]);
+  });
+
   it('holdKnob() moves every heat input that ends at heat off together, and drops a source that would end before it starts', () => {
     const p = parseOk(slab({ material: PLAIN, thickness_mm: 2, duration_s: 1800,
       bottom: [plate, { from_s: 900, convection_W_m2K: 6 }], source_W_m3: [{ from_s: 300, to_s: 900, value: 1e5 }] }));
