@@ -12,6 +12,7 @@
 import type { LedgerChannel, StepConditions, Workspace } from '../grid/discretization.ts';
 import { CHANNEL_COUNT, evaluate, linearizeCellTerms, stageJacobian, stageResidual } from '../grid/discretization.ts';
 import { solveTridiagonal } from '../grid/tridiagonal.ts';
+import { cellKinks, stopAtKink } from './newton-kinks.ts';
 import { beginPlateStage } from './plates.ts';
 
 const SQRT2 = Math.SQRT2;
@@ -94,6 +95,7 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
   newton: NewtonSettings, outcome: StepOutcome): StepStatus {
   const { n } = ws;
   const m = n + 2;
+  const kinks = cellKinks(ws.grid.materials);
   let previous = Infinity;
   for (let iter = 0; iter < newton.maxIterations; iter++) {
     evaluate(ws, U, cond);
@@ -103,18 +105,26 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
     outcome.newtonIterations++;
     let worst = 0;
     let clipped = false;
-    for (let j = 0; j < m; j++) {
-      const dj = buf.delta[j]!;
+    const { delta, res } = buf;
+    for (let j = 1; j <= n; j++) {
       const old = U[j]!;
-      let next = old - dj;
-      if (j > 0 && j <= n) {
-        next = stopAtKink(ws.curves[j - 1]!.kinks, old, next, ws.capacity[j - 1]! * KINK_NUDGE_K);
-        if (next !== old - dj) clipped = true;
-      }
+      const next = stopAtKink(kinks[j - 1]!, old, old - delta[j]!, ws.capacity[j - 1]! * KINK_NUDGE_K);
+      if (next !== old - delta[j]!) { clipped = true; delta[j] = old - next; }
       U[j] = next;
-      const scaled = Math.abs(j === 0 || j === n + 1 ? dj : dj / ws.capacity[j - 1]!);
+      const scaled = Math.abs(delta[j]! / ws.capacity[j - 1]!);
       if (!(scaled <= worst)) worst = scaled; // also catches NaN
     }
+    // a face node moves with its cell: when the cell's update stopped at a kink, the face takes what its own linearised
+    // balance gives for the cell's shortened update, not the full one (which assumed the cell went past the kink, and
+    // made the pair cycle across it)
+    if (clipped) {
+      delta[0] = (res[0]! - ws.upper[0]! * delta[1]!) / ws.diag[0]!;
+      delta[n + 1] = (res[n + 1]! - ws.lower[n + 1]! * delta[n]!) / ws.diag[n + 1]!;
+    }
+    U[0] = U[0]! - delta[0]!;
+    U[n + 1] = U[n + 1]! - delta[n + 1]!;
+    const faceWorst = Math.max(Math.abs(delta[0]!), Math.abs(delta[n + 1]!));
+    if (!(faceWorst <= worst)) worst = faceWorst;
     // converged when the update, or the remaining error bound θ/(1−θ)·|δ| of a contracting iteration, is below the
     // tolerance (Hairer & Wanner, Solving ODEs II, §IV.8, eq. 8.10); an update stopped at a kink is never the last
     const theta = iter > 0 ? worst / previous : 1;
@@ -161,20 +171,6 @@ function acceptLinearUpdate(ws: Workspace, buf: StepBuffers, U: Float64Array, h:
   }
   T[0] = U[0]!;
   T[n + 1] = U[n + 1]!;
-}
-
-/**
- * A Newton update from `old` to `next` that would cross an enthalpy where the capacity jumps stops just past it:
- * Newton's linear model is wrong on the far side of a kink of T(H), and letting it jump across makes the iteration
- * cycle. The next iteration starts with the right slope. Returns the (possibly shortened) new value.
- */
-function stopAtKink(kinks: Float64Array, old: number, next: number, nudge: number): number {
-  for (let k = 0; k < kinks.length; k++) {
-    const at = kinks[k]!;
-    if (old < at && next > at + nudge) return at + nudge;
-    if (old > at && next < at - nudge) return at - nudge;
-  }
-  return next;
 }
 
 /**
