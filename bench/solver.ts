@@ -1,41 +1,140 @@
 /**
- * `npm run bench`: the solver's speed on the demo scenario (3 layers, hot plate then free air, 3600 s) at default
- * accuracy, and a scaling table over the cell count. The script is bundled by esbuild before it runs (see
- * package.json), so it times the same single-module code the browser view runs.
- * Figures only: nothing here asserts a time (tests assert correctness; this measures).
+ * `npm run bench`: the solver's cost, bundled by esbuild first (see package.json) so it times the single-module code
+ * the browser view runs. Figures only: nothing here asserts a time (tests assert correctness; this measures).
+ *
+ * 1. The first solve in this fresh process (mostly JIT warm-up), then the demo at its defaults, warm.
+ * 2. Scaling: the demo with 50–1600 cells at the default tolerances and at ×0.01 ("tight"), with the melt's kinks as
+ *    written and smoothed over ±0.1 K (physics/melt-ramp.ts): time, accepted steps, Newton sweeps, M cell-updates/s
+ *    (one cell in one Newton sweep) and the log–log slope of time and of work (cells × Newton sweeps), 200 → 1600.
+ * 3. Accuracy asked in seconds: a scenario of our own (3 layers on a hot plate, then free air) at event_accuracy_s
+ *    1, 0.1 and 0.01, freezeline's time and achieved error against a refined run, side by side with the scripted
+ *    peer (bench/peer-bdf.ts: method of lines + variable-step BDF2) on the same grid at the cheapest of its tolerances
+ *    that reaches the same accuracy; warm, interleaved (peer and freezeline alternate), and the ratio.
+ * BENCH_QUICK=1 skips the two slowest scaling rows and the 0.01 s row (for a loaded machine).
  */
 import scenario from '../examples/bench-coupon.json' with { type: 'json' };
 import { benchProblem } from '../sim/cli/bench-run.ts';
+import type { Problem } from '../sim/physics/problem.ts';
+import { runProblem, solvedProblem } from '../sim/run.ts';
+import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
+import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
+import { runPeer } from './peer-bdf.ts';
 
-const SCALING_CELLS = [100, 200, 400, 800, 1600];
+const QUICK = process.env.BENCH_QUICK === '1';
+const SCALING_CELLS = QUICK ? [50, 100, 200, 400, 800] : [50, 100, 200, 400, 800, 1600];
 const RUNS = 15;
+const TIGHT = 0.01;
 
-function problemWithCells(total: number | undefined) {
-  const file = structuredClone(scenario) as unknown as { layers: { thickness_mm: number; cells?: number }[] };
-  if (total !== undefined) {
-    const thickness = file.layers.reduce((a, l) => a + l.thickness_mm, 0);
-    let left = total;
-    file.layers.forEach((l, i) => {
-      const share = i === file.layers.length - 1 ? left : Math.max(1, Math.round((total * l.thickness_mm) / thickness));
-      l.cells = share;
-      left -= share;
-    });
-  }
+function parse(file: unknown): Problem {
   const parsed = parseScenario(file);
   if (!parsed.ok) throw new Error(parsed.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
   return parsed.problem;
 }
 
-const base = benchProblem(problemWithCells(undefined), RUNS);
-console.log(`freezeline solver benchmark — ${scenario.name}, ${scenario.duration_s} s simulated, default accuracy`);
-console.log(`  median ${base.median_ms.toFixed(2)} ms over ${base.runs} runs`);
-console.log(`  ${base.cells} cells, ${base.steps} steps, ${base.newton_iterations} Newton iterations`);
-console.log(`  ${(base.cell_updates_per_s / 1e6).toFixed(1)} M cell-updates/s (one cell in one Newton iteration)`);
-console.log('');
-console.log('  cells   median ms   steps   Newton   M cell-updates/s   µs per cell');
-for (const cells of SCALING_CELLS) {
-  const f = benchProblem(problemWithCells(cells), Math.max(3, Math.round(RUNS / 3)));
-  console.log(`  ${String(f.cells).padStart(5)}   ${f.median_ms.toFixed(2).padStart(9)}   ${String(f.steps).padStart(5)}   ${String(f.newton_iterations).padStart(6)}   ${(f.cell_updates_per_s / 1e6).toFixed(1).padStart(16)}   ${((1000 * f.median_ms) / f.cells).toFixed(2).padStart(11)}`);
+/** The demo with `total` cells shared by thickness and tolerances × `tolScale`; `rampK` > 0 smooths the melt kinks. */
+function demoProblem(total: number, tolScale: number, rampK: number): Problem {
+  const file = structuredClone(scenario) as unknown as ScenarioFile;
+  const thickness = file.layers.reduce((a, l) => a + l.thickness_mm, 0);
+  let left = total;
+  file.layers.forEach((l, i) => {
+    const share = i === file.layers.length - 1 ? left : Math.max(1, Math.round((total * l.thickness_mm) / thickness));
+    (l as { cells?: number }).cells = share;
+    left -= share;
+  });
+  (file as { numerics?: object }).numerics = { tolerance_K: 0.2 * tolScale, liquid_fraction_tolerance: 4e-3 * tolScale };
+  const p = parse(file);
+  // the file gives grid and tolerances, so its plan keeps the curve as written; the ramp is set here for the comparison
+  return { ...p, numerics: { ...p.numerics, accuracy: { ...p.numerics.accuracy!, meltRampK: rampK } } };
 }
-console.log(JSON.stringify({ median_ms: base.median_ms, runs: base.runs, cells: base.cells, steps: base.steps, newton_iterations: base.newton_iterations, cell_updates_per_s: base.cell_updates_per_s }));
+
+const t0 = performance.now();
+const first = runProblem(parse(scenario));
+const firstMs = performance.now() - t0;
+if (first.status !== 'ok') throw new Error('the demo did not run');
+console.log(`freezeline solver benchmark — ${scenario.name}, ${scenario.duration_s} s simulated`);
+console.log(`  first solve in this fresh process: ${firstMs.toFixed(1)} ms (JIT warm-up included)`);
+const base = benchProblem(parse(scenario), RUNS);
+console.log(`  warm: median ${base.median_ms.toFixed(2)} ms over ${base.runs} runs; ${base.cells} cells, ${base.steps} steps, ${base.newton_iterations} Newton sweeps, ${(base.cell_updates_per_s / 1e6).toFixed(1)} M cell-updates/s`);
+
+console.log('');
+console.log('  scaling (demo, cells shared by thickness)');
+console.log('  tolerances  melt kinks    cells   median ms   steps   Newton   M cell-updates/s');
+const slopes: string[] = [];
+for (const tol of [1, TIGHT]) {
+  for (const ramp of [0, 0.1]) {
+    const rows: { cells: number; ms: number; work: number }[] = [];
+    for (const cells of SCALING_CELLS) {
+      const f = benchProblem(demoProblem(cells, tol, ramp), cells >= 800 || tol < 1 ? 1 : 5);
+      rows.push({ cells, ms: f.median_ms, work: f.cells * f.newton_iterations });
+      const label = `${tol === 1 ? 'default' : `×${tol}`}`.padEnd(10) + `  ${ramp === 0 ? 'as written' : `±${ramp} K`}`.padEnd(13);
+      console.log(`  ${label} ${String(f.cells).padStart(6)}   ${f.median_ms.toFixed(1).padStart(9)}   ${String(f.steps).padStart(5)}   ${String(f.newton_iterations).padStart(6)}   ${(f.cell_updates_per_s / 1e6).toFixed(1).padStart(16)}`);
+    }
+    const a = rows.find((r) => r.cells === 200);
+    const b = rows[rows.length - 1]!;
+    if (a && b.cells > a.cells) {
+      const span = Math.log(b.cells / a.cells);
+      slopes.push(`  ${tol === 1 ? 'default' : `×${tol}`} tolerances, kinks ${ramp === 0 ? 'as written' : `±${ramp} K`}: log–log slope ${a.cells}→${b.cells} cells: time ${(Math.log(b.ms / a.ms) / span).toFixed(2)}, work ${(Math.log(b.work / a.work) / span).toFixed(2)}`);
+    }
+  }
+}
+console.log(slopes.join('\n'));
+
+/** A scenario of our own: nickel / salt separator / magnesium on a 450 °C plate for 4 min, then free air, 10 min. */
+const ownScenario = {
+  freezeline: 1, name: 'bench: three layers, hot plate then free air', ambient_C: 20, duration_s: 600,
+  footprint: { diameter_mm: 20 },
+  layers: [
+    { id: 'collector', material: 'nickel', thickness_mm: 0.5 },
+    { id: 'separator', material: 'licl-kcl-eutectic', thickness_mm: 1.0, separator: true },
+    { id: 'anode', material: 'magnesium', thickness_mm: 1.0 },
+  ],
+  bottom: [{ from_s: 0, plate: { temperature_C: 450, conductance_W_m2K: 800 } }, { from_s: 240, convection_W_m2K: 'natural', emissivity: 0.4 }],
+  top: [{ from_s: 0, convection_W_m2K: 'natural', emissivity: 0.3 }],
+};
+const atAccuracy = (a: number) => parse({ ...ownScenario, numerics: { event_accuracy_s: a } });
+const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
+const accuracies = QUICK ? [1, 0.1] : [1, 0.1, 0.01];
+// the reference: two levels beyond the finest row asked (cells × 4, tolerances ÷ 9)
+const finest = atAccuracy(accuracies[accuracies.length - 1]!).numerics.accuracy!;
+const ref = runProblem(atAccuracy(finest.expectedErrorS / 4), { detail: 'summary' });
+if (ref.status !== 'ok') throw new Error('the reference run failed');
+const refTimes = EVENTS.map((e) => ref.summary.separator[e]);
+const heatOffS = ref.summary.heat_off_s ?? ownScenario.duration_s;
+console.log('');
+console.log(`  accuracy asked in seconds — ${ownScenario.name}; reference: ${ref.grid.n} cells, level ${ref.problem.numerics.accuracy!.level}: molten ${refTimes[0]?.toFixed(3)} s, half-frozen ${refTimes[1]?.toFixed(3)} s, frozen ${refTimes[2]?.toFixed(3)} s`);
+console.log('  asked s   freezeline: cells level   ms   error s   | peer BDF: tol K     ms   error s   steps | ratio');
+const worst = (times: readonly (number | null)[]) => Math.max(...times.map((t, i) => (t === null || refTimes[i] === null ? Infinity : Math.abs(t - refTimes[i]!))));
+const timeIt = (f: () => void, runs: number) => {
+  const out: number[] = [];
+  for (let i = 0; i < runs; i++) { const s = performance.now(); f(); out.push(performance.now() - s); }
+  return out.sort((a, b) => a - b)[out.length >> 1]!;
+};
+for (const a of accuracies) {
+  const problem = atAccuracy(a);
+  const solved = solvedProblem(problem);
+  const own = runProblem(problem, { detail: 'summary' });
+  if (own.status !== 'ok') { console.log(`  ${a}: freezeline run ${own.status}`); continue; }
+  const ownErr = worst(EVENTS.map((e) => own.summary.separator[e]));
+  const grid = buildGrid(solved, solved.numerics.accuracy!.gridRefine);
+  // the peer's cheapest tolerance reaching the accuracy asked on the same grid
+  let peerTol = NaN;
+  let peerErr = Infinity;
+  let peerSteps = 0;
+  for (const tol of [1, 0.3, 0.1, 0.03, 0.01, 3e-3, 1e-3, 3e-4, 1e-4]) {
+    const p = runPeer(solved, grid, tol, heatOffS);
+    const e = worst([p.moltenS, p.halfFrozenS, p.frozenS]);
+    if (p.ok && e <= a) { peerTol = tol; peerErr = e; peerSteps = p.steps; break; }
+  }
+  const runs = grid.n > 500 ? 1 : 5;
+  let ownMs = 0;
+  let peerMs = NaN;
+  // interleaved: freezeline, then the peer, repeated; each timed warm (both ran once above)
+  for (let r = 0; r < 2; r++) {
+    ownMs = timeIt(() => runProblem(problem, { detail: 'summary' }), runs);
+    if (Number.isFinite(peerTol)) peerMs = timeIt(() => runPeer(solved, grid, peerTol, heatOffS), runs);
+  }
+  const peerCell = Number.isFinite(peerTol) ? `${String(peerTol).padStart(6)} ${peerMs.toFixed(1).padStart(8)}   ${peerErr.toFixed(4).padStart(7)}   ${String(peerSteps).padStart(5)}` : '  none of its tolerances reached it       ';
+  console.log(`  ${String(a).padStart(7)}   ${String(own.grid.n).padStart(16)} ${String(problem.numerics.accuracy!.level).padStart(5)} ${ownMs.toFixed(1).padStart(6)}   ${ownErr.toFixed(4).padStart(7)}   | ${peerCell} | ${Number.isFinite(peerMs) ? `${(peerMs / ownMs).toFixed(2)}×` : '—'}`);
+}
+console.log(JSON.stringify({ first_solve_ms: firstMs, median_ms: base.median_ms, runs: base.runs, cells: base.cells, steps: base.steps, newton_iterations: base.newton_iterations, cell_updates_per_s: base.cell_updates_per_s }));
