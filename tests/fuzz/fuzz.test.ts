@@ -1,6 +1,7 @@
-// The quick tier of the fuzz suite: a seeded batch of random valid scenarios (arbitrary.ts, QUICK_RANGES) through the
-// fuzz properties (check.ts). A failure prints the scenario; keep it under tests/regressions/fuzz/ with the property it
-// broke. The long tier is `npm run fuzz`.
+// The quick tier of the fuzz suite: a seeded fast-check property over random valid scenarios (arbitrary.ts,
+// QUICK_RANGES) through the fuzz properties (check.ts). fc.assert shrinks a failure to a small scenario and prints it
+// with the seed and path that replay it; keep it under tests/regressions/fuzz/ with the property it broke. The long
+// tier is `npm run fuzz`.
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -13,22 +14,30 @@ const RUNS = 300;
 const SEED = 20261202;
 /**
  * KNOWN DEFECT, open: on some scenarios Newton's method fails even at the smallest step ("the solver could not
- * converge at t = … even with its smallest step"): 1 of these 300, and 7 of the first 500 full-range scenarios of
- * `npm run fuzz -- --seed 11`. Until it is fixed this class is allowed on at most 1 % of the batch, and counted;
- * every other property is strict. Remove the allowance with the fix.
+ * converge at t = … even with its smallest step"), about 1 % of the full-range fuzz (DEVELOPERS.md). Until it is fixed
+ * this class is let through the property, counted, and allowed on at most 1 % of the batch; every other property is
+ * strict and shrinks. Remove the allowance with the fix.
  */
 const KNOWN_NEWTON_FAILURE = /^the solver could not converge at t = .* even with its smallest step/;
 const KNOWN_SHARE = 0.01;
+/** Room for the batch on a loaded machine and, after a failure, for shrinking (each smaller candidate is a run). */
+const TIMEOUT_MS = 600_000;
 
 describe('fuzzed valid scenarios', () => {
   it(`runProblem() finishes or stops with a physical message, finite, above 0 K, energy balanced, within bounds (${RUNS} scenarios)`, () => {
-    const known: string[] = [];
-    for (const scenario of fc.sample(scenarios(QUICK_RANGES), { seed: SEED, numRuns: RUNS })) {
-      const outcome = checkScenario(scenario);
-      if (outcome.kind === 'finished' || outcome.kind === 'stopped') continue;
-      if (outcome.kind === 'violation' && KNOWN_NEWTON_FAILURE.test(outcome.message)) { known.push(JSON.stringify(scenario)); continue; }
-      throw new Error(`${outcome.kind}: ${outcome.message}\nscenario: ${JSON.stringify(scenario)}`);
-    }
-    expect(known.length, `known Newton failures:\n${known.join('\n')}`).toBeLessThanOrEqual(KNOWN_SHARE * RUNS);
-  });
+    const known = new Set<string>();
+    fc.assert(
+      fc.property(scenarios(QUICK_RANGES), (scenario) => {
+        const outcome = checkScenario(scenario);
+        if (outcome.kind === 'finished' || outcome.kind === 'stopped') return true;
+        if (outcome.kind === 'violation' && KNOWN_NEWTON_FAILURE.test(outcome.message)) {
+          known.add(JSON.stringify(scenario));
+          return true;
+        }
+        throw new Error(`${outcome.kind}: ${outcome.message}`);
+      }),
+      { seed: SEED, numRuns: RUNS },
+    );
+    expect(known.size, `known Newton failures:\n${[...known].join('\n')}`).toBeLessThanOrEqual(KNOWN_SHARE * RUNS);
+  }, TIMEOUT_MS);
 });
