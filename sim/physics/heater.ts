@@ -27,6 +27,22 @@ export type HeaterControl =
       /** Hysteresis band, K (> 0). */
       readonly bandK: number;
       readonly sensor: HeaterSensor;
+    }
+  | {
+      /**
+       * A sampled PI controller (the textbook positional form, e.g. Åström & Hägglund, PID Controllers, 2nd ed., §3.2):
+       * every periodS the sensor is read and P = K·(e + ∫e dt / T_i), e = set-point − sensor, held until the next
+       * sample and limited to [0, P_max]; the integral stops growing while the output is at a limit (anti-windup by
+       * conditional integration).
+       */
+      readonly kind: 'pi';
+      /** Proportional gain K, W/K. */
+      readonly gainWPerK: number;
+      /** Integral time T_i, s. */
+      readonly integralS: number;
+      /** Sampling period, s: every sample is a breakpoint of the time loop. */
+      readonly periodS: number;
+      readonly sensor: HeaterSensor;
     };
 
 /** One point of the set-point schedule: linear between points (ramps), held before the first and after the last. */

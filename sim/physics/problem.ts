@@ -175,5 +175,14 @@ export function breakpoints(problem: Problem): number[] {
   for (const seg of [...problem.bottom, ...problem.top]) set.add(seg.fromS);
   for (const layer of problem.layers) for (const s of layer.sources) { set.add(s.fromS); set.add(s.toS); }
   for (const t of problem.outputTimesS) set.add(t);
+  for (const side of [problem.bottom, problem.top]) {
+    side.forEach((seg, i) => {
+      const c = seg.condition;
+      if (c.kind !== 'heater' || c.heater.control.kind !== 'pi') return;
+      // a PI heater's samples: the step lands on each, where the controller reads its sensor (time/plates.ts)
+      const end = Math.min(side[i + 1]?.fromS ?? problem.durationS, problem.durationS);
+      for (let k = 1, t = seg.fromS + c.heater.control.periodS; t < end; k++, t = seg.fromS + k * c.heater.control.periodS) set.add(t);
+    });
+  }
   return [...set].filter((t) => t > 0 && t <= problem.durationS).sort((a, b) => a - b);
 }

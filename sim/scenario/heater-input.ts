@@ -7,12 +7,19 @@
  */
 import type { Material } from '../physics/material.ts';
 import { sensibleCapacity } from '../physics/material.ts';
-import type { HeaterControl, SetPoint } from '../physics/heater.ts';
+import type { HeaterControl, HeaterSensor, SetPoint } from '../physics/heater.ts';
 import type { FaceCondition, Footprint } from '../physics/problem.ts';
 import { cToK, mmToM } from '../physics/units.ts';
 import type { FieldError } from './field-errors.ts';
 import { libraryMaterial, unknownMaterialMessage } from './library.ts';
 import type { FaceSegmentFile, HeaterFile, ScenarioFile } from './scenario-schema.ts';
+
+export const heaterInputDefaults = {
+  /** PI sampling period when the file gives none, s: a lab controller samples a few times a second to once a second. */
+  periodS: 1,
+  /** Most PI samples a run may hold: each is a step (a day at 1 s would be 86 400). */
+  maxSamples: 100_000,
+} as const;
 
 const OTHER_TERMS = ['flux_W_m2', 'power_W', 'convection_W_m2K', 'fluid_C', 'emissivity', 'surroundings_C', 'plate', 'fixed_C'] as const;
 
@@ -20,7 +27,7 @@ const show = (v: unknown): string => JSON.stringify(v);
 
 /** The set-point schedule of an on-off heater, checked: one number in the control, or `set_points` in time order. */
 function setPoints(h: HeaterFile, path: string, durationS: number, errors: FieldError[]): SetPoint[] {
-  const own = h.control.kind === 'on-off' ? h.control.set_point_C : undefined;
+  const own = h.control.kind !== 'constant' ? h.control.set_point_C : undefined;
   if (h.control.kind === 'constant') {
     if (h.set_points) errors.push({ path: `${path}.set_points`, message: `a constant-power heater has no set-point; remove it or use "kind": "on-off", got ${show(h.set_points)}` });
     return [];
@@ -30,7 +37,7 @@ function setPoints(h: HeaterFile, path: string, durationS: number, errors: Field
   }
   if (own !== undefined) return [{ atS: 0, tK: cToK(own) }];
   if (!h.set_points) {
-    errors.push({ path: `${path}.control.set_point_C`, message: 'an on-off heater needs a set-point: set_point_C here, or a schedule heater.set_points, got neither' });
+    errors.push({ path: `${path}.control.set_point_C`, message: `an ${h.control.kind} heater needs a set-point: set_point_C here, or a schedule heater.set_points, got neither` });
     return [];
   }
   h.set_points.forEach((p, i) => {
@@ -44,12 +51,17 @@ function setPoints(h: HeaterFile, path: string, durationS: number, errors: Field
 function control(h: HeaterFile, path: string, s: ScenarioFile, errors: FieldError[]): HeaterControl {
   const c = h.control;
   if (c.kind === 'constant') return { kind: 'constant' };
-  if (c.sensor === 'plate') return { kind: 'on-off', bandK: c.band_K, sensor: { kind: 'plate' } };
   const index = s.layers.findIndex((l) => l.id === c.sensor);
-  if (index < 0) {
+  if (c.sensor !== 'plate' && index < 0) {
     errors.push({ path: `${path}.control.sensor`, message: `must be "plate" or a layer id (${s.layers.map((l) => show(l.id)).join(', ')}), got ${show(c.sensor)}` });
   }
-  return { kind: 'on-off', bandK: c.band_K, sensor: { kind: 'layer', index: Math.max(index, 0), id: c.sensor } };
+  const sensor: HeaterSensor = c.sensor === 'plate' ? { kind: 'plate' } : { kind: 'layer', index: Math.max(index, 0), id: c.sensor };
+  if (c.kind === 'on-off') return { kind: 'on-off', bandK: c.band_K, sensor };
+  const periodS = c.period_s ?? heaterInputDefaults.periodS;
+  if (s.duration_s / periodS > heaterInputDefaults.maxSamples) {
+    errors.push({ path: `${path}.control.period_s`, message: `must be ≥ duration_s / ${heaterInputDefaults.maxSamples} (${s.duration_s / heaterInputDefaults.maxSamples} s): every sample is a step, got ${periodS}` });
+  }
+  return { kind: 'pi', gainWPerK: c.gain_W_K, integralS: c.integral_s, periodS, sensor };
 }
 
 /** The heater face condition of a segment with a `heater`; errors name the fields. */

@@ -145,7 +145,16 @@ const heaterSchema = z.strictObject({
       /** "plate", or a layer id (its mean temperature). */
       sensor: shortName(),
     }),
-  ], { error: 'must be { "kind": "constant" } or { "kind": "on-off", "band_K": …, "sensor": "plate" or a layer id }' }),
+    z.strictObject({
+      kind: z.literal('pi'),
+      set_point_C: celsius().optional(),
+      gain_W_K: positive(),
+      integral_s: positive(),
+      /** Sampling period, s (default 1). */
+      period_s: positive().optional(),
+      sensor: shortName(),
+    }),
+  ], { error: 'must be { "kind": "constant" }, { "kind": "on-off", "band_K", "sensor" } or { "kind": "pi", "gain_W_K", "integral_s", "sensor" }' }),
   set_points: z.array(z.strictObject({ at_s: timeS(), set_point_C: celsius() })).min(1, { error: 'must hold at least one point' }).optional(),
 });
 export type HeaterFile = z.infer<typeof heaterSchema>;

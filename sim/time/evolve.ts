@@ -152,7 +152,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const readConditions = (tS: number, before: StepConditions | undefined): StepConditions => {
     let c = conditionsAt(problem, grid, tS, source);
     for (const sw of options.switches ?? []) if (sw.adjust) c = sw.adjust(c);
-    plates.attach(c, before);
+    plates.attach(c, before, tS);
     return c;
   };
 

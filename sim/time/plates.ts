@@ -82,6 +82,24 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
     });
   });
   const switches: readonly StateSwitch[] = thermostats;
+  /** Each side's PI controller: its integral of the error (K·s), its next sample (s) and the power it holds (W). */
+  const pi = SIDES.map(() => ({ integralKs: 0, nextS: 0, powerW: 0 }));
+  /** A PI sample at tS (a breakpoint: problem.ts puts every sample there): reads the sensor, sets the power. */
+  const samplePi = (h: Heater, side: 0 | 1, tS: number): void => {
+    const c = h.control;
+    if (c.kind !== 'pi') return;
+    const st = pi[side]!;
+    // the state in ws is the end of the step that landed here; before the first step it is the initial state
+    const sensed = c.sensor.kind === 'plate' ? ws.plates[side].tK
+      : tS === 0 ? problem.initialK : stackSensorK({ kind: 'layer', index: c.sensor.index }, ws, grid);
+    const e = setPointAt(h.setPoints, tS) - sensed;
+    const out = (integral: number) => c.gainWPerK * (e + integral / c.integralS);
+    const grown = st.integralKs + e * c.periodS;
+    // conditional integration: the integral grows only while the output it gives is within [0, P_max]
+    if (out(grown) >= 0 && out(grown) <= h.powerW) st.integralKs = grown;
+    st.powerW = Math.min(h.powerW, Math.max(0, out(st.integralKs)));
+    st.nextS = tS + c.periodS;
+  };
 
   const steps: [PlateStep, PlateStep] = [
     { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN }, { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN },
@@ -92,7 +110,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
     /** What each side's heater did over the last accepted step (commit() writes it; evolve's StepReport holds it). */
     steps,
     /** New conditions from tS on (the start, a schedule change): powers follow each heater's control. */
-    attach(next: StepConditions, previous: StepConditions | undefined): void {
+    attach(next: StepConditions, previous: StepConditions | undefined, tS: number): void {
       cond = next;
       for (const side of SIDES) {
         const h = heaterOn(next, side);
@@ -102,6 +120,14 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
         nowK[side] = node.tK;
         const was = previous ? heaterOn(previous, side) : undefined;
         if (!h) { node.powerWPerM2 = 0; continue; }
+        if (h.control.kind === 'pi') {
+          const st = pi[side]!;
+          if (was !== h) { st.integralKs = 0; st.nextS = tS; }
+          // a sample is due at its breakpoint (allowing for the rounding of k·period)
+          if (tS >= st.nextS - 1e-9 * Math.max(1, tS)) samplePi(h, side, tS);
+          node.powerWPerM2 = st.powerW / h.areaM2;
+          continue;
+        }
         // a heater newly under the stack starts on; one that stays keeps its thermostat's state
         if (was !== h) thermostats[side]!.reset(true);
         node.powerWPerM2 = h.control.kind === 'constant' || thermostats[side]!.isOn() ? h.powerWPerM2 : 0;

@@ -71,6 +71,18 @@ describe('scenario heater key', () => {
   });
 });
 
+describe('scenario heater key, PI control', () => {
+  it('parseScenario() reads a PI control with the default 1 s period, and refuses a period that would need too many samples', () => {
+    const parsed = parseScenario(file({ heater: heater({ control: { kind: 'pi', set_point_C: 420, gain_W_K: 5, integral_s: 30, sensor: 'slab' } }) }));
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
+    const c = parsed.problem.bottom[0]!.condition;
+    expect(c.kind === 'heater' && c.heater.control).toEqual({ kind: 'pi', gainWPerK: 5, integralS: 30, periodS: 1, sensor: { kind: 'layer', index: 0, id: 'slab' } });
+    // 600 s at 1e-4 s would be 6e6 samples, each a step
+    expect(errorsOf(file({ heater: heater({ control: { kind: 'pi', set_point_C: 420, gain_W_K: 5, integral_s: 30, period_s: 1e-4, sensor: 'plate' } }) })).join('\n'))
+      .toMatch(/bottom\[0\]\.heater\.control\.period_s: must be ≥ duration_s \/ 100000 .*got 0\.0001/);
+  });
+});
+
 describe('set-point schedule', () => {
   it('setPointAt() holds before the first point, ramps linearly between points and holds after the last', async () => {
     const { setPointAt } = await import('../../sim/physics/heater.ts');

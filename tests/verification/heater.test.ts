@@ -105,6 +105,24 @@ describe('the heater as a body', () => {
     expect(summary.energy.imbalance_rel).toBeLessThanOrEqual(1e-12);
   });
 
+  it('runProblem() with a PI heater settles the plate at its set-point, with the power that balances its loss h·A·(T_set − T∞)', () => {
+    const loss = 20;
+    const { record, summary } = runOk(stack(
+      [heaterSegment({ kind: 'pi', set_point_C: SET_C, gain_W_K: 5, integral_s: 30, period_s: 1, sensor: 'plate' }, { loss_W_m2K: loss })],
+      [], 1200));
+    const h = record.heater!;
+    const last = record.tS.length - 1;
+    // steady state of the plate and an adiabatic-topped slab: the slab takes no heat, the plate loses h·A·ΔT, and the
+    // integral action leaves no offset (Åström & Hägglund, PID Controllers, §3.2). After 40 integral times the
+    // remaining transient is far below the tolerances: 0.01 K on the plate and 1e-3 relative on the power.
+    assertClose(h.plateC[last]!, SET_C, { abs: 0.01 }, 'plate at the end, °C');
+    assertClose(h.powerW[last]!, loss * AREA * (SET_C - T0), { rel: 1e-3 }, 'power at the end, W');
+    expect(summary.energy.imbalance_rel).toBeLessThanOrEqual(1e-12);
+    // the power is held between samples and changes only on them: a step lands on every sample of the 1 s period
+    const ends = new Set(Array.from(record.tS, (t) => Math.round(t * 1e6) / 1e6));
+    for (let k = 1; k < 1200; k++) expect(ends.has(k), `a step ends at the sample t = ${k} s`).toBe(true);
+  });
+
   it('runProblem() with the thermostat on a layer switches where that layer\'s mean reaches set-point and set-point − band', () => {
     const band = 4;
     const set = 300;
