@@ -16,7 +16,7 @@ export function renderLedger(root: HTMLElement, r: ShownResult): void {
   const e = r.record.energy;
   const area = r.areaM2;
   // about 6 significant figures on the largest term, the same decimals for all (round-off shows as 0, not 4e-18)
-  const terms = [e.bottomInJ, e.topInJ, e.sourceJ, e.bottomOutJ, e.topOutJ, e.storedJ, e.edgeInJ ?? 0, e.edgeOutJ ?? 0].map(Math.abs);
+  const terms = [e.bottomInJ, e.topInJ, e.sourceJ, e.bottomOutJ, e.topOutJ, e.storedJ, e.edgeInJ ?? 0, e.edgeOutJ ?? 0, e.heaterJ ?? 0].map(Math.abs);
   const places = (scale: number): number => {
     const big = Math.max(...terms) * scale;
     return big > 0 && Number.isFinite(big) ? Math.max(0, ledgerDefaults.significant - 1 - Math.floor(Math.log10(big))) : 0;
@@ -30,6 +30,8 @@ export function renderLedger(root: HTMLElement, r: ShownResult): void {
   root.replaceChildren(h('table', { class: 'ledger' },
     h('thead', {}, h('tr', {}, h('th', {}, ''), h('th', {}, 'kJ/m²'), h('th', {}, 'J over the footprint'))),
     h('tbody', {},
+      // a heater body's electric heat (key heater): its plate's loss counts as heat out of the face it is under
+      ...(e.heaterJ === undefined ? [] : [row('heat in, heater (electric)', e.heaterJ)]),
       row('heat in, bottom face', e.bottomInJ),
       row('heat in, top face', e.topInJ),
       row('heat from sources in layers', e.sourceJ),
@@ -37,7 +39,10 @@ export function renderLedger(root: HTMLElement, r: ShownResult): void {
       row('heat out, top face', e.topOutJ),
       // the side walls' channel exists only when the scenario has edge losses (key edges)
       ...(e.edgeOutJ === undefined ? [] : [row('heat in, side walls (edges)', e.edgeInJ ?? 0), row('heat out, side walls (edges)', e.edgeOutJ)]),
-      row('stored at the end (sensible + latent)', e.storedJ))),
+      row(e.heaterJ === undefined ? 'stored at the end (sensible + latent)' : 'stored at the end (sensible + latent, heater plate included)', e.storedJ))),
+    ...(r.summary.heater ? [h('p', { class: 'note', 'data-testid': 'heater-summary' },
+      `Heater: ${formatNumber(r.summary.heater.energy_J / 1000, { significant: 3 })} kJ over ${formatNumber(r.summary.heater.under_stack_s, { decimals: 0 })} s under the stack, `
+      + `duty cycle ${formatNumber(100 * r.summary.heater.duty_cycle, { decimals: 1 })} %, plate up to ${formatNumber(r.summary.heater.plate_peak_C, { decimals: 1 })} °C.`)] : []),
   h('p', { class: 'note' }, `Imbalance (in − out − stored) relative to the largest term: ${formatNumber(r.summary.energy.imbalance_rel, { significant: 2 })}.`));
 }
 

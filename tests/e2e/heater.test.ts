@@ -1,6 +1,6 @@
 /**
  * The heater in the browser view: a scenario with a heater body loads from a file, runs, and the temperature chart
- * shows the plate temperature and the heater power (W, on its own axis) beside the layers.
+ * shows the plate temperature and the heater power (W, on its own axis) beside the layers; the energy panel its summary.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { repoRoot, startHarness, waitForDone, type Harness } from './harness.ts';
@@ -32,6 +32,9 @@ describe('heater in the view', () => {
     // the plate is drawn while the cell is on it, and left out (a gap) after the lift-off
     expect(plate.y.some((v) => v === null)).toBe(true);
     expect(Math.max(...plate.y.filter((v): v is number => v !== null))).toBeLessThanOrEqual(420.1);
+    // the energy panel names the heater's channel and its summary (energy, time under the stack, duty cycle)
+    const note = await page.$eval('[data-testid="heater-summary"]', (e) => e.textContent ?? '');
+    expect(note).toMatch(/^Heater: [\d.]+ kJ over 900 s under the stack, duty cycle [\d.]+ %, plate up to 420\.0 °C\.$/);
     await context.close();
   });
 });
