@@ -128,8 +128,9 @@ export function locateRise(trial: (s: number) => number | undefined, gA: number,
   let lastS = sB;
   let trials = 0;
   while (b - a > tolS && trials < maxTrials) {
-    // regula falsi point, kept a hundredth of the bracket inside it so a stalled end still moves
-    const inset = 0.01 * (b - a);
+    // regula falsi point, kept half the tolerance inside the bracket: when it lands next to the root, the trial on
+    // the other side of it then closes the bracket to within the tolerance at once
+    const inset = 0.5 * tolS;
     const s = Math.min(b - inset, Math.max(a + inset, b - (fb * (b - a)) / (fb - fa)));
     const fs = trial(s);
     trials++;
