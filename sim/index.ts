@@ -30,4 +30,6 @@ export * from './study/bracket.ts';
 export * from './study/sweep.ts';
 export * from './study/target.ts';
 export * from './study/window.ts';
+export { holdKnob } from './study/knob.ts';
+export { accuracyLine, accuracyPlan } from './scenario/accuracy.ts';
 export * from './study/words.ts';

@@ -10,8 +10,10 @@ import { parsePath } from './paths.ts';
 
 const ERROR_CLASS = 'field-error';
 
+/** Inputs bound to `path`: their own (`data-path`), or one they also move (`data-also-paths`, space-separated). */
 function inputsAt(root: ParentNode, path: string): Element[] {
-  return [...root.querySelectorAll(`[data-path="${CSS.escape(path)}"]`)];
+  const p = CSS.escape(path);
+  return [...root.querySelectorAll(`[data-path="${p}"], [data-also-paths~="${p}"]`)];
 }
 
 function inputsFor(root: ParentNode, path: string): Element[] {

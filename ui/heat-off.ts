@@ -9,8 +9,9 @@
  * row heats (heater power over any positive area is a positive flux). A row the core refuses even there counts as not
  * heating; the editor names its fault beside it.
  */
-import { heatInputs, parseScenario, type Problem } from '../sim/index.ts';
+import { heatInputs, holdKnob, parseScenario, type Problem } from '../sim/index.ts';
 import { asList, asObject, type Json, type JsonObject } from './json.ts';
+import { getAt, setAt } from './paths.ts';
 
 export const heatOffDefaults = {
   /** A library material for the stand-in layer (any material does: the layer does not decide whether a row heats). */
@@ -55,4 +56,72 @@ export function heaterOffRow(draft: JsonObject): number | undefined {
     if (heating.has(j - 1) && !heating.has(j)) return j;
   }
   return undefined;
+}
+
+/**
+ * Every file field that holds "heat off at", by the core's rule (sim/study/knob.ts `holdKnob`, the window search's
+ * own list): the `from_s` of the face row after each heating row and the `to_s` of each source interval (heat_W_kg,
+ * joule, source_W_m3) that ends at the same time. A pellet's end is its start plus its burn time, not a key of its
+ * own: it is listed apart and not moved.
+ */
+export interface HeatOffFields {
+  /** Paths in the core's notation; the first is the control's own (`data-path`), the others move with it. */
+  readonly paths: readonly string[];
+  /** Layer ids of the pellets that end at heat off too (left alone). */
+  readonly pellets: readonly string[];
+  /** Why the list is not the core's full one (the draft is refused, or the heat never goes off), if it is not. */
+  readonly note: string | undefined;
+}
+
+const PELLET = /^layers\[(\d+)\]\.pellet\b/;
+
+/** The paths the hold knob names, split into fields to move and pellets to leave alone. */
+function fromKnob(draft: JsonObject, path: string): HeatOffFields {
+  // entries are joined by ", "; a pellet's entry holds one itself ("(its end, from_s + burn time)"), so split before a path
+  const parts = path.split(/, (?=(?:bottom|top|layers)\[)/);
+  const layerId = (i: number): string => String(asObject(asList(draft.layers)[i]).id ?? `layer ${i + 1}`);
+  const pellets = parts.flatMap((p) => { const m = PELLET.exec(p); return m ? [layerId(Number(m[1]))] : []; });
+  return { paths: parts.filter((p) => !PELLET.test(p)), pellets, note: undefined };
+}
+
+/** True when every path exists in the draft and holds one and the same value (the fields were moved together). */
+function stillTogether(draft: JsonObject, paths: readonly string[]): boolean {
+  if (paths.length === 0) return false;
+  const first = getAt(draft, paths[0]!);
+  return paths.every((p) => { const v = getAt(draft, p); return v !== undefined && v === first; }) || paths.every((p) => getAt(draft, p) === undefined);
+}
+
+/**
+ * The fields the "heat off at" control moves. On a draft the core reads, the hold knob's list. `keep` is the list in
+ * use so far: it stays while it still holds one value everywhere and either the draft is refused (a value half typed,
+ * e.g. "6" on the way to "600", puts a source's end before its start) or `typing` (the control has the focus: a value
+ * that makes another input the last to end must not make the control jump to that input mid-word). Otherwise, on a
+ * refused draft, the bottom row where the heating ends (read row by row, above).
+ */
+export function heatOffFields(draft: JsonObject, keep?: readonly string[], typing = false): HeatOffFields | { readonly reason: string } {
+  const kept = keep !== undefined && stillTogether(draft, keep) ? { paths: keep, pellets: [], note: undefined } : undefined;
+  if (kept && typing) return kept;
+  const parsed = parseScenario(draft);
+  const knob = parsed.ok ? holdKnob(parsed.problem) : undefined;
+  if (knob !== undefined && typeof knob !== 'string') return fromKnob(draft, knob.path);
+  if (kept && !parsed.ok) return kept;
+  const j = heaterOffRow(draft);
+  if (j === undefined) return { reason: typeof knob === 'string' ? knob : 'no bottom row ends the heating; add a row without a plate or heater to remove it' };
+  return { paths: [`bottom[${j}].from_s`], pellets: [], note: typeof knob === 'string' ? knob : 'the scenario cannot be read as it stands, so only this row moves' };
+}
+
+/** Writes `value` at every path, in place (undefined removes the key everywhere, as clearing one field does). */
+export function setHeatOff(draft: JsonObject, paths: readonly string[], value: Json | undefined): void {
+  for (const p of paths) setAt(draft, p, value);
+}
+
+/** A path in a reader's words: "bottom row 2 start", "anode Joule heat end". */
+export function heatOffFieldWords(draft: JsonObject, path: string): string {
+  const face = /^(bottom|top)\[(\d+)\]\.from_s$/.exec(path);
+  if (face) return `${face[1]} row ${Number(face[2]) + 1} start`;
+  const src = /^layers\[(\d+)\]\.(joule|heat_W_kg|source_W_m3)(?:\[(\d+)\])?\.to_s$/.exec(path);
+  if (!src) return path;
+  const id = String(asObject(asList(draft.layers)[Number(src[1])]).id ?? `layer ${Number(src[1]) + 1}`);
+  const what = src[2] === 'joule' ? 'Joule heat' : src[2] === 'heat_W_kg' ? 'W/kg heat' : 'heat source';
+  return `${id} ${what}${src[3] !== undefined ? ` ${Number(src[3]) + 1}` : ''} end`;
 }

@@ -130,7 +130,8 @@ store.listen((change) => {
   if (change.kind === 'field') {
     syncPeers(editorRoot, store, change.path, change.source);
     refreshSourceNotes(editorRoot, store);
-    if (change.path.startsWith('bottom')) setup?.refresh();
+    // any field may change which inputs end at heat off (a row's start, a source's end, a layer the core now reads)
+    setup?.refresh();
   } else {
     renderEditors();
   }

@@ -1,15 +1,16 @@
 /**
  * The run's setting: name, ambient and initial temperature, footprint, duration, and the one-line heater control
- * ("heat off at", the wording table's term; test hook `heat-off-s`), which edits the `from_s` of the bottom row where the heating
- * ends — the same value as that row's own "from" field, kept in step with it.
+ * ("heat off at", the wording table's term; test hook `heat-off-s`), which moves every heat input that ends at heat off
+ * together, by the core's rule (ui/heat-off.ts): the `from_s` of the bottom row where the heating ends — the same value
+ * as that row's own "from" field, kept in step with it — and the `to_s` of Joule, W/kg and source heat ending then.
  */
 import { verdictTerms } from '../sim/index.ts';
 import type { DraftStore } from './draft.ts';
 import { h } from './dom.ts';
-import { fieldWrapper, numberField, stringField } from './fields.ts';
+import { fieldWrapper, numberField, stringField, syncPeers } from './fields.ts';
 import { inputText, parseNumberInput } from './format.ts';
 import { asNumber, asObject } from './json.ts';
-import { heaterOffRow } from './heat-off.ts';
+import { heatOffFieldWords, heatOffFields, setHeatOff } from './heat-off.ts';
 import { probesField } from './probes-field.ts';
 
 function footprintFields(store: DraftStore): HTMLElement {
@@ -39,33 +40,54 @@ export interface SetupEditor {
   readonly refresh: () => void;
 }
 
+/** The last list of fields the heat-off control moved: kept across redraws while it still holds one value. */
+let heatOffKept: readonly string[] | undefined;
+
 export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEditor {
   const heatOff = h('input', { type: 'text', inputmode: 'decimal', 'data-testid': 'heat-off-s', 'aria-label': `${verdictTerms.heat_off_s.term}, s` });
-  const heatOffNote = h('span', { class: 'note' });
+  const heatOffNote = h('span', { class: 'note', 'data-testid': 'heat-off-note' });
   heatOff.addEventListener('input', () => {
-    const path = heatOff.getAttribute('data-path');
-    if (!path) return;
-    store.setField(path, parseNumberInput(heatOff.value), { source: heatOff });
+    const paths = heatOffKept;
+    if (!paths || paths.length === 0) return;
+    const value = parseNumberInput(heatOff.value);
+    store.editField(paths[0]!, (d) => setHeatOff(d, paths, value), heatOff);
+    // the rows' own fields for the other paths show the moved value too
+    const editor = root.closest('.editor') ?? document;
+    for (const p of paths.slice(1)) syncPeers(editor, store, p, heatOff);
   });
   const refresh = (): void => {
-    const j = heaterOffRow(store.current());
-    if (j === undefined) {
+    const found = heatOffFields(store.current(), heatOffKept, document.activeElement === heatOff);
+    if ('reason' in found) {
+      heatOffKept = undefined;
       heatOff.removeAttribute('data-path');
+      heatOff.removeAttribute('data-also-paths');
       heatOff.disabled = true;
       heatOff.value = '';
-      heatOffNote.textContent = 'No bottom row ends the heating; add a row without a plate or heater to remove it.';
+      heatOffNote.textContent = `Not available: ${found.reason}.`;
       return;
     }
-    const path = `bottom[${j}].from_s`;
-    heatOff.disabled = false;
-    if (heatOff.getAttribute('data-path') !== path || document.activeElement !== heatOff) heatOff.value = inputText(store.get(path));
-    heatOff.setAttribute('data-path', path);
-    heatOffNote.textContent = `bottom row ${j + 1} starts then`;
+    const path = found.paths[0];
+    heatOffKept = found.paths;
+    if (path === undefined) {
+      heatOff.removeAttribute('data-path');
+      heatOff.disabled = true;
+    } else {
+      heatOff.disabled = false;
+      if (heatOff.getAttribute('data-path') !== path || document.activeElement !== heatOff) heatOff.value = inputText(store.get(path));
+      heatOff.setAttribute('data-path', path);
+    }
+    // the control's field shows the core's errors about every field it moves (ui/errors-view.ts)
+    heatOff.setAttribute('data-also-paths', found.paths.slice(1).join(' '));
+    const draft = store.current();
+    const moves = found.paths.length === 0 ? 'nothing it can move' : `moves ${found.paths.map((p) => heatOffFieldWords(draft, p)).join(', ')}`;
+    const pellets = found.pellets.length === 0 ? ''
+      : `; the pellet in ${found.pellets.join(', ')} also ends then and is left alone (its end is its start plus its burn time, not a field)`;
+    heatOffNote.textContent = `${moves}${pellets}${found.note ? ` (${found.note})` : ''}`;
   };
   refresh();
   root.replaceChildren(
     h('div', { class: 'setup-grid' },
-      h('div', { class: 'heat-off' }, fieldWrapper(verdictTerms.heat_off_s.term, 's', 'Moves the start of the bottom row where the heating ends.', heatOff), heatOffNote),
+      h('div', { class: 'heat-off' }, fieldWrapper(verdictTerms.heat_off_s.term, 's', 'Moves every heat input that ends at heat off together: the start of the face row after the heating, and the end of Joule, W/kg and source heat that ends at the same time. A pellet is left alone: its end is its start plus its burn time.', heatOff), heatOffNote),
       numberField(store, { path: 'ambient_C', label: 'ambient', unit: '°C', testid: 'ambient-c', hint: 'Air and surroundings temperature unless a row gives its own.' }),
       numberField(store, { path: 'initial_C', label: 'initial temperature', unit: '°C', placeholder: 'ambient' }),
       numberField(store, { path: 'duration_s', label: 'duration', unit: 's' }),
