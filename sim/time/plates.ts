@@ -61,7 +61,6 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
   /** The plate temperature the sensors read: recovered after each (trial) step, the node's own after a commit. */
   const nowK = Float64Array.of(problem.initialK, problem.initialK);
   let cond: StepConditions | undefined;
-  const stats = { switches: 0 };
   const thermostats: Thermostat[] = SIDES.map((side) => {
     const control = () => {
       const h = cond ? heaterOn(cond, side) : undefined;
@@ -76,7 +75,6 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
       bandK: () => { const c = control()!.c; return c.bandK; },
       active: () => control() !== undefined,
       onSwitch: (on) => {
-        stats.switches++;
         ws.plates[side].powerWPerM2 = on ? control()!.h.powerWPerM2 : 0;
       },
     });
@@ -106,7 +104,6 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
   ];
   return {
     switches,
-    stats,
     /** What each side's heater did over the last accepted step (commit() writes it; evolve's StepReport holds it). */
     steps,
     /** New conditions from tS on (the start, a schedule change): powers follow each heater's control. */
