@@ -2,6 +2,7 @@
  * The `freezeline` command. Exit codes: 0 success, 2 invalid input (each message names the field and the value),
  * 1 internal failure, 3 the run finished but a stated expectation (the scenario's `expect` block) or a `run --require` condition failed. `run --json` writes exactly the result document on stdout and nothing else.
  */
+import { coefficientTable } from './coefficient-table.ts';
 import { writeFileSync } from 'node:fs';
 import { Command, CommanderError } from 'commander';
 import { libraryFile, libraryNames } from '../scenario/library.ts';
@@ -32,8 +33,9 @@ function program(): Command {
     .option('--csv-at <rows>', 'CSV rows: "series" (every recorded point) or "output" (the scenario\'s output times, with probes)', 'series')
     .option('--report <out>', 'also write a one-page, self-contained HTML report')
     .option('--verbose', 'also print the solver\'s convection details (Rayleigh numbers)')
+    .option('--coefficients', 'also print every coefficient the solver used, with its source (a formula, a library file, or the scenario file)')
     .option('--require <EXPR>', 'a condition on the verdicts, e.g. "safe_window_s>=60" or "margin_K>=25" (repeatable); exit 3 if one is not met', collectRequirement, [])
-    .action((file: string, opts: { json?: boolean; csv?: string; csvAt: string; report?: string; verbose?: boolean; require: string[] }) => {
+    .action((file: string, opts: { json?: boolean; csv?: string; csvAt: string; report?: string; verbose?: boolean; coefficients?: boolean; require: string[] }) => {
       if (opts.csvAt !== 'series' && opts.csvAt !== 'output') throw new InputError(`--csv-at: must be "series" or "output", got ${JSON.stringify(opts.csvAt)}`);
       const { scenario, problem } = readScenario(file);
       const requirements = parseRequirements(opts.require, problem);
@@ -53,6 +55,7 @@ function program(): Command {
         for (const line of requirementLines) process.stderr.write(`${line}\n`);
       } else {
         process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, requirements: requirementLines, verbose: opts.verbose, steps: out.stats.steps })}\n`);
+        if (opts.coefficients) process.stdout.write(`\n${coefficientTable(problem)}\n`);
       }
       // every unmet expectation and requirement on stderr, then exit 3
       const failed = [...unmet(expectations).map((o) => `${file}: expectation not met: ${o.statement}; the run gave ${o.actual}`), ...unmetRequirements];

@@ -8,6 +8,7 @@ import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
 import type { RunRecord } from './record.ts';
 import type { Summary } from './verdict.ts';
+import { coefficientTrace, type Coefficient } from './coefficients.ts';
 
 export interface ResultDocument {
   readonly summary: Summary & { readonly warnings: readonly string[] };
@@ -34,6 +35,8 @@ export interface ResultDocument {
     readonly event_accuracy_s: number | null; readonly level: number; readonly grid_refine: number; readonly tolerance_divisor: number;
     readonly tolerance_K: number; readonly liquid_fraction_tolerance: number; readonly melt_ramp_K: number; readonly expected_error_s: number | null;
   };
+  /** Every coefficient the solver used, with its source (an addition; observe/coefficients.ts). */
+  readonly coefficients: readonly Coefficient[];
 }
 
 export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, summary: Summary, stats: EvolveStats): ResultDocument {
@@ -51,6 +54,7 @@ export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, 
     },
     solver: { cells: grid.n, steps: stats.steps, rejected_steps: stats.rejected, newton_iterations: stats.newtonIterations },
     numerics: numericsKeys(problem),
+    coefficients: coefficientTrace(problem),
   };
   assertFinite(doc, 'result');
   return doc;

@@ -74,6 +74,8 @@ export interface Material {
   readonly melt: Melt | undefined;
   readonly limits: readonly Limit[];
   readonly sources: Readonly<Record<string, string>>;
+  /** Where the record is, for a reader: "materials/nickel.json", "the scenario file's materials.cloth (composite)". */
+  readonly from?: string | undefined;
 }
 
 /** Width of the sensible-only end segments of an enthalpy curve, K (any positive width gives the same curve). */
@@ -88,6 +90,7 @@ export interface MaterialInput {
   readonly melt?: { solidusK: number; liquidusK: number; latentJPerKg: number } | undefined;
   readonly limits: readonly Limit[];
   readonly sources: Readonly<Record<string, string>>;
+  readonly from?: string | undefined;
 }
 
 /** Builds the enthalpy curve and melt bookkeeping of a material. The caller has validated the inputs. */
@@ -163,6 +166,7 @@ export function buildMaterial(input: MaterialInput): Material {
     melt: melt ? { ...melt, hSolidus, hLiquidus, ...meltConductivities(input.conductivity, melt.solidusK, melt.liquidusK) } : undefined,
     limits: input.limits,
     sources: input.sources,
+    ...(input.from !== undefined ? { from: input.from } : {}),
   };
 }
 

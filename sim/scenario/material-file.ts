@@ -37,6 +37,7 @@ export function materialFromFile(name: string, file: InlineMaterialFile | Librar
     melt: m ? { solidusK: cToK(m.solidus_C), liquidusK: cToK(m.liquidus_C), latentJPerKg: m.latent_J_kg } : undefined,
     limits,
     sources: file.sources ?? {},
+    from: path.startsWith('materials/') ? path : `the scenario file's ${path}`,
   });
 }
 

@@ -47,7 +47,7 @@ export function inlineMaterial(name: string, entry: MaterialEntryFile, path: str
     if (!built) return undefined;
     // the entry's own title and limits apply to a modelled material too (nothing given is ignored)
     const own: Limit[] = (entry.limits ?? []).map((l) => ({ kind: l.kind, atK: cToK(l.at_C), source: l.source, note: l.note }));
-    return { ...built, title: entry.title ?? built.title, limits: [...built.limits, ...own] };
+    return { ...built, title: entry.title ?? built.title, limits: [...built.limits, ...own], from: `the scenario file's ${path} (${entry.salt ? 'LiCl–KCl mixture' : 'composite'})` };
   }
   const { salt: _s, composite: _c, k_W_mK, rho_kg_m3, cp_J_kgK, ...rest } = entry;
   // the schema has already required the three properties of a material given directly
