@@ -1,0 +1,124 @@
+// The accuracy promise of numerics.event_accuracy_s (sim/scenario/accuracy.ts): a run's separator event times
+// (molten, half-frozen, frozen) move by at most the accuracy asked when the run is refined 4× further (the plan for a
+// quarter of that accuracy: two more levels, cells × 4, tolerances ÷ 9, the melt ramp ÷ 4). A grid- and
+// step-independence check in the usual sense of a convergence study (Roache, Verification and Validation in
+// Computational Science and Engineering, 1998, ch. 5): the finer run stands in for the converged answer, so what is
+// checked is the event-time error of the plan against the refinement, on every example and on a seeded scan of
+// random scenarios.
+
+import { readdirSync, readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
+import { parseScenario } from '../../sim/scenario/scenario.ts';
+import { runProblem } from '../../sim/run.ts';
+import { assertClose } from '../support/assert-close.ts';
+import { seededRandom } from '../support/scenarios.ts';
+
+const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
+
+function separatorTimes(file: ScenarioFile, accuracyS: number | undefined) {
+  const numerics = accuracyS === undefined ? file.numerics : { ...file.numerics, event_accuracy_s: accuracyS };
+  const parsed = parseScenario({ ...file, ...(numerics ? { numerics } : {}) });
+  if (!parsed.ok) throw new Error(parsed.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
+  const out = runProblem(parsed.problem, { detail: 'summary' });
+  if (out.status !== 'ok') throw new Error(`run ${out.status}${out.status === 'failed' ? `: ${out.message}` : ''}`);
+  return { times: out.summary.separator, plan: parsed.problem.numerics.accuracy! };
+}
+
+/** Compares each event both runs have; returns how many were compared. */
+function holds(file: ScenarioFile, accuracyS: number | undefined, what: string): number {
+  const coarse = separatorTimes(file, accuracyS);
+  const asked = coarse.plan.eventAccuracyS;
+  // a quarter of the modelled error: exactly two levels finer (the model halves per level)
+  const fine = separatorTimes(file, coarse.plan.expectedErrorS / 4);
+  expect(fine.plan.level, `${what}: the reference is two levels finer`).toBe(coarse.plan.level + 2);
+  let compared = 0;
+  for (const event of EVENTS) {
+    const a = coarse.times[event];
+    const b = fine.times[event];
+    if (a === null || b === null) continue;
+    // the promise itself is the tolerance: |t − t_ref| ≤ event_accuracy_s
+    assertClose(a, b, { abs: asked }, `${what}: ${event} (s) at level ${coarse.plan.level} against level ${fine.plan.level}`);
+    compared++;
+  }
+  return compared;
+}
+
+/**
+ * A random stack that melts on a hot plate and freezes in free air (invented): a metal collector, a salt separator
+ * (the library eutectic, or an invented salt melting isothermally or over up to 8 K), a metal electrode; plate, hold,
+ * emissivities and thicknesses drawn uniformly over the ranges below.
+ */
+function randomMeltScenario(rand: () => number): ScenarioFile {
+  const between = (a: number, b: number) => Number((a + (b - a) * rand()).toPrecision(3));
+  const solidus = between(330, 370);
+  const salt = rand() < 0.4 ? 'licl-kcl-eutectic' : 'salt';
+  const hold = between(120, 400);
+  return {
+    freezeline: 1, name: 'random melt-and-freeze stack', ambient_C: between(0, 40), duration_s: Math.round(hold + between(500, 1200)),
+    footprint: { diameter_mm: between(15, 40) },
+    materials: {
+      salt: {
+        k_W_mK: between(0.5, 2), rho_kg_m3: between(1600, 2200), cp_J_kgK: between(900, 1300),
+        melt: { solidus_C: solidus, liquidus_C: rand() < 0.5 ? solidus : between(solidus, solidus + 8), latent_J_kg: between(1e5, 3e5) },
+      },
+    },
+    layers: [
+      { id: 'collector', material: rand() < 0.5 ? 'nickel' : 'mild-steel', thickness_mm: between(0.3, 1.5) },
+      { id: 'separator', material: salt, thickness_mm: between(0.5, 2), separator: true },
+      { id: 'electrode', material: rand() < 0.5 ? 'magnesium' : 'iron', thickness_mm: between(0.5, 2) },
+    ],
+    bottom: [
+      { from_s: 0, plate: { temperature_C: between(430, 520), conductance_W_m2K: between(300, 1500) } },
+      { from_s: hold, convection_W_m2K: 'natural', emissivity: between(0.2, 0.8) },
+    ],
+    top: [{ from_s: 0, convection_W_m2K: 'natural', emissivity: between(0.2, 0.8) }],
+  } as ScenarioFile;
+}
+
+const dir = new URL('../../examples/', import.meta.url);
+const examples = readdirSync(dir).filter((f) => f.endsWith('.json')).sort();
+const read = (f: string) => JSON.parse(readFileSync(new URL(f, dir), 'utf8')) as ScenarioFile;
+
+describe('numerics.event_accuracy_s', () => {
+  it.each(examples)('runProblem() on %s at the default accuracy keeps its event times within it of a 4× refined run', (file) => {
+    expect(holds(read(file), undefined, file)).toBeGreaterThanOrEqual(2);
+  });
+
+  it('runProblem() on examples/soaked-cloth-cell.json asked for 0.25 s keeps its event times within 0.25 s of a 4× refined run', () => {
+    expect(holds(read('soaked-cloth-cell.json'), 0.25, 'soaked-cloth-cell.json at 0.25 s')).toBeGreaterThanOrEqual(2);
+  });
+
+  it('runProblem() on seeded random melt-and-freeze stacks asked for 0.5 s keeps every event within 0.5 s of a 4× refined run', () => {
+    let compared = 0;
+    for (let seed = 1; seed <= 8; seed++) compared += holds(randomMeltScenario(seededRandom(seed * 7919)), 0.5, `random stack #${seed}`);
+    // the scan must reach events, or it proves nothing
+    expect(compared).toBeGreaterThanOrEqual(16);
+  }, 900_000);
+
+  it('parseScenario() without the key keeps the default grid and tolerances and states their modelled accuracy', () => {
+    const parsed = parseScenario(read('bench-coupon.json'));
+    if (!parsed.ok) throw new Error('demo invalid');
+    const plan = parsed.problem.numerics.accuracy!;
+    // max(0.5 s, 5.5e-4 × 3600 s): the accuracyDefaults rule, computed by hand
+    assertClose(plan.eventAccuracyS, 1.98, { rel: 1e-12 }, 'accuracy stated for the demo, s');
+    expect([plan.level, plan.gridRefine, plan.toleranceDivisor, plan.meltRampK]).toEqual([0, 1, 1, 0]);
+  });
+
+  it('parseScenario() lets tolerances given in the file win over the accuracy asked, and refines only the grid', () => {
+    const parsed = parseScenario({ ...read('soaked-cloth-cell.json'), numerics: { event_accuracy_s: 0.1, tolerance_K: 0.3 } });
+    if (!parsed.ok) throw new Error('invalid');
+    const { accuracy, toleranceK } = parsed.problem.numerics;
+    expect(toleranceK).toBe(0.3);
+    expect(accuracy!.gridRefine).toBeGreaterThan(1);
+    expect([accuracy!.toleranceDivisor, accuracy!.meltRampK]).toEqual([1, 0]);
+  });
+
+  it('parseScenario() refuses an accuracy no grid within the cell limit reaches, naming numerics.event_accuracy_s', () => {
+    const parsed = parseScenario({ ...read('insulated-pellet-stack.json'), duration_s: 5e4, numerics: { event_accuracy_s: 0.001 } });
+    expect(parsed.ok).toBe(false);
+    if (parsed.ok) return;
+    expect(parsed.errors[0]!.path).toBe('numerics.event_accuracy_s');
+    expect(parsed.errors[0]!.message).toMatch(/got 0\.001$/);
+  });
+});
