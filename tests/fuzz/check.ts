@@ -38,8 +38,10 @@ const UNIT_ROUNDOFF = 2 ** -53;
  * Maximum principle slack: the local error tolerance tolerance_K itself. The discrete M-matrix system obeys the bound
  * (Patankar 1980 §4.3), but TR-BDF2's stability function is negative for large hλ (Hosea & Shampine 1996, §2), so a
  * stiff cell next to an abrupt change (a face held away from the initial temperature) under- or overshoots on the
- * first steps by a share of the jump, which the error control accepts up to tolerance_K (measured: ≤ 3 % of the jump).
+ * first steps by a share of the jump, which the error control accepts up to tolerance_K. Measured on 298 quick-range
+ * scenarios without heat input (seed 7): worst 0.0055·tolerance_K (1.1 mK). A tenth of tolerance_K keeps an 18× margin.
  */
+const MAX_PRINCIPLE_SHARE = 0.1;
 function bounds(s: ScenarioFile): [number, number] | undefined {
   const temps = [s.initial_C ?? s.ambient_C, s.ambient_C];
   for (const seg of [...s.bottom, ...s.top]) {
@@ -92,7 +94,7 @@ export function checkScenario(scenario: ScenarioFile): FuzzOutcome {
   const atRest = UNIT_ROUNDOFF * (stats.steps + 1) * capacity * swingK;
   if (!(e.imbalance_rel <= ENERGY_REL || imbalance <= atRest)) return violation(`energy imbalance ${e.imbalance_rel} of the largest term (in ${e.in_J_m2}, out ${e.out_J_m2}, stored ${e.stored_J_m2} J/m²)`);
   const b = bounds(scenario);
-  const slack = parsed.problem.numerics.toleranceK;
+  const slack = MAX_PRINCIPLE_SHARE * parsed.problem.numerics.toleranceK;
   if (b && (coldest < b[0] - slack || hottest > b[1] + slack)) {
     return violation(`without heat input the temperatures ${coldest}–${hottest} °C leave [${b[0]}, ${b[1]}] °C`);
   }
