@@ -18,6 +18,7 @@ import type { Problem } from '../sim/physics/problem.ts';
 import { runProblem, solvedProblem } from '../sim/run.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
+import { accuracyDefaults } from '../sim/scenario/accuracy.ts';
 import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
 import { runPeer } from './peer-bdf.ts';
 
@@ -95,9 +96,12 @@ const ownScenario = {
 const atAccuracy = (a: number) => parse({ ...ownScenario, numerics: { event_accuracy_s: a } });
 const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
 const accuracies = QUICK ? [1, 0.1] : [1, 0.1, 0.01];
-// the reference: two levels beyond the finest row asked (cells × 4, tolerances ÷ 9)
+// the reference: two levels beyond the finest row asked (cells × 4, tolerances ÷ 9), or the finest level there is
 const finest = atAccuracy(accuracies[accuracies.length - 1]!).numerics.accuracy!;
-const ref = runProblem(atAccuracy(finest.expectedErrorS / 4), { detail: 'summary' });
+const coarsest = atAccuracy(accuracies[0]!).numerics.accuracy!;
+const levelOne = coarsest.expectedErrorS * 2 ** coarsest.level; // the modelled error at level 0
+const refLevel = Math.min(finest.level + 2, accuracyDefaults.maxLevel);
+const ref = runProblem(atAccuracy(levelOne / 2 ** refLevel), { detail: 'summary' });
 if (ref.status !== 'ok') throw new Error('the reference run failed');
 const refTimes = EVENTS.map((e) => ref.summary.separator[e]);
 const heatOffS = ref.summary.heat_off_s ?? ownScenario.duration_s;
@@ -115,6 +119,7 @@ for (const a of accuracies) {
   const solved = solvedProblem(problem);
   const own = runProblem(problem, { detail: 'summary' });
   if (own.status !== 'ok') { console.log(`  ${a}: freezeline run ${own.status}`); continue; }
+  if (problem.numerics.accuracy!.level >= refLevel) { console.log(`  ${String(a).padStart(7)}   level ${problem.numerics.accuracy!.level}: no finer reference within accuracyDefaults.maxLevel`); continue; }
   const ownErr = worst(EVENTS.map((e) => own.summary.separator[e]));
   const grid = buildGrid(solved, solved.numerics.accuracy!.gridRefine);
   // the peer's cheapest tolerance reaching the accuracy asked on the same grid
