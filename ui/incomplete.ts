@@ -1,5 +1,6 @@
 /**
- * "To fill in" versus "wrong": a heat-source row just added has empty required fields (its value, its end). Those
+ * "To fill in" versus "wrong": a heat-source row just added has empty required fields (its value, its end), and so do
+ * side-wall losses just switched on (the emissivity) and a sleeve just added (its material, its thickness). Those
  * are not errors — nothing was typed yet — so the page marks them "to fill in" and requests no run until they are
  * filled; a value that is there but wrong is the solver's to name, beside its field, as usual. Only an absent key
  * counts as empty: text or a bad number is sent to the solver.
@@ -20,6 +21,12 @@ export function fieldsToFill(draft: JsonObject): string[] {
       for (const key of REQUIRED) if (!Object.hasOwn(row, key)) out.push(`layers[${i}].source_W_m3[${j}].${key}`);
     });
   });
+  // side-wall losses (ui/edges-editor.ts): switched on with the emissivity still to give, or a sleeve just added
+  if (isObject(draft.edges)) {
+    if (!Object.hasOwn(draft.edges, 'emissivity')) out.push('edges.emissivity');
+    const sleeve = draft.edges.sleeve;
+    if (isObject(sleeve)) for (const key of ['material', 'thickness_mm']) if (!Object.hasOwn(sleeve, key)) out.push(`edges.sleeve.${key}`);
+  }
   return out;
 }
 

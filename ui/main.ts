@@ -12,6 +12,7 @@ import { createDraftStore } from './draft.ts';
 import { byId } from './dom.ts';
 import { clearFieldErrors, showFieldErrors } from './errors-view.ts';
 import { renderFaceEditor } from './faces-editor.ts';
+import { renderEdgesEditor } from './edges-editor.ts';
 import { syncPeers } from './fields.ts';
 import { fieldsToFill, markFieldsToFill } from './incomplete.ts';
 import { download, fileStem, readScenarioFile, scenarioText } from './files.ts';
@@ -56,6 +57,7 @@ function renderEditors(): void {
   setup = renderSetupEditor(byId('setup'), store);
   renderFaceEditor(byId('faces-top'), store, 'top');
   renderFaceEditor(byId('faces-bottom'), store, 'bottom');
+  renderEdgesEditor(byId('edges'), store);
   showFieldErrors(editorRoot, generalErrors, lastErrors);
 }
 
@@ -73,7 +75,7 @@ const runner = createRunner({
     // only a run long enough to report progress marks the shown result as old: quick runs do not flicker
     if (results.current()) results.stale('Computing the edited scenario; the result shown is the previous one.');
   },
-  onDone: (job, scenario, record, summary, solveMs) => {
+  onDone: (job, scenario, record, summary, solveMs, accuracy) => {
     const bad = firstNonFinite(record);
     if (bad !== undefined || !isObject(scenario)) {
       status.set('failed', `internal error: the result holds a non-finite value (${bad ?? 'scenario'}); nothing shown`);
@@ -85,7 +87,7 @@ const runner = createRunner({
     performance.mark('freezeline:result');
     // nodes are the cell centres plus the two face points (sim/observe/record.ts)
     status.set('done', `${record.nodeXMm.length - 2} ${terms.cell.term}s, ${record.tS.length} time points, solved in ${formatNumber(solveMs, { decimals: 0 })} ms`);
-    const drawn = results.show(shownResult(job, scenario as JsonObject, record, summary));
+    const drawn = results.show(shownResult(job, scenario as JsonObject, record, summary, accuracy));
     performance.mark('freezeline:verdict');
     void drawn.then(() => performance.mark('freezeline:plotted'));
     // the window search (many runs) starts once the charts are drawn, in its own worker

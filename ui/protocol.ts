@@ -10,7 +10,11 @@ export type ToWorker = { readonly type: 'run'; readonly job: number; readonly sc
 
 export type FromWorker =
   | { readonly type: 'progress'; readonly job: number; readonly t_s: number }
-  | { readonly type: 'done'; readonly job: number; readonly record: WireRecord; readonly summary: Summary; readonly solveMs: number }
+  | {
+    readonly type: 'done'; readonly job: number; readonly record: WireRecord; readonly summary: Summary; readonly solveMs: number;
+    /** The accuracy the run was solved to, in the terminal table's words (sim/scenario/accuracy.ts accuracyLine). */
+    readonly accuracy: string;
+  }
   | { readonly type: 'error'; readonly job: number; readonly errors: readonly FieldError[] }
   | { readonly type: 'failed'; readonly job: number; readonly message: string };
 

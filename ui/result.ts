@@ -29,9 +29,11 @@ export interface ShownResult {
   /** Footprint width for the drawing, mm (diameter or width), if given. */
   readonly widthMm: number | undefined;
   readonly areaM2: number | undefined;
+  /** The accuracy the run was solved to, in words (the worker's accuracyLine); undefined where none was sent. */
+  readonly accuracy?: string;
 }
 
-export function shownResult(job: number, scenario: JsonObject, record: WireRecord, summary: Summary): ShownResult {
+export function shownResult(job: number, scenario: JsonObject, record: WireRecord, summary: Summary, accuracy?: string): ShownResult {
   let at = 0;
   const idOf = (l: unknown, index: number): string => asString(asObject(l as JsonObject).id) ?? `layer ${index + 1}`;
   const colours = layerColours(asList(scenario.layers).map(idOf));
@@ -47,7 +49,8 @@ export function shownResult(job: number, scenario: JsonObject, record: WireRecor
     return view;
   });
   const fp = asObject(scenario.footprint);
-  return { job, scenario, record, summary, layers, widthMm: asNumber(fp.diameter_mm) ?? asNumber(fp.width_mm), areaM2: footprintAreaM2(scenario) };
+  return { job, scenario, record, summary, layers, widthMm: asNumber(fp.diameter_mm) ?? asNumber(fp.width_mm), areaM2: footprintAreaM2(scenario),
+    ...(accuracy === undefined ? {} : { accuracy }) };
 }
 
 /** Index of the recorded step nearest to t (s). */

@@ -18,7 +18,7 @@ export const runnerDefaults = {
 export interface RunHandlers {
   readonly onStart: (job: number) => void;
   readonly onProgress: (tS: number) => void;
-  readonly onDone: (job: number, scenario: unknown, record: WireRecord, summary: Summary, solveMs: number) => void;
+  readonly onDone: (job: number, scenario: unknown, record: WireRecord, summary: Summary, solveMs: number, accuracy: string) => void;
   readonly onErrors: (errors: readonly FieldError[]) => void;
   readonly onFailed: (message: string) => void;
   readonly onCancelled: () => void;
@@ -75,7 +75,7 @@ export function createRunner(handlers: RunHandlers): Runner {
     if (msg.job !== job) return;
     switch (msg.type) {
       case 'progress': handlers.onProgress(msg.t_s); return;
-      case 'done': running = false; handlers.onDone(msg.job, sent, msg.record, msg.summary, msg.solveMs); return;
+      case 'done': running = false; handlers.onDone(msg.job, sent, msg.record, msg.summary, msg.solveMs, msg.accuracy); return;
       case 'error': running = false; handlers.onErrors(msg.errors); return;
       case 'failed': running = false; handlers.onFailed(msg.message); return;
     }

@@ -4,7 +4,7 @@
  * together, by the core's rule (ui/heat-off.ts): the `from_s` of the bottom row where the heating ends — the same value
  * as that row's own "from" field, kept in step with it — and the `to_s` of Joule, W/kg and source heat ending then.
  */
-import { verdictTerms } from '../sim/index.ts';
+import { accuracyPlan, verdictTerms } from '../sim/index.ts';
 import type { DraftStore } from './draft.ts';
 import { h } from './dom.ts';
 import { fieldWrapper, numberField, stringField, syncPeers } from './fields.ts';
@@ -40,6 +40,13 @@ export interface SetupEditor {
   readonly refresh: () => void;
 }
 
+/** The accuracy a run without `numerics.event_accuracy_s` states, s, by the core's rule (its defaults). */
+function defaultAccuracyS(durationS: number | undefined): number | undefined {
+  if (durationS === undefined || !(durationS > 0)) return undefined;
+  const plan = accuracyPlan({ eventAccuracyS: undefined, durationS, ownGrid: false, ownTolerances: false, baseCells: 0, maxCells: Infinity });
+  return 'error' in plan ? undefined : plan.eventAccuracyS;
+}
+
 /** The last list of fields the heat-off control moved: kept across redraws while it still holds one value. */
 let heatOffKept: readonly string[] | undefined;
 
@@ -55,7 +62,14 @@ export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEd
     const editor = root.closest('.editor') ?? document;
     for (const p of paths.slice(1)) syncPeers(editor, store, p, heatOff);
   });
+  const accuracy = numberField(store, {
+    path: 'numerics.event_accuracy_s', label: 'event-time accuracy', unit: 's', testid: 'event-accuracy-s', prune: true,
+    hint: 'How close the molten, half-frozen and frozen times should be. A smaller value refines the grid and the steps (slower runs). Empty: the default, which keeps the default grid and tolerances.',
+  });
+  const accuracyInput = accuracy.querySelector('input');
   const refresh = (): void => {
+    const byDefault = defaultAccuracyS(asNumber(store.get('duration_s')));
+    accuracyInput?.setAttribute('placeholder', byDefault === undefined ? 'default' : `default ${Number(byDefault.toPrecision(3))}`);
     const found = heatOffFields(store.current(), heatOffKept, document.activeElement === heatOff);
     if ('reason' in found) {
       heatOffKept = undefined;
@@ -93,6 +107,7 @@ export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEd
       numberField(store, { path: 'duration_s', label: 'duration', unit: 's' }),
       footprintFields(store),
       stringField(store, { path: 'name', label: 'scenario name', wide: true }),
-      probesField(store)));
+      probesField(store),
+      accuracy));
   return { refresh };
 }

@@ -15,6 +15,8 @@ import type { ShownResult } from './result.ts';
 
 type EventKey = 'molten_at_s' | 'half_frozen_at_s' | 'frozen_at_s';
 
+const sentenceCase = (line: string): string => `${line.charAt(0).toUpperCase()}${line.slice(1)}.`;
+
 function timeCard(key: EventKey, testid: string, s: Summary): HTMLElement {
   const value = s.separator[key];
   return h('div', { class: `card${value === null ? ' muted' : ''}`, title: verdictTerms[key].definition },
@@ -74,6 +76,8 @@ export function renderVerdict(root: HTMLElement, cautionList: HTMLElement, r: Sh
       timeCard('molten_at_s', 'verdict-molten-at', s),
       timeCard('half_frozen_at_s', 'verdict-half-frozen-at', s),
       timeCard('frozen_at_s', 'verdict-frozen-at', s)),
-    h('div', { class: 'cards layers' }, ...r.layers.map((l) => layerCard(r, l.id, cautions))));
+    h('div', { class: 'cards layers' }, ...r.layers.map((l) => layerCard(r, l.id, cautions))),
+    // the accuracy the event times were solved to (numerics.event_accuracy_s; the CLI prints the same line)
+    ...(r.accuracy === undefined ? [] : [h('p', { class: 'note accuracy-line', 'data-testid': 'verdict-accuracy' }, sentenceCase(r.accuracy))]));
   return cautions;
 }

@@ -2,7 +2,7 @@
  * The solver worker: checks the scenario, runs it, and posts progress (at most every `progressEveryMs`) and the
  * result. The run is synchronous; the page cancels it by terminating this worker.
  */
-import { parseScenario } from '../sim/index.ts';
+import { accuracyLine, parseScenario } from '../sim/index.ts';
 import { runProblem } from '../sim/index.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
 import { toWire } from './protocol.ts';
@@ -39,7 +39,8 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
     });
     if (outcome.status === 'ok') {
       const { wire, transfer } = toWire(outcome.record);
-      post({ type: 'done', job, record: wire, summary: outcome.summary, solveMs: performance.now() - started }, transfer);
+      post({ type: 'done', job, record: wire, summary: outcome.summary, solveMs: performance.now() - started,
+        accuracy: accuracyLine(parsed.problem.numerics.accuracy) }, transfer);
     } else if (outcome.status === 'failed') {
       post({ type: 'failed', job, message: `the solver stopped at t = ${formatNumber(outcome.tS)} s: ${outcome.message}` });
     }
