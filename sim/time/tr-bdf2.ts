@@ -12,7 +12,7 @@
 import type { LedgerChannel, StepConditions, Workspace } from '../grid/discretization.ts';
 import { CHANNEL_COUNT, evaluate, linearizeCellTerms, stageJacobian, stageResidual } from '../grid/discretization.ts';
 import { solveTridiagonal } from '../grid/tridiagonal.ts';
-import { cellKinks, stopAtKink } from './newton-kinks.ts';
+import { stopAtKink } from './newton-kinks.ts';
 import { beginPlateStage } from './plates.ts';
 
 const SQRT2 = Math.SQRT2;
@@ -95,7 +95,6 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
   newton: NewtonSettings, outcome: StepOutcome): StepStatus {
   const { n } = ws;
   const m = n + 2;
-  const kinks = cellKinks(ws.grid.materials);
   let previous = Infinity;
   for (let iter = 0; iter < newton.maxIterations; iter++) {
     evaluate(ws, U, cond);
@@ -108,7 +107,7 @@ function solveStage(ws: Workspace, buf: StepBuffers, U: Float64Array, h: number,
     const { delta, res } = buf;
     for (let j = 1; j <= n; j++) {
       const old = U[j]!;
-      const next = stopAtKink(kinks[j - 1]!, old, old - delta[j]!, ws.capacity[j - 1]! * KINK_NUDGE_K);
+      const next = stopAtKink(ws.curves[j - 1]!.kinks, old, old - delta[j]!, ws.capacity[j - 1]! * KINK_NUDGE_K);
       if (next !== old - delta[j]!) { clipped = true; delta[j] = old - next; }
       U[j] = next;
       const scaled = Math.abs(delta[j]! / ws.capacity[j - 1]!);
