@@ -6,7 +6,8 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseScenario, runProblem } from '../../sim/index.ts';
-import { heatOffFields, setHeatOff } from '../../ui/heat-off.ts';
+import { heatOffFieldWords, heatOffFields, setHeatOff } from '../../ui/heat-off.ts';
+import { fieldsToFill } from '../../ui/incomplete.ts';
 import type { JsonObject } from '../../ui/json.ts';
 import { getAt } from '../../ui/paths.ts';
 
@@ -80,5 +81,23 @@ describe('ui/heat-off heatOffFields()', () => {
     draft.bottom = [{ from_s: 0, plate: { temperature_C: 420, conductance_W_m2K: 800 } }];
     const found = heatOffFields(draft);
     expect('reason' in found && found.reason).toMatch(/lasts to the end of the run/);
+  });
+
+  it('heatOffFieldWords() names each field by its row or layer id, as the control\'s note prints it', () => {
+    const draft = example('soaked-cloth-cell.json');
+    expect(soakedFields.map((p) => heatOffFieldWords(draft, p))).toEqual(['bottom row 2 start', 'collector W/kg heat 1 end', 'anode Joule heat end']);
+  });
+});
+
+describe('ui/incomplete fieldsToFill() and side-wall losses', () => {
+  it('fieldsToFill() asks for the emissivity of side walls just switched on and for the material and thickness of a new sleeve', () => {
+    // the edges key requires emissivity, and a sleeve its material and thickness_mm (README, edges table)
+    const draft = example('bench-coupon.json');
+    draft.edges = { loss: true, convection_W_m2K: 'natural' };
+    expect(fieldsToFill(draft)).toEqual(['edges.emissivity']);
+    draft.edges = { loss: true, emissivity: 0.7, sleeve: {} };
+    expect(fieldsToFill(draft)).toEqual(['edges.sleeve.material', 'edges.sleeve.thickness_mm']);
+    // the example file with edges on has nothing left to fill in
+    expect(fieldsToFill(example('sleeved-square-cell.json'))).toEqual([]);
   });
 });
