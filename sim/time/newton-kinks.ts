@@ -7,7 +7,11 @@
  *
  * Tried and left out: stopping at the rows of a tabulated k(T) as well. It cured 4 fuzz scenarios whose cell cycled
  * across a steep row, and broke 4 others of the first 500 of seed 9 (more stops, so more Newton iterations than the
- * limit); the steep-k(T) failures have a deeper cause (DEVELOPERS.md, robustness).
+ * limit). The steep-k(T) failures have a deeper cause, in the space discretisation: k is taken at the cell's own
+ * temperature, so the conductance G toward a much hotter neighbour grows with the cell's temperature; where
+ * (dG/dT)·ΔT > G (k ×95 over 4 K, 170 K across the face) the discrete flux falls as the cell warms, a cell locks onto
+ * the row and the solver chatters there (one 13-cell run took 1.4 M steps of ~1e-9 s). A half-cell flux through the
+ * Kirchhoff transform Φ(T) = ∫k dT is monotone in both temperatures and would remove it (open).
  */
 
 /**
