@@ -52,8 +52,13 @@ export function coldestK(T: Float64Array): number {
 export function belowAbsoluteZeroMessage(problem: Problem, ws: Workspace, cond: StepConditions, faceQ: Float64Array, tS: number): string {
   let what = 'the heat drawn from the stack';
   let most = 0;
-  const faces = [['bottom', faceQ[0]!], ['top', faceQ[1]!]] as const;
-  for (const [side, q] of faces) {
+  const faces = [['bottom', faceQ[0]!, cond.bottom, ws.bottomContext], ['top', faceQ[1]!, cond.top, ws.topContext]] as const;
+  const scratch = new Float64Array(1);
+  for (const [side, q, c, ctx] of faces) {
+    // only a face that would still draw heat at 0 K can be the cause: a held face, or one whose imposed flux and power
+    // do not outweigh its convection and radiation from surroundings above 0 K, only conducts a transient (the fuzz met
+    // a face held at −60 °C named for the −470 kW/m² drawn from the other face)
+    if (c.kind !== 'terms' || !(faceHeatIn(c, ctx, 0, scratch) < 0)) continue;
     if (q < -most) { most = -q; what = `the heat drawn from the ${side} face`; }
   }
   problem.layers.forEach((layer, li) => {

@@ -119,6 +119,18 @@ describe('energy ledger at rest', () => {
   });
 });
 
+describe('the face named when the stack would fall below absolute zero', () => {
+  it('runProblem() names the face that draws heat at 0 K, not a face held at a temperature', () => {
+    const file = new URL('./fuzz/below-absolute-zero-names-face-70.json', import.meta.url);
+    const kept = JSON.parse(readFileSync(file, 'utf8')) as { scenario: ScenarioFile };
+    // by hand: the top face's imposed terms draw 1000 W/m² + 50 W / (π·(11.6 mm)²/4 = 1.06e-4 m²) ≈ 474 kW/m² whatever
+    // its temperature; the bottom face is held at −60 °C and can cool nothing below that
+    const out = runProblem(parseOk(kept.scenario));
+    expect(out.status).toBe('failed');
+    if (out.status === 'failed') expect(out.message).toMatch(/^the heat drawn from the top face exceeds what the stack holds/);
+  });
+});
+
 describe('scenarios found by the fuzz suite', () => {
   const dir = new URL('./fuzz/', import.meta.url);
   const files = readdirSync(dir).filter((f) => f.endsWith('.json'));
