@@ -10,6 +10,8 @@
  * Unknowns (length n+2): U[0] = bottom face temperature (K), U[1..n] = cell enthalpies H (J/m³), U[n+1] = top face
  * temperature (K). Node temperatures T[0..n+1] follow from U through each cell's T(H).
  */
+import type { BenchNode } from '../physics/bench.ts';
+import { benchHeatIn, createBenchNode } from '../physics/bench.ts';
 import type { FaceContext } from '../physics/faces.ts';
 import { faceHeatIn } from '../physics/faces.ts';
 import type { PlateNode } from '../physics/heater.ts';
@@ -80,6 +82,8 @@ export interface Workspace {
   readonly faceDq: Float64Array;
   /** The heater plate behind each face (used while that face's condition is a heater; see physics/heater.ts). */
   readonly plates: readonly [PlateNode, PlateNode];
+  /** The bench chain under each face (used while that face's condition is a bench; see physics/bench.ts). */
+  readonly benches: readonly [BenchNode, BenchNode];
   readonly lower: Float64Array;
   readonly diag: Float64Array;
   readonly upper: Float64Array;
@@ -101,6 +105,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     capacity: new Float64Array(n), segmentHint: new Int32Array(n),
     latent: Float64Array.from(grid.materials, (mat) => (mat.melt ? mat.density * mat.melt.latentJPerKg : 0)),
     faceQ: new Float64Array(CHANNEL_COUNT), faceDq: new Float64Array(2), plates: [createPlateNode(NaN), createPlateNode(NaN)],
+    benches: [createBenchNode(), createBenchNode()],
     cellTerms, hasTerms: cellTerms.some((t) => t.length > 0),
     generatedDs: new Float64Array(n), edgeDs: new Float64Array(n), termScratch: new Float64Array(2),
     termState: new Float64Array(n).fill(NaN),
@@ -195,6 +200,12 @@ function evaluateFace(ws: Workspace, c: FaceCondition, side: 0 | 1, node: number
   if (c.kind === 'heater') {
     // the plate eliminated from the current stage: q and dq/dT are linear in the face temperature
     ws.faceQ[side] = plateHeatIn(c.heater, ws.plates[side], ws.T[node]!, ws.scratch2);
+    ws.faceDq[side] = ws.scratch2[0]!;
+    return;
+  }
+  if (c.kind === 'bench') {
+    // the bench chain eliminated from the current stage: q is affine in the face temperature
+    ws.faceQ[side] = benchHeatIn(ws.benches[side], ws.T[node]!, ws.scratch2);
     ws.faceDq[side] = ws.scratch2[0]!;
     return;
   }

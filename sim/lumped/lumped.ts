@@ -48,6 +48,7 @@ export function runLumped(problem: Problem): LumpedTrace {
   const faceIn = (c: FaceCondition, ctx: FaceContext, i: number, E: number) => {
     const layer = layers[i]!;
     if (c.kind === 'heater') throw new Error('runLumped: the lumped network has no heater body; run the grid solver (runProblem) for a heater face');
+    if (c.kind === 'bench') throw new Error('runLumped: the lumped network has no bench body; run the grid solver (runProblem) for a bench face');
     if (c.kind === 'fixed') {
       const k = conductivityAt(layer.material, E / layer.thicknessM, temps[i]!);
       return (c.tK - temps[i]!) / (layer.thicknessM / (2 * k));

@@ -7,6 +7,8 @@
  * its published source. Nothing here changes a run: it reads the Problem as the solver received it.
  */
 import { AIR_TABLE_RANGE_K } from '../physics/air.ts';
+import type { Bench } from '../physics/bench.ts';
+import { benchDefaults } from '../physics/bench.ts';
 import type { EdgeLoss } from '../physics/edge-loss.ts';
 import type { Heater } from '../physics/heater.ts';
 import type { Material } from '../physics/material.ts';
@@ -142,9 +144,34 @@ function heaterLines(at: string, h: Heater): Coefficient[] {
   return out;
 }
 
+function benchLines(at: string, b: Bench): Coefficient[] {
+  const m = b.material;
+  const src = (key: string): string => m.sources[key] ?? NO_SOURCE;
+  const depthMm = num(mToMm(b.widthsM.reduce((x, y) => x + y, 0)));
+  return [
+    { what: `${at}: bench surface`, value: `${m.title} (${m.name}), a semi-infinite solid from ${degC(b.startK)}`, source: `${m.from ?? 'built by the caller (no file)'}; the starting temperature ${FROM_FILE} or the ambient` },
+    {
+      what: `${at}: bench properties (constant, read at ${degC(b.propertiesAtK)})`,
+      value: `k ${num(b.conductivityWPerMK)} W/(m·K), ρc_p ${num(b.capacityJPerM3K)} J/(m³·K)`,
+      source: `k: ${src('k_W_mK')}; ρ: ${src('rho_kg_m3')}; c_p: ${src('cp_J_kgK')}`,
+    },
+    {
+      what: `${at}: bench contact conductance`,
+      value: b.contactWPerM2K === undefined ? 'perfect contact' : `${num(b.contactWPerM2K)} W/(m²·K)`,
+      source: b.contactWPerM2K === undefined ? 'the default without contact_W_m2K (an upper bound of the heat the bench draws)' : FROM_FILE,
+    },
+    {
+      what: `${at}: bench cells`,
+      value: `${b.widthsM.length} cells graded ×${num(benchDefaults.growth)} to ${depthMm} mm deep`,
+      source: `depth ${num(benchDefaults.depthDiffusionLengths)}·√(α·t) to the end of the run (erfc(2) ≈ 0.5 % of a surface step reaches it): physics/bench.ts`,
+    },
+  ];
+}
+
 function faceLines(at: string, c: FaceCondition, facing: 'down' | 'up', lengthM: number): Coefficient[] {
   if (c.kind === 'fixed') return [{ what: `${at}: held at`, value: degC(c.tK), source: FROM_FILE }];
   if (c.kind === 'heater') return heaterLines(at, c.heater);
+  if (c.kind === 'bench') return benchLines(at, c.bench);
   const out: Coefficient[] = [];
   if (c.fluxWPerM2 !== 0) out.push({ what: `${at}: imposed flux (heater power over the footprint included)`, value: `${num(c.fluxWPerM2)} W/m²`, source: FROM_FILE });
   if (c.plate) out.push({ what: `${at}: plate`, value: `${degC(c.plate.tK)} through ${num(c.plate.conductance)} W/(m²·K)`, source: FROM_FILE });

@@ -48,5 +48,6 @@ export function faceHeatIn(c: Terms, ctx: FaceContext, tK: number, out: Float64A
  * held at a fixed temperature (a plate of unbounded conductance), or a heater body (until it is lifted off).
  */
 export function isHeatInput(c: FaceCondition): boolean {
+  if (c.kind === 'bench') return false; // a bench only takes heat from the face
   return c.kind === 'fixed' || c.kind === 'heater' || c.plate !== undefined || c.fluxWPerM2 > 0;
 }

@@ -2,6 +2,7 @@
  * The problem as the solver sees it: a validated scenario converted to SI (m, s, K, W). Plain readonly data; built
  * only by scenario.ts. Face conditions are discriminated unions, so a held face can carry no other term.
  */
+import type { Bench } from './bench.ts';
 import type { CellHeatTerm } from './heat-terms.ts';
 import type { Heater } from './heater.ts';
 import type { Material } from './material.ts';
@@ -32,7 +33,9 @@ export type FaceCondition =
       readonly plate: Plate | undefined;
     }
   /** The face on a heater plate with its own thermal mass and control (heater.ts); the face takes no other term. */
-  | { readonly kind: 'heater'; readonly heater: Heater };
+  | { readonly kind: 'heater'; readonly heater: Heater }
+  /** The face resting on a bench surface, a semi-infinite solid (bench.ts); the face takes no other term. */
+  | { readonly kind: 'bench'; readonly bench: Bench };
 
 export interface FaceSegment {
   readonly fromS: number;

@@ -159,6 +159,17 @@ const heaterSchema = z.strictObject({
 });
 export type HeaterFile = z.infer<typeof heaterSchema>;
 
+/**
+ * A bench surface the face rests on (an addition to the contract; physics/bench.ts): a semi-infinite solid of a named
+ * material, from `start_C` (default: ambient_C), through `contact_W_m2K` (default: perfect contact).
+ */
+const benchSchema = z.strictObject({
+  material: shortName(),
+  contact_W_m2K: positive().optional(),
+  start_C: celsius().optional(),
+});
+export type BenchFile = z.infer<typeof benchSchema>;
+
 /** One segment of a face schedule: the sum of its terms holds from `from_s` until the next segment. */
 const faceSegmentSchema = z.strictObject({
   from_s: timeS(),
@@ -174,6 +185,7 @@ const faceSegmentSchema = z.strictObject({
   plate: plateSchema.optional(),
   fixed_C: celsius().optional(),
   heater: heaterSchema.optional(),
+  bench: benchSchema.optional(),
 });
 
 const footprintSchema = z.union([

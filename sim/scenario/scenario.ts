@@ -8,6 +8,7 @@ import type { Material } from '../physics/material.ts';
 import { layerHeatSources } from './heat-sources.ts';
 import { edgeTerms } from './edge-terms.ts';
 import { inlineMaterial } from './material-kinds.ts';
+import { benchCondition } from './bench-input.ts';
 import { heaterCondition } from './heater-input.ts';
 import type { FaceCondition, FaceSegment, Footprint, Layer, Numerics, Problem } from '../physics/problem.ts';
 import { footprintGeometry } from '../physics/problem.ts';
@@ -123,7 +124,9 @@ function faceSchedule(segments: readonly FaceSegmentFile[], side: 'bottom' | 'to
       errors.push({ path: `${path}.from_s`, message: `must be ≤ duration_s (${s.duration_s}), got ${seg.from_s}` });
     }
     let condition: FaceCondition;
-    if (seg.heater !== undefined) {
+    if (seg.bench !== undefined) {
+      condition = benchCondition(seg, path, s, materials, errors);
+    } else if (seg.heater !== undefined) {
       condition = heaterCondition(seg, path, s, footprint, materials, errors);
     } else if (seg.fixed_C !== undefined) {
       const others = (['flux_W_m2', 'power_W', 'convection_W_m2K', 'fluid_C', 'emissivity', 'surroundings_C', 'plate'] as const)

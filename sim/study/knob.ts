@@ -150,6 +150,8 @@ export function powerKnob(problem: Problem): Knob | string {
     return { vary: 'power', path: `${base}.heater.power_W`, label: 'heater power', unit: 'W', lo: 0, hi, own: heater.powerW, show: (v) => v,
       apply: checked(0, hi, (powerW) => set({ kind: 'heater', heater: { ...heater, powerW, powerWPerM2: powerW / heater.areaM2 } })) };
   }
+  // a bench is never a heat input (physics/faces.ts isHeatInput), so lastOrError never picks one
+  if (c.kind === 'bench') return `${base}: a bench surface is not a heat input`;
   if (c.plate) {
     const plate = c.plate;
     const { lo, hi } = tempRange(plate.tK);

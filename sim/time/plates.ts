@@ -13,6 +13,7 @@ import type { Grid } from '../grid/mesh.ts';
 import type { Heater } from '../physics/heater.ts';
 import { plateRate, setPointAt } from '../physics/heater.ts';
 import type { Problem } from '../physics/problem.ts';
+import { attachBenches, beginBenchStage, commitBenches } from './bench-chain.ts';
 import type { StateSwitch, Thermostat } from './events.ts';
 import { stackSensorK, thermostat } from './events.ts';
 
@@ -33,6 +34,8 @@ const nodeOf = (ws: Workspace, side: 0 | 1): number => (side === 0 ? 0 : ws.n + 
  */
 export function beginPlateStage(ws: Workspace, cond: StepConditions, hd: number, stage: 'trapezoid' | 'euler' | 'bdf2',
   q0: Float64Array, qg: Float64Array, Ug: Float64Array, a = 0, bb = 0): void {
+  // a bench under a face takes the same stages (bench-chain.ts)
+  beginBenchStage(ws, cond, hd, stage, q0, Ug, a, bb);
   for (const side of SIDES) {
     const h = heaterOn(cond, side);
     if (!h) continue;
@@ -109,6 +112,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
     /** New conditions from tS on (the start, a schedule change): powers follow each heater's control. */
     attach(next: StepConditions, previous: StepConditions | undefined, tS: number): void {
       cond = next;
+      attachBenches(ws, next, previous);
       for (const side of SIDES) {
         const h = heaterOn(next, side);
         const node = ws.plates[side];
@@ -143,6 +147,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
      * method's quadrature): advances the plates and returns what each side's heater did.
      */
     commit(hS: number, w: readonly [number, number, number], qg: Float64Array, q1: Float64Array, Ug: Float64Array, U1: Float64Array, out: [PlateStep, PlateStep]): void {
+      commitBenches(ws, cond, U1);
       for (const side of SIDES) {
         const r = out[side];
         const h = cond ? heaterOn(cond, side) : undefined;
