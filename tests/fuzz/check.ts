@@ -21,8 +21,12 @@ export interface FuzzOutcome {
   readonly steps: number;
 }
 
-/** Stop messages that name a physical cause (evolve.ts). Anything else is a violation. */
-export const PHYSICAL_STOPS = [/would fall below absolute zero/, /exceed its step budget/];
+/**
+ * Stop messages that name a physical cause (step-guards.ts): a face or a source that draws heat even at 0 K. Anything
+ * else is a violation: "the heat drawn from the stack" (no such face or source: a numerical stop in physical words)
+ * and the step budget (work, not physics: validation refuses a budget that max_step_s alone would force).
+ */
+export const PHYSICAL_STOPS = [/^the heat drawn (from the (bottom|top) face|by the source in layer .+) exceeds what the stack holds: its temperature would fall below absolute zero/];
 
 /**
  * Energy balance: the imbalance relative to the largest term. Each stage closes its equations to the round-off of its
