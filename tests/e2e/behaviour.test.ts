@@ -21,10 +21,11 @@ describe('the browser view while a run is long or an input is wrong', () => {
   it('a long run shows progress, the page keeps answering, and cancel keeps the last result', async () => {
     const page = await freshPage();
     const halfFrozen = await text(page, 'verdict-half-frozen-at');
-    // the demo with a 0.04 s step cap: about 90 000 steps, many seconds of solving (under the scenario's limit of
-    // 100 000 forced steps, scenarioLimitDefaults.maxForcedSteps)
+    // the demo with a 0.04 s step cap on a grid 3× finer: about 90 000 steps of 120 cells, tens of seconds of solving
+    // however fast the machine (under the scenario's limits of 100 000 forced steps and 5e7 cell-steps,
+    // scenarioLimitDefaults), so the run is still going when the page is asked and when cancel is clicked
     const demo = JSON.parse(readFileSync(`${repoRoot}examples/bench-coupon.json`, 'utf8')) as Record<string, unknown>;
-    writeFileSync(`${artifacts}/slow-demo.json`, JSON.stringify({ ...demo, numerics: { max_step_s: 0.04 } }));
+    writeFileSync(`${artifacts}/slow-demo.json`, JSON.stringify({ ...demo, numerics: { max_step_s: 0.04, cells_per_mm: 20, separator_cells_per_mm: 40 } }));
     await page.setInputFiles('[data-testid="load-json"]', `${artifacts}/slow-demo.json`);
     await statusIs(page, 'running');
     await page.waitForFunction(() => Number((document.getElementById('run-progress') as HTMLProgressElement).value) > 0);
