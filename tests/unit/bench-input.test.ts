@@ -1,7 +1,9 @@
 // The scenario's bench key (sim/scenario/bench-input.ts): accepted as written, refused with a message that names the
 // field and the value. The expected properties are the inline material's own numbers and the library file's
 // (materials/ceramic-tile.json: k 1.0 W/(m·K), ρ 2000 kg/m³, c_p 850 J/(kg·K)).
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { coefficientTrace } from '../../sim/observe/coefficients.ts';
 import { parseScenario } from '../../sim/scenario/scenario.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { scenario, toK } from '../support/scenarios.ts';
@@ -69,5 +71,19 @@ describe('scenario bench key', () => {
   it('parseScenario() refuses a bench segment that starts at the end of the run', () => {
     const f = { ...file({}), bottom: [{ from_s: 600, bench: { material: 'stone' } }] };
     expect(errorsOf(f)).toContain('bottom[0].from_s: a bench segment must start before the end of the run (duration_s 600), got 600');
+  });
+
+  it('coefficientTrace() lists the bench with the source texts of its material file', () => {
+    const parsed = parseScenario(file({ bench: { material: 'ceramic-tile' } }));
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
+    const lines = coefficientTrace(parsed.problem).filter((c) => c.what.startsWith('bottom face from 100 s: bench'));
+    // the sources as written in the library file on disk, not as the code holds them
+    const onDisk = JSON.parse(readFileSync(new URL('../../materials/ceramic-tile.json', import.meta.url), 'utf8')) as { sources: Record<string, string> };
+    const props = lines.find((c) => c.what.includes('bench properties'));
+    expect(props?.source).toContain(onDisk.sources['k_W_mK']);
+    expect(props?.source).toContain(onDisk.sources['rho_kg_m3']);
+    expect(props?.source).toContain(onDisk.sources['cp_J_kgK']);
+    expect(lines.find((c) => c.what.includes('bench surface'))?.source).toContain('materials/ceramic-tile.json');
+    expect(lines.find((c) => c.what.includes('contact'))?.value).toBe('perfect contact');
   });
 });

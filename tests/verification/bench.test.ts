@@ -1,6 +1,8 @@
 // A face set on a bench surface (physics/bench.ts, time/bench-chain.ts), against the closed forms of two semi-infinite
-// solids brought into perfect contact (Incropera & DeWitt, Fundamentals of Heat and Mass Transfer, 6th ed., §5.7,
-// eq. 5.63; Carslaw & Jaeger, Conduction of Heat in Solids, 2nd ed., §2.15): the interface takes at once, and keeps,
+// solids brought into perfect contact (Incropera & DeWitt, Fundamentals of Heat and Mass Transfer, §5.7, the interface
+// of two semi-infinite solids at different initial temperatures; the equation is numbered 5.63 in the brief, which we
+// could not check against the book here, so the formula is what we rely on; Carslaw & Jaeger, Conduction of Heat in
+// Solids, 2nd ed., ch. II, from memory): the interface takes at once, and keeps,
 //   T_s = (e₁·T₁ + e₂·T₂)/(e₁ + e₂),   e = √(k·ρ·c)   (the effusivity),
 // and the heat into the colder solid is q(t) = e₂·(T_s − T₂)/√(π·t), so Q(t) = 2·e₂·(T_s − T₂)·√(t/π).
 // Both hold while neither solid's far end is reached: here the stack is 60 mm thick and the run 200 s, so the stack's
