@@ -8,7 +8,7 @@
  */
 import { AIR_TABLE_RANGE_K } from '../physics/air.ts';
 import type { Bench } from '../physics/bench.ts';
-import { benchDefaults } from '../physics/bench.ts';
+import { benchChainWidths, benchDefaults, benchDiffusivity } from '../physics/bench.ts';
 import type { EdgeLoss } from '../physics/edge-loss.ts';
 import type { Heater } from '../physics/heater.ts';
 import type { Material } from '../physics/material.ts';
@@ -144,10 +144,10 @@ function heaterLines(at: string, h: Heater): Coefficient[] {
   return out;
 }
 
-function benchLines(at: string, b: Bench): Coefficient[] {
+function benchLines(at: string, b: Bench, restS: number): Coefficient[] {
   const m = b.material;
   const src = (key: string): string => m.sources[key] ?? NO_SOURCE;
-  const depthMm = num(mToMm(b.widthsM.reduce((x, y) => x + y, 0)));
+  const depthMm = num(mToMm(benchChainWidths(benchDiffusivity(b), restS).reduce((x, y) => x + y, 0)));
   return [
     { what: `${at}: bench surface`, value: `${m.title} (${m.name}), a semi-infinite solid from ${degC(b.startK)}`, source: `${m.from ?? 'built by the caller (no file)'}; the starting temperature ${FROM_FILE} or the ambient` },
     {
@@ -162,16 +162,17 @@ function benchLines(at: string, b: Bench): Coefficient[] {
     },
     {
       what: `${at}: bench cells`,
-      value: `${b.widthsM.length} cells graded ×${num(benchDefaults.growth)} to ${depthMm} mm deep`,
-      source: `depth ${num(benchDefaults.depthDiffusionLengths)}·√(α·t) to the end of the run (erfc(2) ≈ 0.5 % of a surface step reaches it): physics/bench.ts`,
+      value: `${benchDefaults.cells} cells graded ×${num(benchDefaults.growth)} to ${depthMm} mm deep`,
+      source: `depth ${num(benchDefaults.depthDiffusionLengths)}·√(α·t), t from the segment to the end of the run (the far end then changes the surface heat flux by about e⁻¹⁶): physics/bench.ts`,
     },
   ];
 }
 
-function faceLines(at: string, c: FaceCondition, facing: 'down' | 'up', lengthM: number): Coefficient[] {
+/** restS: the time from the segment to the end of the run, s (what a bench's chain is built for). */
+function faceLines(at: string, c: FaceCondition, facing: 'down' | 'up', lengthM: number, restS: number): Coefficient[] {
   if (c.kind === 'fixed') return [{ what: `${at}: held at`, value: degC(c.tK), source: FROM_FILE }];
   if (c.kind === 'heater') return heaterLines(at, c.heater);
-  if (c.kind === 'bench') return benchLines(at, c.bench);
+  if (c.kind === 'bench') return benchLines(at, c.bench, restS);
   const out: Coefficient[] = [];
   if (c.fluxWPerM2 !== 0) out.push({ what: `${at}: imposed flux (heater power over the footprint included)`, value: `${num(c.fluxWPerM2)} W/m²`, source: FROM_FILE });
   if (c.plate) out.push({ what: `${at}: plate`, value: `${degC(c.plate.tK)} through ${num(c.plate.conductance)} W/(m²·K)`, source: FROM_FILE });
@@ -209,7 +210,7 @@ export function coefficientTrace(problem: Problem): Coefficient[] {
   });
   const lengthM = characteristicLengthM(problem.footprint);
   for (const [side, facing] of [['bottom', 'down'], ['top', 'up']] as const) {
-    for (const seg of problem[side]) out.push(...faceLines(`${side} face from ${num(seg.fromS)} s`, seg.condition, facing, lengthM));
+    for (const seg of problem[side]) out.push(...faceLines(`${side} face from ${num(seg.fromS)} s`, seg.condition, facing, lengthM, problem.durationS - seg.fromS));
   }
   const usesAir = [...problem.bottom, ...problem.top].some((s) => s.condition.kind === 'terms' && s.condition.convection.kind === 'natural')
     || problem.layers.some((l) => (l.terms ?? []).some((t) => t.kind === 'edge' && t.loss.convection.kind === 'natural'));

@@ -27,6 +27,8 @@ export const benchDefaults = {
   cells: 60,
   /** Growth ratio of consecutive cells: 10 % keeps the non-uniform-grid error of the fluxes small (first order in r − 1). */
   growth: 1.1,
+  /** Shortest time a chain is built for, s: a bench placed at the very end of a run still gets cells of nonzero width. */
+  minRestS: 1e-3,
 } as const;
 
 /** The bench under a face during a segment: constant properties, its chain of cells, and its starting temperature. */
@@ -41,8 +43,6 @@ export interface Bench {
   readonly contactWPerM2K: number | undefined;
   /** Temperature of the whole bench when the face is set on it, K. */
   readonly startK: number;
-  /** Cell widths from the face down, m; their sum is the chain's depth. */
-  readonly widthsM: Float64Array;
 }
 
 /** Effusivity e = √(k·ρc), W·s^½·m⁻²·K⁻¹: what sets the interface temperature of two solids in contact. */
@@ -50,7 +50,7 @@ export const effusivity = (b: Bench): number => Math.sqrt(b.conductivityWPerMK *
 
 /** Cell widths (m) of a chain as deep as the rule above for a bench of diffusivity alphaM2PerS over restS seconds. */
 export function benchChainWidths(alphaM2PerS: number, restS: number, d = benchDefaults): Float64Array {
-  const depth = d.depthDiffusionLengths * Math.sqrt(alphaM2PerS * restS);
+  const depth = d.depthDiffusionLengths * Math.sqrt(alphaM2PerS * Math.max(restS, d.minRestS));
   const first = (depth * (d.growth - 1)) / (d.growth ** d.cells - 1);
   return Float64Array.from({ length: d.cells }, (_, i) => first * d.growth ** i);
 }
@@ -67,6 +67,8 @@ export interface BenchNode {
   /** The stage solution T = x0 + T_face·x1 (K and K/K). */
   x0: Float64Array;
   x1: Float64Array;
+  /** Cell widths from the face down, m (their sum is the chain's depth). */
+  widthsM: Float64Array;
   /** Areal heat capacity ρc·Δx per cell, J·m⁻²·K⁻¹, and the conductances g₀ (face → cell 0) … g_{N−1}, W·m⁻²·K⁻¹. */
   cap: Float64Array;
   g: Float64Array;
@@ -74,15 +76,22 @@ export interface BenchNode {
 
 export function createBenchNode(): BenchNode {
   const none = new Float64Array(0);
-  return { bench: undefined, t: none, b: none, hd: 0, x0: none, x1: none, cap: none, g: none };
+  return { bench: undefined, t: none, b: none, hd: 0, x0: none, x1: none, widthsM: none, cap: none, g: none };
 }
 
-/** Sets the node up for a bench just placed under the face: every cell at the bench's starting temperature. */
-export function placeBench(node: BenchNode, bench: Bench): void {
-  const w = bench.widthsM;
+/** Diffusivity α = k/(ρc_p) of the bench, m²/s. */
+export const benchDiffusivity = (b: Bench): number => b.conductivityWPerMK / b.capacityJPerM3K;
+
+/**
+ * Sets the node up for a bench just placed under the face, restS seconds before the end of the run (the chain is
+ * built deep enough for that time, wherever the segment was moved to): every cell at the bench's starting temperature.
+ */
+export function placeBench(node: BenchNode, bench: Bench, restS: number): void {
+  const w = benchChainWidths(benchDiffusivity(bench), restS);
   const n = w.length;
   const k = bench.conductivityWPerMK;
   node.bench = bench;
+  node.widthsM = w;
   node.t = new Float64Array(n).fill(bench.startK);
   node.b = Float64Array.from(node.t);
   node.x0 = Float64Array.from(node.t);

@@ -8,7 +8,6 @@
  */
 import type { Material } from '../physics/material.ts';
 import { evalTable, sensibleCapacity } from '../physics/material.ts';
-import { benchChainWidths } from '../physics/bench.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import { ADIABATIC } from '../physics/problem.ts';
 import { cToK, kToC } from '../physics/units.ts';
@@ -62,7 +61,6 @@ export function benchCondition(seg: FaceSegmentFile, path: string, s: ScenarioFi
       propertiesAtK: startK,
       contactWPerM2K: b.contact_W_m2K,
       startK,
-      widthsM: benchChainWidths(k / rhoC, restS),
     },
   };
 }

@@ -33,14 +33,14 @@ function ensureScratch(n: number): void {
   scratch.rhs = new Float64Array(n); scratch.work = new Float64Array(n);
 }
 
-/** New conditions: a bench that was not under the face before is placed, at its starting temperature. */
-export function attachBenches(ws: Workspace, next: StepConditions, previous: StepConditions | undefined): void {
+/** New conditions, restS seconds before the end of the run: a bench that was not under the face before is placed, at its starting temperature. */
+export function attachBenches(ws: Workspace, next: StepConditions, previous: StepConditions | undefined, restS: number): void {
   for (const side of SIDES) {
     const bench = benchOn(next, side);
     const node = ws.benches[side];
     if (!bench) continue;
     const was = previous ? benchOn(previous, side) : undefined;
-    if (was !== bench || node.bench !== bench) { placeBench(node, bench); ensureScratch(bench.widthsM.length); }
+    if (was !== bench || node.bench !== bench) { placeBench(node, bench, restS); ensureScratch(node.t.length); }
     holdChain(node);
   }
 }

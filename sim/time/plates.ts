@@ -112,7 +112,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
     /** New conditions from tS on (the start, a schedule change): powers follow each heater's control. */
     attach(next: StepConditions, previous: StepConditions | undefined, tS: number): void {
       cond = next;
-      attachBenches(ws, next, previous);
+      attachBenches(ws, next, previous, problem.durationS - tS);
       for (const side of SIDES) {
         const h = heaterOn(next, side);
         const node = ws.plates[side];
