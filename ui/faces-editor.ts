@@ -2,13 +2,15 @@
  * The bottom and top face schedules: rows in time order, each holding from its start time until the next row.
  * A row is a sum of terms, every one optional (empty = absent): a held plate, an imposed heat flux or heater power,
  * convection (a coefficient or the natural-convection correlation), radiation, or the face held at a temperature.
+ * Or the row is of the kind "heater body" (ui/heater-editor.ts): a heater with its plate and control, and no other term.
  */
 import type { DraftStore } from './draft.ts';
 import { button, h } from './dom.ts';
 import { fieldWrapper, numberField } from './fields.ts';
 import { inputText, parseNumberInput } from './format.ts';
-import { asList, asNumber, asObject, type JsonObject } from './json.ts';
+import { asList, asNumber, asObject, isObject, type JsonObject } from './json.ts';
 import { segmentSummary } from './face-summary.ts';
+import { heaterTerm, NON_HEATER_TERMS, setHeaterKind } from './heater-editor.ts';
 
 export type Side = 'bottom' | 'top';
 
@@ -42,30 +44,51 @@ function convectionField(store: DraftStore, path: string): HTMLElement {
   return fieldWrapper('convection', 'W/(m²·K)', 'Heat lost to the surrounding air: a coefficient, or the correlation for a horizontal plate in still air.', select, input);
 }
 
+/** The row's kind: a sum of terms, or a heater body (which excludes the terms). */
+function kindField(store: DraftStore, p: string, testid: string): HTMLElement {
+  const heater = isObject(asObject(store.get(p)).heater);
+  const select = h('select', { 'data-testid': testid, 'aria-label': 'row kind' },
+    h('option', { value: 'terms', selected: !heater }, 'terms (plate, flux, air, held face)'),
+    h('option', { value: 'heater', selected: heater }, 'heater body'));
+  select.addEventListener('change', () => store.change((d) => setHeaterKind(d, p, select.value === 'heater')));
+  return fieldWrapper('kind', undefined, 'A heater body is a plate with its own heat capacity, power limit and control; it takes no other term.', select);
+}
+
+function termFields(n: (path: string, label: string, unit: string | undefined, extra?: { placeholder?: string; hint?: string; prune?: boolean }) => HTMLElement,
+  store: DraftStore, p: string): HTMLElement[] {
+  return [
+    h('fieldset', { class: 'term' }, h('legend', {}, 'held plate'),
+      n('plate.temperature_C', 'temperature', '°C', { prune: true, placeholder: 'none' }),
+      n('plate.conductance_W_m2K', 'contact conductance', 'W/(m²·K)', { prune: true })),
+    h('fieldset', { class: 'term' }, h('legend', {}, 'heater'),
+      n('flux_W_m2', 'heat flux', 'W/m²', { placeholder: 'none' }),
+      n('power_W', 'or power', 'W', { placeholder: 'none', hint: 'Heater power spread over the footprint.' })),
+    h('fieldset', { class: 'term' }, h('legend', {}, 'air and radiation'),
+      convectionField(store, `${p}.convection_W_m2K`),
+      n('fluid_C', 'air', '°C', { placeholder: 'ambient' }),
+      n('emissivity', 'emissivity', '0–1', { placeholder: '0' }),
+      n('surroundings_C', 'surroundings', '°C', { placeholder: 'ambient' })),
+    h('fieldset', { class: 'term' }, h('legend', {}, 'held face'),
+      n('fixed_C', 'temperature', '°C', { placeholder: 'not held', hint: 'Holds the face at this temperature; excludes the other terms.' }))];
+}
+
 function segmentRow(store: DraftStore, side: Side, j: number): HTMLElement {
   const p = `${side}[${j}]`;
   const n = (path: string, label: string, unit: string | undefined, extra: { placeholder?: string; hint?: string; prune?: boolean } = {}) =>
     numberField(store, { path: `${p}.${path}`, label, unit, ...extra });
+  const seg = asObject(store.get(p));
+  const heater = isObject(seg.heater);
+  // a heater row shows its other terms only when a file gave some (the core then names them, and they can be cleared)
+  const terms = !heater ? termFields(n, store, p)
+    : [heaterTerm(store, p, `${side}-heater-${j}`), ...(NON_HEATER_TERMS.some((k) => k !== 'bench' && seg[k] !== undefined) ? termFields(n, store, p) : [])];
   const summary = h('span', { class: 'segment-summary' }, segmentSummary(store.get(p)));
   const row = h('div', { class: 'segment-row', 'data-testid': `${side}-row-${j}` },
     h('div', { class: 'segment-head' }, h('span', { class: 'segment-place' }, `row ${j + 1}`),
       n('from_s', 'from', 's', { hint: 'This row holds from this time until the next row starts.' }),
+      kindField(store, p, `${side}-row-${j}-kind`),
       summary,
       button('✕', 'remove this row', () => store.change((x) => removeSegment(x, side, j)), { class: 'danger' })),
-    h('div', { class: 'segment-terms' },
-      h('fieldset', { class: 'term' }, h('legend', {}, 'held plate'),
-        n('plate.temperature_C', 'temperature', '°C', { prune: true, placeholder: 'none' }),
-        n('plate.conductance_W_m2K', 'contact conductance', 'W/(m²·K)', { prune: true })),
-      h('fieldset', { class: 'term' }, h('legend', {}, 'heater'),
-        n('flux_W_m2', 'heat flux', 'W/m²', { placeholder: 'none' }),
-        n('power_W', 'or power', 'W', { placeholder: 'none', hint: 'Heater power spread over the footprint.' })),
-      h('fieldset', { class: 'term' }, h('legend', {}, 'air and radiation'),
-        convectionField(store, `${p}.convection_W_m2K`),
-        n('fluid_C', 'air', '°C', { placeholder: 'ambient' }),
-        n('emissivity', 'emissivity', '0–1', { placeholder: '0' }),
-        n('surroundings_C', 'surroundings', '°C', { placeholder: 'ambient' })),
-      h('fieldset', { class: 'term' }, h('legend', {}, 'held face'),
-        n('fixed_C', 'temperature', '°C', { placeholder: 'not held', hint: 'Holds the face at this temperature; excludes the other terms.' }))));
+    h('div', { class: 'segment-terms' }, ...terms));
   const update = (): void => { summary.textContent = segmentSummary(store.get(p)); };
   row.addEventListener('input', update);
   row.addEventListener('change', update);

@@ -6,6 +6,7 @@
  * counts as empty: text or a bad number is sent to the solver.
  */
 import { h } from './dom.ts';
+import { heaterFieldsToFill } from './heater-editor.ts';
 import { asList, isObject, type JsonObject } from './json.ts';
 
 /** The keys every interval of a layer's heat source needs (scenario format, DESIGN.md). */
@@ -27,6 +28,8 @@ export function fieldsToFill(draft: JsonObject): string[] {
     const sleeve = draft.edges.sleeve;
     if (isObject(sleeve)) for (const key of ['material', 'thickness_mm']) if (!Object.hasOwn(sleeve, key)) out.push(`edges.sleeve.${key}`);
   }
+  // a face row just made a heater body (ui/heater-editor.ts): its power, plate, contact and control settings
+  out.push(...heaterFieldsToFill(draft));
   return out;
 }
 
