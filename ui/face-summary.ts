@@ -7,7 +7,7 @@ const num = (v: Json | undefined): string => (asNumber(v) === undefined ? '?' : 
 /** "heater body 150 W, on-off at 420 °C on the plate" (a schedule: "… 3 set-points"). */
 function heaterSummary(heater: JsonObject): string {
   const c = asObject(heater.control);
-  const base = `heater body ${num(heater.power_W)} W`;
+  const base = heater.power_W === undefined ? 'heater body, power to fill in' : `heater body ${num(heater.power_W)} W`;
   if (c.kind !== 'on-off' && c.kind !== 'pi') return `${base}, constant power`;
   const points = asList(heater.set_points);
   const at = points.length > 0 ? `${points.length} set-point${points.length === 1 ? '' : 's'}` : `${num(c.set_point_C)} °C`;

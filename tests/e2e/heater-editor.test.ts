@@ -82,6 +82,26 @@ describe('the heater-body row of the face editor', () => {
     await page.context().close();
   });
 
+  it('turns the set-point into a schedule of (time, °C) points that saves as heater.set_points', async () => {
+    const page = await openPage(harness);
+    await loadExample(page);
+    await page.selectOption(`[data-testid="${ID}-set-point-mode"]`, 'schedule');
+    // the value given so far becomes the first point, at 0 s
+    expect([await value(page, 'point-0-at'), await value(page, 'point-0-C')]).toEqual(['0', '420']);
+    await page.click(`[data-testid="${ID}-add-point"]`);
+    await page.waitForFunction(() => document.querySelector('[data-testid="run-status"]')?.textContent === 'waiting');
+    expect(await page.$$eval('[data-testid="bottom-row-0"] [data-testid="field-todo"]', (es) => es.length)).toBe(2);
+    const before = await runCount(page);
+    await page.fill(`[data-testid="${ID}-point-1-at"]`, '600');
+    await page.fill(`[data-testid="${ID}-point-1-C"]`, '400');
+    await waitForDone(page, before, 60_000);
+    await page.locator('[data-testid="bottom-row-0"]').screenshot({ path: `${artifacts}/heater-row-schedule.png` });
+    const saved = JSON.parse(await saveText(page, `${artifacts}/saved-heater-schedule.json`)) as { bottom: { heater: Record<string, unknown> }[] };
+    expect(saved.bottom[0]!.heater.set_points).toEqual([{ at_s: 0, set_point_C: 420 }, { at_s: 600, set_point_C: 400 }]);
+    expect(saved.bottom[0]!.heater.control).toEqual({ kind: 'on-off', band_K: 5, sensor: 'plate' });
+    await page.context().close();
+  });
+
   it('a demo row made a heater body starts "to fill in", runs once filled, and books ∫P dt as the heater energy', async () => {
     const page = await openPage(harness);
     const started = await runsStarted(page);
