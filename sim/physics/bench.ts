@@ -14,7 +14,7 @@
  * Conductances (W·m⁻²·K⁻¹): face → cell 0: 1/g₀ = 1/h_c + Δx₀/(2k); cell i−1 → cell i: 1/gᵢ = (Δxᵢ₋₁ + Δxᵢ)/(2k).
  * Each implicit stage of the time step reads cᵢ·(Tᵢ − bᵢ) = d·h·(net conduction into cell i), cᵢ = ρc·Δxᵢ, with b
  * known from earlier stages (time/bench-chain.ts sets b and solves). The chain being linear, its stage solution is
- * affine in the face temperature: T = x⁰ + T_face·x¹, found by two tridiagonal solves with the same matrix. The face
+ * affine in the face temperature: T = x⁰ + T_face·x¹ (in the rise above the start temperature), found by two tridiagonal solves with the same matrix. The face
  * then sees exactly q(T_face) = g₀·(x⁰₀ + T_face·x¹₀ − T_face), dq/dT_face = g₀·(x¹₀ − 1), as a heater plate's face
  * does (heater.ts), and the chain's state is recovered after the stage from the face temperature the stack solved.
  */
@@ -59,12 +59,17 @@ export function benchChainWidths(alphaM2PerS: number, restS: number, d = benchDe
 export interface BenchNode {
   /** The bench this chain holds (undefined: none attached yet). */
   bench: Bench | undefined;
-  /** Cell temperatures at the start of the current step (the last accepted state), K. */
-  t: Float64Array;
-  /** Stage constants b, K, and the stage's effective step d·h, s (0: the chain is held, the face balances only). */
+  /**
+   * Cell temperatures above the bench's start temperature at the start of the current step (the last accepted state),
+   * K. The chain works in this rise θ = T − T_start, not in T: its stage matrix amplifies round-off by its condition
+   * number (≈ d·h·g/c of the thin face-side cells), and the rise keeps that round-off relative to the heat moved
+   * rather than to 300 K (the ledger then closes to ~1e−12 of the bench heat even for a 2 K difference).
+   */
+  riseK: Float64Array;
+  /** Stage constants b (rise, K), and the stage's effective step d·h, s (0: the chain is held, the face balances only). */
   b: Float64Array;
   hd: number;
-  /** The stage solution T = x0 + T_face·x1 (K and K/K). */
+  /** The stage solution θ = x0 + θ_face·x1 (K and K/K), θ_face = T_face − T_start. */
   x0: Float64Array;
   x1: Float64Array;
   /** Cell widths from the face down, m (their sum is the chain's depth). */
@@ -76,7 +81,7 @@ export interface BenchNode {
 
 export function createBenchNode(): BenchNode {
   const none = new Float64Array(0);
-  return { bench: undefined, t: none, b: none, hd: 0, x0: none, x1: none, widthsM: none, cap: none, g: none };
+  return { bench: undefined, riseK: none, b: none, hd: 0, x0: none, x1: none, widthsM: none, cap: none, g: none };
 }
 
 /** Diffusivity α = k/(ρc_p) of the bench, m²/s. */
@@ -92,9 +97,9 @@ export function placeBench(node: BenchNode, bench: Bench, restS: number): void {
   const k = bench.conductivityWPerMK;
   node.bench = bench;
   node.widthsM = w;
-  node.t = new Float64Array(n).fill(bench.startK);
-  node.b = Float64Array.from(node.t);
-  node.x0 = Float64Array.from(node.t);
+  node.riseK = new Float64Array(n);
+  node.b = new Float64Array(n);
+  node.x0 = new Float64Array(n);
   node.x1 = new Float64Array(n);
   node.hd = 0;
   node.cap = Float64Array.from(w, (dx) => bench.capacityJPerM3K * dx);
@@ -107,8 +112,9 @@ export function placeBench(node: BenchNode, bench: Bench, restS: number): void {
 /** Heat into the face from the bench in the current stage, W/m² (negative: the face loses heat to it); writes dq/dT_face to out[0]. */
 export function benchHeatIn(node: BenchNode, faceK: number, out: Float64Array): number {
   const g0 = node.g[0]!;
+  const face = faceK - node.bench!.startK;
   out[0] = g0 * (node.x1[0]! - 1);
-  return g0 * (node.x0[0]! + faceK * node.x1[0]! - faceK);
+  return g0 * (node.x0[0]! + face * node.x1[0]! - face);
 }
 
 /** Heat the bench holds above its starting temperature, J/m² (it came through the face). */
@@ -116,6 +122,6 @@ export function benchStoredJPerM2(node: BenchNode): number {
   const bench = node.bench;
   if (!bench) return 0;
   let sum = 0;
-  for (let i = 0; i < node.t.length; i++) sum += node.cap[i]! * (node.t[i]! - bench.startK);
+  for (let i = 0; i < node.riseK.length; i++) sum += node.cap[i]! * node.riseK[i]!;
   return sum;
 }

@@ -40,12 +40,12 @@ export function attachBenches(ws: Workspace, next: StepConditions, previous: Ste
     const node = ws.benches[side];
     if (!bench) continue;
     const was = previous ? benchOn(previous, side) : undefined;
-    if (was !== bench || node.bench !== bench) { placeBench(node, bench, restS); ensureScratch(node.t.length); }
+    if (was !== bench || node.bench !== bench) { placeBench(node, bench, restS); ensureScratch(node.riseK.length); }
     holdChain(node);
   }
 }
 
-/** Net conduction into each chain cell at state t with face heat q into the stack (so −q into the chain), W/m². */
+/** Net conduction into chain cell i at the rise t with face heat q into the stack (so −q into the chain), W/m². */
 function chainRate(node: BenchNode, t: Float64Array, q: number, i: number): number {
   const n = t.length;
   const inFromAbove = i === 0 ? -q : node.g[i]! * (t[i - 1]! - t[i]!);
@@ -55,7 +55,7 @@ function chainRate(node: BenchNode, t: Float64Array, q: number, i: number): numb
 
 /** Solves the stage for its affine solution x0 + T_face·x1 from node.b and node.hd. Allocates nothing. */
 function solveChainStage(node: BenchNode): boolean {
-  const n = node.t.length;
+  const n = node.riseK.length;
   const { lower, diag, upper, rhs, work } = scratch;
   const { g, cap, hd } = node;
   for (let i = 0; i < n; i++) {
@@ -71,11 +71,11 @@ function solveChainStage(node: BenchNode): boolean {
   return solveTridiagonal(n, lower, diag, upper, rhs, node.x1, work);
 }
 
-/** The chain held at its state t: the face sees it through g₀ alone (a stage of zero length). */
+/** The chain held at its state: the face sees it through g₀ alone (a stage of zero length). */
 function holdChain(node: BenchNode): void {
   node.hd = 0;
-  node.b.set(node.t);
-  node.x0.set(node.t);
+  node.b.set(node.riseK);
+  node.x0.set(node.riseK);
   node.x1.fill(0);
 }
 
@@ -89,14 +89,14 @@ export function beginBenchStage(ws: Workspace, cond: StepConditions, hd: number,
   for (const side of SIDES) {
     if (!benchOn(cond, side)) continue;
     const node = ws.benches[side];
-    const n = node.t.length;
+    const n = node.riseK.length;
     if (stage === 'trapezoid') {
-      for (let i = 0; i < n; i++) node.b[i] = node.t[i]! + (hd * chainRate(node, node.t, q0[side]!, i)) / node.cap[i]!;
+      for (let i = 0; i < n; i++) node.b[i] = node.riseK[i]! + (hd * chainRate(node, node.riseK, q0[side]!, i)) / node.cap[i]!;
     } else if (stage === 'euler') {
-      node.b.set(node.t);
+      node.b.set(node.riseK);
     } else {
-      const face = Ug[nodeOf(ws, side)]!;
-      for (let i = 0; i < n; i++) node.b[i] = a * (node.x0[i]! + face * node.x1[i]!) - bb * node.t[i]!;
+      const face = Ug[nodeOf(ws, side)]! - node.bench!.startK;
+      for (let i = 0; i < n; i++) node.b[i] = a * (node.x0[i]! + face * node.x1[i]!) - bb * node.riseK[i]!;
     }
     node.hd = hd;
     // the matrix is an M-matrix (positive diagonal dominating): a zero pivot cannot occur for cap > 0
@@ -110,8 +110,8 @@ export function commitBenches(ws: Workspace, cond: StepConditions | undefined, U
   for (const side of SIDES) {
     if (!benchOn(cond, side)) continue;
     const node = ws.benches[side];
-    const face = U1[nodeOf(ws, side)]!;
-    for (let i = 0; i < node.t.length; i++) node.t[i] = node.x0[i]! + face * node.x1[i]!;
+    const face = U1[nodeOf(ws, side)]! - node.bench!.startK;
+    for (let i = 0; i < node.riseK.length; i++) node.riseK[i] = node.x0[i]! + face * node.x1[i]!;
     holdChain(node);
   }
 }

@@ -127,14 +127,13 @@ describe('a face on a bench surface', () => {
       if (r.value.t1 > 60) {
         stored = benchStoredJPerM2(node);
         // the cells next to the face have warmed from the given 50 °C; the deepest is still near it
-        expect(toC(node.t[node.t.length - 1]!)).toBeLessThan(50 + 0.01 * (T1_C - 50));
+        expect(node.riseK[node.riseK.length - 1]!).toBeLessThan(0.01 * (T1_C - 50));
       }
     }
     expect(Number.isNaN(storedAt60) || storedAt60 === 0).toBe(true);
     expect(stored).toBeGreaterThan(0);
-    // round-off only: the chain's state is held in kelvin, so each step's stored heat carries about
-    // (chain capacity 6e4 J/(m²·K)) × (ulp of 330 K, 6e−14 K) × √60 cells ≈ 3e−8 J/m², summed over the ~100 steps;
-    // measured 1.15e−12 of the stored heat, so 1e−11
-    assertClose(-booked, stored, { abs: 1e-11 * stored }, 'heat out of the face from 60 s vs bench heat');
+    // round-off only, as above (the chain works in its rise above the start temperature, physics/bench.ts): measured
+    // 3.6e−13 of the stored heat over ~190 steps, so 1e−12
+    assertClose(-booked, stored, { abs: 1e-12 * stored }, 'heat out of the face from 60 s vs bench heat');
   });
 });
