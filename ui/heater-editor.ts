@@ -113,7 +113,8 @@ function setPointFields(store: DraftStore, p: string, id: string): HTMLElement[]
       const list = asList(heaterAt(d, p).set_points);
       list.push({});
       heaterAt(d, p).set_points = list;
-    }), { 'data-testid': `${id}-add-point` }))];
+    // the button carries the schedule's path, so the core's message about the list itself (none left) stands beside it
+    }), { 'data-testid': `${id}-add-point`, 'data-path': `${p}.set_points` }))];
 }
 
 function controlFields(store: DraftStore, p: string, id: string): HTMLElement[] {

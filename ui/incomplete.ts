@@ -1,6 +1,7 @@
 /**
  * "To fill in" versus "wrong": a heat-source row just added has empty required fields (its value, its end), and so do
- * side-wall losses just switched on (the emissivity) and a sleeve just added (its material, its thickness). Those
+ * side-wall losses just switched on (the emissivity), a sleeve just added (its material, its thickness), and a face
+ * row just made a heater body (its power, plate, contact, control settings: ui/heater-editor.ts). Those
  * are not errors — nothing was typed yet — so the page marks them "to fill in" and requests no run until they are
  * filled; a value that is there but wrong is the solver's to name, beside its field, as usual. Only an absent key
  * counts as empty: text or a bad number is sent to the solver.

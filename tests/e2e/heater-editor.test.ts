@@ -99,6 +99,11 @@ describe('the heater-body row of the face editor', () => {
     const saved = JSON.parse(await saveText(page, `${artifacts}/saved-heater-schedule.json`)) as { bottom: { heater: Record<string, unknown> }[] };
     expect(saved.bottom[0]!.heater.set_points).toEqual([{ at_s: 0, set_point_C: 420 }, { at_s: 600, set_point_C: 400 }]);
     expect(saved.bottom[0]!.heater.control).toEqual({ kind: 'on-off', band_K: 5, sensor: 'plate' });
+    // a schedule with no point left: the core's message stands beside the button that adds one
+    await page.click('[data-testid="bottom-row-0"] [data-testid="bottom-heater-0-point-1"] button');
+    await page.click('[data-testid="bottom-row-0"] [data-testid="bottom-heater-0-point-0"] button');
+    await page.waitForFunction(() => document.querySelector('[data-testid="run-status"]')?.textContent === 'error');
+    expect(await page.$eval(`[data-testid="${ID}-add-point"] ~ [data-testid="field-error"]`, (e) => e.textContent)).toMatch(/^must hold at least one point, got /);
     await page.context().close();
   });
 
