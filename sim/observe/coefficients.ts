@@ -147,7 +147,9 @@ function heaterLines(at: string, h: Heater): Coefficient[] {
 function benchLines(at: string, b: Bench, restS: number): Coefficient[] {
   const m = b.material;
   const src = (key: string): string => m.sources[key] ?? NO_SOURCE;
-  const depthMm = num(mToMm(benchChainWidths(benchDiffusivity(b), restS).reduce((x, y) => x + y, 0)));
+  const depthM = benchChainWidths(benchDiffusivity(b), restS, b.thicknessM).reduce((x, y) => x + y, 0);
+  const depthMm = num(mToMm(depthM));
+  const slab = b.thicknessM !== undefined && depthM >= b.thicknessM * (1 - 1e-12);
   return [
     { what: `${at}: bench surface`, value: `${m.title} (${m.name}), a semi-infinite solid from ${degC(b.startK)}`, source: `${m.from ?? 'built by the caller (no file)'}; the starting temperature ${FROM_FILE} or the ambient` },
     {
@@ -162,8 +164,9 @@ function benchLines(at: string, b: Bench, restS: number): Coefficient[] {
     },
     {
       what: `${at}: bench cells`,
-      value: `${benchDefaults.cells} cells graded ×${num(benchDefaults.growth)} to ${depthMm} mm deep`,
-      source: `depth ${num(benchDefaults.depthDiffusionLengths)}·√(α·t), t from the segment to the end of the run (the far end then changes the surface heat flux by about e⁻¹⁶): physics/bench.ts`,
+      value: `${benchDefaults.cells} cells graded ×${num(benchDefaults.growth)} to ${depthMm} mm deep${slab ? ', insulated beneath' : ''}`,
+      source: slab ? `the bench's thickness ${FROM_FILE}, thinner than ${num(benchDefaults.depthDiffusionLengths)}·√(α·t) to the end of the run: physics/bench.ts`
+        : `depth ${num(benchDefaults.depthDiffusionLengths)}·√(α·t), t from the segment to the end of the run (the far end then changes the surface heat flux by about e⁻¹⁶): physics/bench.ts`,
     },
   ];
 }

@@ -43,14 +43,20 @@ export interface Bench {
   readonly contactWPerM2K: number | undefined;
   /** Temperature of the whole bench when the face is set on it, K. */
   readonly startK: number;
+  /** Thickness of a bench insulated beneath, m; undefined: semi-infinite. */
+  readonly thicknessM?: number | undefined;
 }
 
 /** Effusivity e = √(k·ρc), W·s^½·m⁻²·K⁻¹: what sets the interface temperature of two solids in contact. */
 export const effusivity = (b: Bench): number => Math.sqrt(b.conductivityWPerMK * b.capacityJPerM3K);
 
-/** Cell widths (m) of a chain as deep as the rule above for a bench of diffusivity alphaM2PerS over restS seconds. */
-export function benchChainWidths(alphaM2PerS: number, restS: number, d = benchDefaults): Float64Array {
-  const depth = d.depthDiffusionLengths * Math.sqrt(alphaM2PerS * Math.max(restS, d.minRestS));
+/**
+ * Cell widths (m) of a chain as deep as the rule above for a bench of diffusivity alphaM2PerS over restS seconds, or
+ * as thick as the bench when it is thinner (a slab insulated beneath).
+ */
+export function benchChainWidths(alphaM2PerS: number, restS: number, thicknessM?: number, d = benchDefaults): Float64Array {
+  // a bench thinner than the rule's depth is the chain itself, its far end insulated
+  const depth = Math.min(thicknessM ?? Infinity, d.depthDiffusionLengths * Math.sqrt(alphaM2PerS * Math.max(restS, d.minRestS)));
   const first = (depth * (d.growth - 1)) / (d.growth ** d.cells - 1);
   return Float64Array.from({ length: d.cells }, (_, i) => first * d.growth ** i);
 }
@@ -92,7 +98,7 @@ export const benchDiffusivity = (b: Bench): number => b.conductivityWPerMK / b.c
  * built deep enough for that time, wherever the segment was moved to): every cell at the bench's starting temperature.
  */
 export function placeBench(node: BenchNode, bench: Bench, restS: number): void {
-  const w = benchChainWidths(benchDiffusivity(bench), restS);
+  const w = benchChainWidths(benchDiffusivity(bench), restS, bench.thicknessM);
   const n = w.length;
   const k = bench.conductivityWPerMK;
   node.bench = bench;

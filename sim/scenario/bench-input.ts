@@ -10,7 +10,7 @@ import type { Material } from '../physics/material.ts';
 import { evalTable, sensibleCapacity } from '../physics/material.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import { ADIABATIC } from '../physics/problem.ts';
-import { cToK, kToC } from '../physics/units.ts';
+import { cToK, kToC, mmToM } from '../physics/units.ts';
 import type { FieldError } from './field-errors.ts';
 import { libraryMaterial, unknownMaterialMessage } from './library.ts';
 import type { FaceSegmentFile, ScenarioFile } from './scenario-schema.ts';
@@ -61,6 +61,7 @@ export function benchCondition(seg: FaceSegmentFile, path: string, s: ScenarioFi
       propertiesAtK: startK,
       contactWPerM2K: b.contact_W_m2K,
       startK,
+      thicknessM: b.thickness_mm === undefined ? undefined : mmToM(b.thickness_mm),
     },
   };
 }

@@ -161,12 +161,15 @@ export type HeaterFile = z.infer<typeof heaterSchema>;
 
 /**
  * A bench surface the face rests on (an addition to the contract; physics/bench.ts): a semi-infinite solid of a named
- * material, from `start_C` (default: ambient_C), through `contact_W_m2K` (default: perfect contact).
+ * material, from `start_C` (default: ambient_C), through `contact_W_m2K` (default: perfect contact); `thickness_mm`
+ * makes it a slab of that thickness insulated beneath.
  */
 const benchSchema = z.strictObject({
   material: shortName(),
   contact_W_m2K: positive().optional(),
   start_C: celsius().optional(),
+  /** A bench of this thickness, insulated beneath (default: semi-infinite). */
+  thickness_mm: positive().optional(),
 });
 export type BenchFile = z.infer<typeof benchSchema>;
 

@@ -45,6 +45,15 @@ describe('scenario bench key', () => {
     assertClose(c.bench.capacityJPerM3K, 2500 * 800, { rel: 1e-12 }, 'ρc');
   });
 
+  it('parseScenario() takes a bench thickness in mm, and refuses one ≤ 0 naming the field and the value', () => {
+    const parsed = parseScenario(file({ bench: { material: 'stone', thickness_mm: 12 } }));
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
+    const c = parsed.problem.bottom[1]!.condition;
+    if (c.kind !== 'bench') throw new Error(`expected a bench, got ${c.kind}`);
+    assertClose(c.bench.thicknessM!, 0.012, { rel: 1e-12 }, 'thickness, m');
+    expect(errorsOf(file({ bench: { material: 'stone', thickness_mm: 0 } }))).toContain('bottom[1].bench.thickness_mm: must be > 0, got 0');
+  });
+
   it('parseScenario() refuses a bench beside another face term, naming both', () => {
     expect(errorsOf(file({ bench: { material: 'stone' }, emissivity: 0.5 })))
       .toContain('bottom[1].bench: a face on a bench takes no other term, got also emissivity');

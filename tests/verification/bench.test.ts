@@ -61,7 +61,7 @@ describe('a face on a bench surface', () => {
     let checked = 0;
     for (const r of rows) {
       if (r.t < 10) continue;
-      // measured worst 2.5e−4 relative from 10 s on (the face's start-up error, then the grids' error); 1e−3 allows it
+      // measured worst 2.7e−4 relative from 10 s on (the face's start-up error, then the grids' error); 1e−3 allows it
       assertClose(r.stored, 2 * E2 * (TS_C - T2_C) * Math.sqrt(r.t / Math.PI), { rel: 1e-3 }, `bench heat at ${r.t} s, J/m²`);
       checked++;
     }
@@ -135,5 +135,27 @@ describe('a face on a bench surface', () => {
     // round-off only, as above (the chain works in its rise above the start temperature, physics/bench.ts): measured
     // 3.6e−13 of the stored heat over ~190 steps, so 1e−12
     assertClose(-booked, stored, { abs: 1e-12 * stored }, 'heat out of the face from 60 s vs bench heat');
+  });
+  it('evolve() brings a stack and a bench of given thickness, insulated beneath, to the common temperature (C₁T₁ + C₂T₂)/(C₁ + C₂)', () => {
+    // two bodies insulated from everything else exchange heat until they share one temperature, fixed by the first law:
+    // C₁ = 2e6 J/(m³·K) × 2 mm = 4000 J/(m²·K) at 300 °C, C₂ = 2e6 × 5 mm = 10 000 J/(m²·K) at 20 °C → 100 °C
+    const p = parseOk(scenario({
+      duration_s: 600, ambient_C: T2_C, initial_C: T1_C,
+      materials: { block: { k_W_mK: 1, rho_kg_m3: 2000, cp_J_kgK: flat(1000) }, slabstone: { k_W_mK: 2, rho_kg_m3: 2500, cp_J_kgK: flat(800) } },
+      layers: [{ id: 'block', material: 'block', thickness_mm: 2 }],
+      bottom: [{ from_s: 0, bench: { material: 'slabstone', thickness_mm: 5 } }],
+      numerics: { tolerance_K: 1e-3 },
+    }));
+    const loop = evolve(p, buildGrid(p));
+    let last: { face: number; rise: Float64Array; depth: number } | undefined;
+    for (let r = loop.next(); !r.done; r = loop.next()) {
+      const node = r.value.ws.benches[0];
+      last = { face: toC(r.value.ws.T[0]!), rise: node.riseK, depth: node.widthsM.reduce((a, b) => a + b, 0) };
+    }
+    // the slowest mode decays over tens of seconds (L²/α = 8 s and 25 s), so after 600 s only the step's own error is
+    // left: 1e−3 K is the run's tolerance
+    assertClose(last!.face, 100, { abs: 1e-3 }, 'face at 600 s, °C');
+    for (const r of last!.rise) assertClose(T2_C + r, 100, { abs: 1e-3 }, 'bench cell at 600 s, °C');
+    assertClose(last!.depth, 0.005, { rel: 1e-12 }, 'chain depth = the bench thickness, m');
   });
 });
