@@ -2,7 +2,8 @@
  * The bottom and top face schedules: rows in time order, each holding from its start time until the next row.
  * A row is a sum of terms, every one optional (empty = absent): a held plate, an imposed heat flux or heater power,
  * convection (a coefficient or the natural-convection correlation), radiation, or the face held at a temperature.
- * Or the row is of the kind "heater body" (ui/heater-editor.ts): a heater with its plate and control, and no other term.
+ * Or the row is of the kind "heater body" (ui/heater-editor.ts): a heater with its plate and control, and no other term;
+ * or "bench surface" (ui/bench-editor.ts): a solid the face rests on after lift-off.
  */
 import type { DraftStore } from './draft.ts';
 import { button, h } from './dom.ts';
@@ -10,7 +11,8 @@ import { fieldWrapper, numberField } from './fields.ts';
 import { inputText, parseNumberInput } from './format.ts';
 import { asList, asNumber, asObject, isObject, type JsonObject } from './json.ts';
 import { segmentSummary } from './face-summary.ts';
-import { heaterTerm, NON_HEATER_TERMS, setHeaterKind } from './heater-editor.ts';
+import { benchTerm } from './bench-editor.ts';
+import { heaterTerm, NON_HEATER_TERMS, setRowKind, type RowKind } from './heater-editor.ts';
 
 export type Side = 'bottom' | 'top';
 
@@ -44,14 +46,16 @@ function convectionField(store: DraftStore, path: string): HTMLElement {
   return fieldWrapper('convection', 'W/(m²·K)', 'Heat lost to the surrounding air: a coefficient, or the correlation for a horizontal plate in still air.', select, input);
 }
 
-/** The row's kind: a sum of terms, or a heater body (which excludes the terms). */
+/** The row's kind: a sum of terms, a heater body or a bench surface (each of the last two excludes the terms). */
 function kindField(store: DraftStore, p: string, testid: string): HTMLElement {
-  const heater = isObject(asObject(store.get(p)).heater);
+  const seg = asObject(store.get(p));
+  const kind: RowKind = isObject(seg.heater) ? 'heater' : isObject(seg.bench) ? 'bench' : 'terms';
   const select = h('select', { 'data-testid': testid, 'aria-label': 'row kind' },
-    h('option', { value: 'terms', selected: !heater }, 'terms (plate, flux, air, held face)'),
-    h('option', { value: 'heater', selected: heater }, 'heater body'));
-  select.addEventListener('change', () => store.change((d) => setHeaterKind(d, p, select.value === 'heater')));
-  return fieldWrapper('kind', undefined, 'A heater body is a plate with its own heat capacity, power limit and control; it takes no other term.', select);
+    h('option', { value: 'terms', selected: kind === 'terms' }, 'terms (plate, flux, air, held face)'),
+    h('option', { value: 'heater', selected: kind === 'heater' }, 'heater body'),
+    h('option', { value: 'bench', selected: kind === 'bench' }, 'bench surface'));
+  select.addEventListener('change', () => store.change((d) => setRowKind(d, p, select.value as RowKind)));
+  return fieldWrapper('kind', undefined, 'A heater body is a plate with its own heat capacity, power limit and control; a bench surface is a solid the face rests on after lift-off. Either takes no other term.', select);
 }
 
 function termFields(n: (path: string, label: string, unit: string | undefined, extra?: { placeholder?: string; hint?: string; prune?: boolean }) => HTMLElement,
@@ -77,10 +81,11 @@ function segmentRow(store: DraftStore, side: Side, j: number): HTMLElement {
   const n = (path: string, label: string, unit: string | undefined, extra: { placeholder?: string; hint?: string; prune?: boolean } = {}) =>
     numberField(store, { path: `${p}.${path}`, label, unit, ...extra });
   const seg = asObject(store.get(p));
-  const heater = isObject(seg.heater);
-  // a heater row shows its other terms only when a file gave some (the core then names them, and they can be cleared)
-  const terms = !heater ? termFields(n, store, p)
-    : [heaterTerm(store, p, `${side}-heater-${j}`), ...(NON_HEATER_TERMS.some((k) => k !== 'bench' && seg[k] !== undefined) ? termFields(n, store, p) : [])];
+  const own = isObject(seg.heater) ? [heaterTerm(store, p, `${side}-heater-${j}`)]
+    : isObject(seg.bench) ? [benchTerm(store, p, `${side}-bench-${j}`)] : [];
+  // a heater or bench row shows the other terms only when a file gave some (the core names them; they can be cleared)
+  const terms = own.length === 0 || NON_HEATER_TERMS.some((k) => k !== 'bench' && seg[k] !== undefined)
+    ? [...own, ...termFields(n, store, p)] : own;
   const summary = h('span', { class: 'segment-summary' }, segmentSummary(store.get(p)));
   const row = h('div', { class: 'segment-row', 'data-testid': `${side}-row-${j}` },
     h('div', { class: 'segment-head' }, h('span', { class: 'segment-place' }, `row ${j + 1}`),

@@ -15,7 +15,7 @@ import { formatNumber, inputText } from './format.ts';
 import { asList, asObject, isObject, type JsonObject } from './json.ts';
 import { getAt } from './paths.ts';
 
-/** The terms a heater row excludes (the core refuses them beside `heater`: sim/scenario/heater-input.ts). */
+/** The terms a heater row excludes (the core refuses them beside `heater`: sim/scenario/heater-input.ts; and `bench`). */
 export const NON_HEATER_TERMS = ['flux_W_m2', 'power_W', 'convection_W_m2K', 'fluid_C', 'emissivity', 'surroundings_C', 'plate', 'fixed_C', 'bench'] as const;
 
 type ControlKind = 'constant' | 'on-off' | 'pi';
@@ -31,7 +31,7 @@ function heaterAt(d: JsonObject, path: string): JsonObject {
  * Plate materials: the file's own, then the library's solids that never melt, then those that melt far above a cell's
  * service (metals), labelled with their solidus, highest first. The core refuses a plate that would reach its solidus.
  */
-function plateChoices(draft: JsonObject): { value: string; label: string }[] {
+export function plateChoices(draft: JsonObject): { value: string; label: string }[] {
   const own = Object.keys(asObject(draft.materials)).map((n) => ({ value: n, label: `${n} (in this file)` }));
   const library = libraryNames().map((n) => ({ n, solidusK: libraryMaterial(n)?.melt?.solidusK }));
   const solid = library.filter((m) => m.solidusK === undefined).map((m) => ({ value: m.n, label: m.n }));
@@ -42,7 +42,7 @@ function plateChoices(draft: JsonObject): { value: string; label: string }[] {
 }
 
 /** A select bound to `path`: an empty first choice (the field is then "to fill in"), a value not offered kept as found. */
-function choiceField(store: DraftStore, path: string, testid: string, label: string, hint: string, empty: string,
+export function choiceField(store: DraftStore, path: string, testid: string, label: string, hint: string, empty: string,
   choices: readonly { value: string; label: string }[]): HTMLElement {
   const current = inputText(store.get(path));
   const select = h('select', { 'data-path': path, 'data-testid': testid, 'aria-label': label },
@@ -146,16 +146,24 @@ export function heaterTerm(store: DraftStore, rowPath: string, id: string): HTML
     ...controlFields(store, p, id));
 }
 
-/** Makes row `rowPath` a heater body (the other terms go: the core refuses them beside a heater), or a row of terms. */
-export function setHeaterKind(d: JsonObject, rowPath: string, heater: boolean): void {
+export type RowKind = 'terms' | 'heater' | 'bench';
+
+/**
+ * Makes row `rowPath` a heater body or a bench surface (the other terms go: the core refuses them beside either), or
+ * a row of terms (the heater and the bench go).
+ */
+export function setRowKind(d: JsonObject, rowPath: string, kind: RowKind): void {
   const row = asObject(getAt(d, rowPath));
-  if (heater) {
-    for (const k of NON_HEATER_TERMS) delete row[k];
-    // a new heater's numbers and plate material start empty ("to fill in"); constant power until another is chosen
-    if (!isObject(row.heater)) row.heater = { control: { kind: 'constant' } };
-  } else {
+  if (kind === 'terms') {
     delete row.heater;
+    delete row.bench;
+    return;
   }
+  for (const k of NON_HEATER_TERMS) if (k !== kind) delete row[k];
+  delete row[kind === 'heater' ? 'bench' : 'heater'];
+  // new fields start empty ("to fill in"); a new heater runs at constant power until another control is chosen
+  if (kind === 'heater' && !isObject(row.heater)) row.heater = { control: { kind: 'constant' } };
+  if (kind === 'bench' && !isObject(row.bench)) row.bench = {};
 }
 
 /** Paths of the required heater fields left empty, in the solver's path notation (ui/incomplete.ts). */

@@ -1,12 +1,14 @@
 /**
  * "To fill in" versus "wrong": a heat-source row just added has empty required fields (its value, its end), and so do
  * side-wall losses just switched on (the emissivity), a sleeve just added (its material, its thickness), and a face
- * row just made a heater body (its power, plate, contact, control settings: ui/heater-editor.ts). Those
+ * row just made a heater body (its power, plate, contact, control settings: ui/heater-editor.ts) or a bench (its
+ * material: ui/bench-editor.ts). Those
  * are not errors — nothing was typed yet — so the page marks them "to fill in" and requests no run until they are
  * filled; a value that is there but wrong is the solver's to name, beside its field, as usual. Only an absent key
  * counts as empty: text or a bad number is sent to the solver.
  */
 import { h } from './dom.ts';
+import { benchFieldsToFill } from './bench-editor.ts';
 import { heaterFieldsToFill } from './heater-editor.ts';
 import { asList, isObject, type JsonObject } from './json.ts';
 
@@ -30,7 +32,7 @@ export function fieldsToFill(draft: JsonObject): string[] {
     if (isObject(sleeve)) for (const key of ['material', 'thickness_mm']) if (!Object.hasOwn(sleeve, key)) out.push(`edges.sleeve.${key}`);
   }
   // a face row just made a heater body (ui/heater-editor.ts): its power, plate, contact and control settings
-  out.push(...heaterFieldsToFill(draft));
+  out.push(...heaterFieldsToFill(draft), ...benchFieldsToFill(draft));
   return out;
 }
 

@@ -44,6 +44,10 @@ describe('the heater-body row of the face editor', () => {
       contact: await value(page, 'contact'), loss: await value(page, 'loss'), control: await value(page, 'control'),
       setPoint: await value(page, 'set-point'), band: await value(page, 'band'), sensor: await value(page, 'sensor'),
     }).toEqual({ power: '150', material: 'stainless-304', thickness: '6', contact: '2000', loss: '10', control: 'on-off', setPoint: '420', band: '5', sensor: 'plate' });
+    // the lift-off row: a bench surface of ceramic tile through 500 W/(m²·K), from ambient (no start_C in the file)
+    expect(await page.$eval('[data-testid="bottom-row-1-kind"]', (e) => (e as HTMLSelectElement).value)).toBe('bench');
+    expect(await page.$$eval('[data-testid^="bottom-bench-1-"]', (es) => es.map((e) => (e as HTMLInputElement).value)))
+      .toEqual(['ceramic-tile', '500', '']);
     expect(await page.$$eval('[data-testid="field-todo"]', (es) => es.length)).toBe(0);
     expect(await text(page, 'run-status')).toBe('done');
     await page.locator('[data-testid="bottom-row-0"]').screenshot({ path: `${artifacts}/heater-row-loaded.png` });
@@ -107,7 +111,7 @@ describe('the heater-body row of the face editor', () => {
     await page.context().close();
   });
 
-  it('a demo row made a heater body starts "to fill in", runs once filled, and books ∫P dt as the heater energy', async () => {
+  it('a demo row made a heater body starts "to fill in", runs once filled and books ∫P dt as the heater energy; a bench row too', async () => {
     const page = await openPage(harness);
     const started = await runsStarted(page);
     await page.selectOption('[data-testid="bottom-row-0-kind"]', 'heater');
@@ -134,6 +138,14 @@ describe('the heater-body row of the face editor', () => {
     // full power all the time under the stack: duty cycle 100 %, printed to 0.1 %
     assertClose(Number(m![2]), 100, { abs: 0.05 }, 'duty cycle, %');
     await page.screenshot({ path: `${artifacts}/heater-editor-page.png`, fullPage: true });
+    // the lift-off row made a bench surface: its material is "to fill in", then it runs and the face loses heat to it
+    const runs = await runCount(page);
+    await page.selectOption('[data-testid="bottom-row-1-kind"]', 'bench');
+    await page.waitForFunction(() => document.querySelector('[data-testid="run-status"]')?.textContent === 'waiting');
+    expect(await page.$$eval('[data-testid="bottom-row-1"] [data-testid="field-todo"]', (es) => es.length)).toBe(1);
+    await page.selectOption('[data-testid="bottom-bench-1-material"]', 'ceramic-tile');
+    await waitForDone(page, runs, 60_000);
+    await page.locator('[data-testid="bottom-row-1"]').screenshot({ path: `${artifacts}/bench-row-new.png` });
     await page.context().close();
   });
 });
