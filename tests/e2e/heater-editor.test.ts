@@ -44,10 +44,10 @@ describe('the heater-body row of the face editor', () => {
       contact: await value(page, 'contact'), loss: await value(page, 'loss'), control: await value(page, 'control'),
       setPoint: await value(page, 'set-point'), band: await value(page, 'band'), sensor: await value(page, 'sensor'),
     }).toEqual({ power: '150', material: 'stainless-304', thickness: '6', contact: '2000', loss: '10', control: 'on-off', setPoint: '420', band: '5', sensor: 'plate' });
-    // the lift-off row: a bench surface of ceramic tile through 500 W/(m²·K), from ambient (no start_C in the file)
+    // the lift-off row: a 10 mm ceramic tile through 500 W/(m²·K), from ambient (no start_C in the file)
     expect(await page.$eval('[data-testid="bottom-row-1-kind"]', (e) => (e as HTMLSelectElement).value)).toBe('bench');
     expect(await page.$$eval('[data-testid^="bottom-bench-1-"]', (es) => es.map((e) => (e as HTMLInputElement).value)))
-      .toEqual(['ceramic-tile', '500', '']);
+      .toEqual(['ceramic-tile', '500', '', '10']);
     expect(await page.$$eval('[data-testid="field-todo"]', (es) => es.length)).toBe(0);
     expect(await text(page, 'run-status')).toBe('done');
     await page.locator('[data-testid="bottom-row-0"]').screenshot({ path: `${artifacts}/heater-row-loaded.png` });
