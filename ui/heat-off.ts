@@ -76,9 +76,7 @@ export interface HeatOffFields {
 const PELLET = /^layers\[(\d+)\]\.pellet\b/;
 
 /** The paths the hold knob names, split into fields to move and pellets to leave alone. */
-function fromKnob(draft: JsonObject, path: string): HeatOffFields {
-  // entries are joined by ", "; a pellet's entry holds one itself ("(its end, from_s + burn time)"), so split before a path
-  const parts = path.split(/, (?=(?:bottom|top|layers)\[)/);
+function fromKnob(draft: JsonObject, parts: readonly string[]): HeatOffFields {
   const layerId = (i: number): string => String(asObject(asList(draft.layers)[i]).id ?? `layer ${i + 1}`);
   const pellets = parts.flatMap((p) => { const m = PELLET.exec(p); return m ? [layerId(Number(m[1]))] : []; });
   return { paths: parts.filter((p) => !PELLET.test(p)), pellets, note: undefined };
@@ -103,7 +101,7 @@ export function heatOffFields(draft: JsonObject, keep?: readonly string[], typin
   if (kept && typing) return kept;
   const parsed = parseScenario(draft);
   const knob = parsed.ok ? holdKnob(parsed.problem) : undefined;
-  if (knob !== undefined && typeof knob !== 'string') return fromKnob(draft, knob.path);
+  if (knob !== undefined && typeof knob !== 'string') return fromKnob(draft, knob.fields);
   if (kept && !parsed.ok) return kept;
   const j = heaterOffRow(draft);
   if (j === undefined) return { reason: typeof knob === 'string' ? knob : 'no bottom row ends the heating; add a row without a plate or heater to remove it' };

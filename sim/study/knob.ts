@@ -24,6 +24,8 @@ export interface Knob {
   readonly vary: Vary;
   /** The scenario field that is varied, e.g. `bottom[1].from_s`, `bottom[0].plate.temperature_C`. */
   readonly path: string;
+  /** The entries of `path` one by one (several for a hold that moves several inputs; `path` is them joined by ", "). */
+  readonly fields: readonly string[];
   /** In words, for a reader: "heater hold", "plate temperature". */
   readonly label: string;
   /** Unit of the values as shown (°C for temperatures, held in K inside). */
@@ -85,10 +87,11 @@ export function holdKnob(problem: Problem): Knob | string {
   const lo = Math.max(0, ...all.filter((h) => h.endS !== last.endS).map((h) => h.endS), ...faces.map((h) => h.fromS));
   const hi = Math.min(problem.durationS, ...faces.map((h) => problem[h.side][h.next! + 1]?.fromS ?? problem.durationS));
   const afterS = problem.durationS - last.endS;
-  const path = [
+  const fields = [
     ...faces.map((h) => `${h.side}[${h.next!}].from_s`),
     ...sources.map((h) => sourceEnd(problem, h)),
-  ].join(', ');
+  ];
+  const path = fields.join(', ');
   const apply = (value: number): Problem => {
     let p = problem;
     for (const f of faces) {
@@ -107,13 +110,16 @@ export function holdKnob(problem: Problem): Knob | string {
   };
   // hi > lo always: segments start in strict order and the heat ends before the run does (lastOrError)
   return {
-    vary: 'time', path, label: 'heater hold', unit: 's', lo, hi, own: last.endS, show: (v) => v,
+    vary: 'time', path, fields, label: 'heater hold', unit: 's', lo, hi, own: last.endS, show: (v) => v,
     apply: (value) => {
       if (!(value >= lo && value <= hi)) throw new RangeError(`hold: must be within [${lo}, ${hi}] s, got ${value}`);
       return apply(value);
     },
   };
 }
+
+/** A knob that varies one field: its fields are its path. */
+const withFields = (knob: Omit<Knob, 'fields'>): Knob => ({ ...knob, fields: [knob.path] });
 
 /** The power knob (plate or held-face temperature, flux, or source), or a sentence saying why there is none. */
 export function powerKnob(problem: Problem): Knob | string {
@@ -129,7 +135,7 @@ export function powerKnob(problem: Problem): Knob | string {
     const hi = own * powerDefaults.stretch;
     const apply = (value: number) => withLayer(problem, last.layer,
       { ...layer, sources: layer.sources.map((s, k) => (k === last.interval ? { ...s, value } : s)) });
-    return { vary: 'power', path: `layers[${last.layer}].${sourceField(problem, last)}${layer.sources[last.interval]!.origin === undefined ? '.value' : ' (as W/m³)'}`, label: 'heat source', unit: 'W/m³', lo: 0, hi, own, show: (v) => v, apply: checked(0, hi, apply) };
+    return withFields({ vary: 'power', path: `layers[${last.layer}].${sourceField(problem, last)}${layer.sources[last.interval]!.origin === undefined ? '.value' : ' (as W/m³)'}`, label: 'heat source', unit: 'W/m³', lo: 0, hi, own, show: (v) => v, apply: checked(0, hi, apply) });
   }
   const segments = problem[last.side];
   const c = segments[last.segment]!.condition;
@@ -141,24 +147,24 @@ export function powerKnob(problem: Problem): Knob | string {
   const tempRange = (own: number) => ({ lo: coldest, hi: Math.max(own, Number.isFinite(hottestLimit) ? hottestLimit : own) + powerDefaults.aboveLimitK });
   if (c.kind === 'fixed') {
     const { lo, hi } = tempRange(c.tK);
-    return { vary: 'power', path: `${base}.fixed_C`, label: 'held face temperature', unit: '°C', lo, hi, own: c.tK, show: kToC,
-      apply: checked(lo, hi, (tK) => set({ kind: 'fixed', tK })) };
+    return withFields({ vary: 'power', path: `${base}.fixed_C`, label: 'held face temperature', unit: '°C', lo, hi, own: c.tK, show: kToC,
+      apply: checked(lo, hi, (tK) => set({ kind: 'fixed', tK })) });
   }
   if (c.kind === 'heater') {
     const heater = c.heater;
     const hi = heater.powerW * powerDefaults.stretch;
-    return { vary: 'power', path: `${base}.heater.power_W`, label: 'heater power', unit: 'W', lo: 0, hi, own: heater.powerW, show: (v) => v,
-      apply: checked(0, hi, (powerW) => set({ kind: 'heater', heater: { ...heater, powerW, powerWPerM2: powerW / heater.areaM2 } })) };
+    return withFields({ vary: 'power', path: `${base}.heater.power_W`, label: 'heater power', unit: 'W', lo: 0, hi, own: heater.powerW, show: (v) => v,
+      apply: checked(0, hi, (powerW) => set({ kind: 'heater', heater: { ...heater, powerW, powerWPerM2: powerW / heater.areaM2 } })) });
   }
   // a bench is never a heat input (physics/faces.ts isHeatInput), so lastOrError never picks one
   if (c.kind === 'bench') return `${base}: a bench surface is not a heat input`;
   if (c.plate) {
     const plate = c.plate;
     const { lo, hi } = tempRange(plate.tK);
-    return { vary: 'power', path: `${base}.plate.temperature_C`, label: 'plate temperature', unit: '°C', lo, hi, own: plate.tK, show: kToC,
-      apply: checked(lo, hi, (tK) => set({ ...c, plate: { ...plate, tK } })) };
+    return withFields({ vary: 'power', path: `${base}.plate.temperature_C`, label: 'plate temperature', unit: '°C', lo, hi, own: plate.tK, show: kToC,
+      apply: checked(lo, hi, (tK) => set({ ...c, plate: { ...plate, tK } })) });
   }
   const hi = c.fluxWPerM2 * powerDefaults.stretch;
-  return { vary: 'power', path: `${base}.flux_W_m2`, label: 'heater flux (power over the footprint)', unit: 'W/m²', lo: 0, hi, own: c.fluxWPerM2, show: (v) => v,
-    apply: checked(0, hi, (fluxWPerM2) => set({ ...c, fluxWPerM2 })) };
+  return withFields({ vary: 'power', path: `${base}.flux_W_m2`, label: 'heater flux (power over the footprint)', unit: 'W/m²', lo: 0, hi, own: c.fluxWPerM2, show: (v) => v,
+    apply: checked(0, hi, (fluxWPerM2) => set({ ...c, fluxWPerM2 })) });
 }

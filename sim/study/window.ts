@@ -66,7 +66,7 @@ export interface WindowAt {
 }
 
 export interface WindowReport {
-  readonly knob: Omit<Knob, 'apply' | 'show'>;
+  readonly knob: Omit<Knob, 'apply' | 'show' | 'fields'>;
   readonly margin_K: number;
   readonly until_liquid: number | null;
   readonly tolerance: number;
