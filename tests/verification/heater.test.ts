@@ -79,6 +79,9 @@ describe('the heater as a body', () => {
     assertClose(summary.heater!.energy_J, POWER_W * tSwitch, { abs: POWER_W * 0.01 }, 'heater energy, J');
     const off = record.tS.findIndex((_, i) => record.heater!.powerW[i] === 0);
     assertClose(record.tS[off - 1]!, tSwitch, { abs: 0.01 }, 'switch-off time, s');
+    // duty cycle: on for t_switch of the 60 s under the stack (the definition, README "heater"), same 0.01 s tolerance
+    assertClose(summary.heater!.under_stack_s, 60, { abs: 1e-9 }, 'time under the stack, s');
+    assertClose(summary.heater!.duty_cycle, tSwitch / 60, { abs: 0.01 / 60 }, 'duty cycle');
     // the ledger with its heater channel closes to round-off (the plate's stages use the method's own weights)
     expect(summary.energy.imbalance_rel).toBeLessThanOrEqual(1e-12);
     assertClose(summary.energy.heater_J_m2!, summary.heater!.energy_J / AREA, { rel: 1e-12 }, 'J/m² = J / area');
