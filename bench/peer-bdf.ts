@@ -23,7 +23,7 @@ import { solveTridiagonal } from '../sim/grid/tridiagonal.ts';
 import { liquidFractionOf } from '../sim/physics/material.ts';
 import type { Problem } from '../sim/physics/problem.ts';
 import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../sim/physics/problem.ts';
-import { settleFaces } from '../sim/time/tr-bdf2.ts';
+import { settleFaces } from '../sim/grid/line-system.ts';
 import { initialState } from '../sim/time/evolve.ts';
 
 export interface PeerResult {

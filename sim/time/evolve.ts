@@ -7,18 +7,22 @@
  * by redoing the step that crossed them; the step lands there and the conditions are re-read, as at a breakpoint.
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
-import { CHANNEL, createWorkspace, updateCapacity } from '../grid/discretization.ts';
+import { CHANNEL, createWorkspace } from '../grid/discretization.ts';
+import type { ErrorScale } from '../grid/line-system.ts';
+import { LineSystem, settleFaces } from '../grid/line-system.ts';
+import type { StepBuffers } from '../grid/stage-system.ts';
+import { createStepBuffers } from '../grid/stage-system.ts';
 import { enthalpyAt } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
 import { facingOf } from '../physics/natural-convection.ts';
 import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
-import type { ErrorScale, NewtonSettings, StepBuffers, StepOutcome } from './tr-bdf2.ts';
-import { createStepBuffers, settleFaces, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
+import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
+import { STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
 import type { StateSwitch } from './events.ts';
 import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
-import { createPlateControl } from './plates.ts';
+import { beginPlateStage, createPlateControl } from './plates.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
@@ -133,7 +137,6 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
   const ws = createWorkspace(grid, { facing: facingOf('bottom'), lengthM }, { facing: facingOf('top'), lengthM }, problem.layers.map((l) => l.terms));
-  const buf = createStepBuffers(grid.n);
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
   const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0, events: 0, eventTrials: 0 };
@@ -160,14 +163,16 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   let nextBreak = 0;
   for (const node of ws.plates) node.tK = problem.initialK;
   let cond = readConditions(t, undefined);
+  // the stack as TR-BDF2 sees it (grid/line-system.ts); its conditions are set before every step
+  const line = new LineSystem(ws, scale, beginPlateStage, cond);
+  const buf = createStepBuffers(line);
   initialState(problem, grid, buf.U0);
   let floorS = 0;
   const settle = (): boolean => {
     if (!settleFaces(ws, buf.U0, cond, newton.toleranceK)) return false;
-    buf.F0.set(ws.F);
-    buf.q0.set(ws.faceQ);
-    buf.T0.set(ws.T);
-    updateCapacity(ws);
+    line.readRates(buf.F0);
+    line.readChannels(buf.q0);
+    line.markStart();
     floorS = stepGuardDefaults.floorShare * smallestRelaxationS(ws);
     return true;
   };
@@ -208,7 +213,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
     // (a floored step stretched by rounding to land on a breakpoint is still at the floor)
     const atFloor = floored || (adaptive && step <= floor);
-    takeStep(ws, buf, step, cond, newton, scale, backwardEuler, outcome);
+    line.cond = cond;
+    takeStep(line, buf, step, newton, backwardEuler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
     if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {
       // an iterate below 0 K on a long step may still come back; on the smallest step it is the physics
@@ -237,7 +243,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
       const from = t;
       const trial = (s: number): number | undefined => {
-        takeStep(ws, buf, s, cond, newton, scale, backwardEuler, outcome);
+        takeStep(line, buf, s, newton, backwardEuler, outcome);
         stats.newtonIterations += outcome.newtonIterations;
         stats.eventTrials++;
         if (outcome.status !== 'ok') return undefined;
@@ -253,7 +259,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     const t1 = landing ? target : t + step;
     if (coldestK(ws.T) < 0) {
       // where the coldest node crossed 0 K, by linear interpolation over the step
-      const before = coldestK(buf.T0);
+      const before = coldestK(line.T0);
       const after = coldestK(ws.T);
       const at = before > 0 ? t + (step * before) / (before - after) : t;
       return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q1, at), tS: at, stats };
@@ -277,8 +283,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     buf.U0.set(buf.U1);
     buf.F0.set(buf.F1);
     buf.q0.set(buf.q1);
-    buf.T0.set(ws.T);
-    updateCapacity(ws);
+    line.markStart();
     if (adaptive) {
       const ratio = outcome.errorNorm > 0 ? d.safety * outcome.errorNorm ** (-1 / 3) : d.grow;
       // no growth right after a rejection (Hairer & Wanner II, §IV.8): the step that failed is still near

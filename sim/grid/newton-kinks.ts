@@ -3,7 +3,7 @@
  * liquidus, where the capacity of T(H) jumps). Newton's method on a piecewise-smooth function converges from either
  * side of a kink but can cycle across it (Kelley, Iterative Methods for Linear and Nonlinear Equations, SIAM 1995,
  * §5.1: the convergence theory asks for a Lipschitz Jacobian), so an update that would cross one stops just past it
- * and the next iteration starts with the right slope (tr-bdf2.ts).
+ * and the next iteration starts with the right slope (line-system.ts).
  *
  * Tried and left out: stopping at the rows of a tabulated k(T) as well. It cured 4 fuzz scenarios whose cell cycled
  * across a steep row, and broke 4 others of the first 500 of seed 9 (more stops, so more Newton iterations than the

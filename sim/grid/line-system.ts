@@ -1,0 +1,236 @@
+/**
+ * The 1D layer stack as a stage system (stage-system.ts): the state is [bottom face temperature K, cell enthalpies
+ * J/m³, top face temperature K] (n + 2 entries), the cells' mass is their width Δx, the face nodes are constraints
+ * (zero volume: the half-cell conduction balances the face's heat input, or the face is held). It wraps the kernels
+ * of discretization.ts (evaluate, stageResidual, stageJacobian, linearizeCellTerms) and the Thomas solve; what it
+ * adds is what only the stack knows:
+ * - the Newton update stops a cell at the solidus or liquidus kink of its T(H) (newton-kinks.ts), and a face node whose
+ *   cell stopped takes the update its own linearised balance gives for the shortened one;
+ * - the linear accept (acceptUpdate): F, T, the face heats and the cell-term channels move by the update's own
+ *   linearisation, so the stage equations hold exactly and the energy ledger closes to round-off;
+ * - the error measure: each cell's enthalpy error in what a run reports, its temperature (through the secant dT/dH over
+ *   the step, zero on an isothermal plateau) and, for a cell in or across its melt, its liquid fraction (error / ρL).
+ * The heater plates and bench chains are eliminated per stage through the `beforeStage` hook (time/plates.ts).
+ */
+import type { StepConditions, Workspace } from './discretization.ts';
+import { CHANNEL_COUNT, evaluate, linearizeCellTerms, stageJacobian, stageResidual, updateCapacity } from './discretization.ts';
+import { stopAtKink } from './newton-kinks.ts';
+import type { StageKind, StageSystem, StepBuffers, UpdateSize } from './stage-system.ts';
+import { solveTridiagonal } from './tridiagonal.ts';
+
+/** What the local error is measured in: the quantities a run reports. */
+export interface ErrorScale {
+  /** Temperature error allowed per step, K. */
+  readonly toleranceK: number;
+  /** Liquid-fraction error allowed per step (a share of the latent heat). */
+  readonly liquidFraction: number;
+}
+
+/** Sets the eliminated bodies' stage constants before a stage (time/plates.ts beginPlateStage has this shape). */
+export type BeforeStage = (ws: Workspace, cond: StepConditions, hd: number, stage: StageKind,
+  q0: Float64Array, qg: Float64Array, Ug: Float64Array, a: number, bb: number) => void;
+
+/** Nudge past a kink, in kelvin-equivalent enthalpy: far below any tolerance, far above round-off. */
+const KINK_NUDGE_K = 1e-9;
+
+export class LineSystem implements StageSystem {
+  readonly size: number;
+  readonly channels = CHANNEL_COUNT;
+  /** The conditions of the step being taken: set by the time loop before each step. */
+  cond: StepConditions;
+  /** Node temperatures at the start of the step, K (n + 2): the secant of the error measure. */
+  readonly T0: Float64Array;
+  private readonly work: Float64Array;
+  /** The cells' part of the integrator's B (a view, made once for the buffer it is given). */
+  private bOf: Float64Array | undefined;
+  private bCells: Float64Array;
+
+  constructor(readonly ws: Workspace, readonly scale: ErrorScale, private readonly beforeStage: BeforeStage,
+    cond: StepConditions) {
+    this.size = ws.n + 2;
+    this.cond = cond;
+    this.T0 = new Float64Array(this.size);
+    this.work = new Float64Array(this.size);
+    this.bCells = new Float64Array(0);
+  }
+
+  evaluate(U: Float64Array): void {
+    evaluate(this.ws, U, this.cond);
+  }
+
+  readRates(out: Float64Array): void {
+    const n = this.ws.n;
+    out[0] = 0;
+    out.set(this.ws.F, 1);
+    out[n + 1] = 0;
+  }
+
+  readChannels(out: Float64Array): void {
+    out.set(this.ws.faceQ);
+  }
+
+  addRates(B: Float64Array, F: Float64Array, h: number): void {
+    const dx = this.ws.grid.dx;
+    for (let j = 1; j <= this.ws.n; j++) B[j] = B[j]! + (h * F[j]!) / dx[j - 1]!;
+  }
+
+  beginStage(kind: StageKind, hd: number, buf: StepBuffers, a: number, bb: number): void {
+    this.beforeStage(this.ws, this.cond, hd, kind, buf.q0, buf.qg, buf.Ug, a, bb);
+  }
+
+  stageResidual(U: Float64Array, B: Float64Array, h: number, res: Float64Array): void {
+    if (B !== this.bOf) { this.bOf = B; this.bCells = B.subarray(1, this.ws.n + 1); }
+    stageResidual(this.ws, U, this.bCells, h, this.cond, res);
+  }
+
+  assembleStage(h: number): void {
+    stageJacobian(this.ws, h, this.cond);
+  }
+
+  solveStage(rhs: Float64Array, out: Float64Array): boolean {
+    const ws = this.ws;
+    return solveTridiagonal(this.size, ws.lower, ws.diag, ws.upper, rhs, out, this.work);
+  }
+
+  newtonUpdate(U: Float64Array, delta: Float64Array, res: Float64Array, size: UpdateSize): void {
+    const ws = this.ws;
+    const n = ws.n;
+    let worst = 0;
+    let clipped = false;
+    for (let j = 1; j <= n; j++) {
+      const old = U[j]!;
+      const next = stopAtKink(ws.curves[j - 1]!.kinks, old, old - delta[j]!, ws.capacity[j - 1]! * KINK_NUDGE_K);
+      if (next !== old - delta[j]!) { clipped = true; delta[j] = old - next; }
+      U[j] = next;
+      const scaled = Math.abs(delta[j]! / ws.capacity[j - 1]!);
+      if (!(scaled <= worst)) worst = scaled; // also catches NaN
+    }
+    // a face node moves with its cell: when the cell's update stopped at a kink, the face takes what its own linearised
+    // balance gives for the cell's shortened update, not the full one (which assumed the cell went past the kink, and
+    // made the pair cycle across it)
+    if (clipped) {
+      delta[0] = (res[0]! - ws.upper[0]! * delta[1]!) / ws.diag[0]!;
+      delta[n + 1] = (res[n + 1]! - ws.lower[n + 1]! * delta[n]!) / ws.diag[n + 1]!;
+    }
+    U[0] = U[0]! - delta[0]!;
+    U[n + 1] = U[n + 1]! - delta[n + 1]!;
+    const faceWorst = Math.max(Math.abs(delta[0]!), Math.abs(delta[n + 1]!));
+    if (!(faceWorst <= worst)) worst = faceWorst;
+    size.largest = worst;
+    size.stopped = clipped;
+  }
+
+  /**
+   * After the last Newton update U ← U − δ, brings ws to the new U by the same linearisation the update solved,
+   * instead of evaluating again: F ← F − (Δx·δ − R)/h on the cells (so Δx·(U − B) − h·F = 0 holds exactly),
+   * T ← T − τ·δ, and each face's heat input and each cell term's rate moves along its slope. The linearised interior
+   * fluxes telescope and the face rows balance, so the energy ledger closes to round-off; the remaining difference from
+   * a fresh evaluation is O(δ²), far below the Newton tolerance. Overwrites ws.F, ws.T, ws.faceQ.
+   */
+  acceptUpdate(U: Float64Array, delta: Float64Array, res: Float64Array, h: number): void {
+    const ws = this.ws;
+    const cond = this.cond;
+    const { n, T, tau, F, G, dRa, dRb, faceQ, faceDq } = ws;
+    const dx = ws.grid.dx;
+    // faces first, from the slopes at the old state
+    if (cond.bottom.kind === 'fixed') {
+      const b0 = -G[0]! * tau[1]! - G[0]! * G[0]! * (T[0]! - T[1]!) * dRb[0]!;
+      faceQ[0] = faceQ[0]! - b0 * delta[1]!;
+    } else {
+      faceQ[0] = faceQ[0]! - faceDq[0]! * delta[0]!;
+    }
+    if (cond.top.kind === 'fixed') {
+      // heat into the top face is −Q_n; Q_n's slope in U_n is a_n
+      const an = G[n]! * tau[n]! - G[n]! * G[n]! * (T[n]! - T[n + 1]!) * dRa[n]!;
+      faceQ[1] = faceQ[1]! + an * delta[n]!;
+    } else {
+      faceQ[1] = faceQ[1]! - faceDq[1]! * delta[n + 1]!;
+    }
+    linearizeCellTerms(ws, delta);
+    for (let i = 0; i < n; i++) {
+      const j = i + 1;
+      F[i] = F[i]! - (dx[i]! * delta[j]! - res[j]!) / h;
+      T[j] = T[j]! - tau[j]! * delta[j]!;
+    }
+    T[0] = U[0]!;
+    T[n + 1] = U[n + 1]!;
+  }
+
+  /**
+   * The error of each cell's enthalpy (z) as what it does to the reported quantities: its temperature (through the
+   * secant dT/dH over the step, which is zero while a cell sits on an isothermal plateau) and, for a cell in or across
+   * its melt, its liquid fraction (error / ρL, or the temperature measure if that allows more). So a cell crossing a
+   * kink of T(H) is judged by its real effect, not by the kink. Reads ws.T as the end state's temperatures.
+   */
+  errorNorm(U0: Float64Array, U1: Float64Array, z: Float64Array): number {
+    const ws = this.ws;
+    const { n, grid } = ws;
+    const scale = this.scale;
+    let worst = 0;
+    const T1 = ws.T;
+    const T0 = this.T0;
+    for (let i = 0; i < n; i++) {
+      const e0 = Math.abs(z[i + 1]!);
+      const dH = Math.abs(U1[i + 1]! - U0[i + 1]!);
+      const secant = dH > ws.capacity[i]! * KINK_NUDGE_K ? Math.abs(T1[i + 1]! - T0[i + 1]!) / dH : ws.tau[i + 1]!;
+      let e = (e0 * secant) / scale.toleranceK;
+      const latent = ws.latent[i]!;
+      if (latent > 0) {
+        // the liquid-fraction error counts only for a cell in or across its melt over the step, and is measured
+        // against the larger of the two allowances, so it fades into the temperature measure as the latent heat → 0
+        // (a latent heat of 1e-6 J/kg must cost what no melt costs)
+        const melt = grid.materials[i]!.melt!;
+        const a = U0[i + 1]!;
+        const b = U1[i + 1]!;
+        if (Math.min(a, b) <= melt.hLiquidus + e0 && Math.max(a, b) >= melt.hSolidus - e0) {
+          e = Math.max(e, e0 / Math.max(scale.liquidFraction * latent, scale.toleranceK * ws.capacity[i]!));
+        }
+      }
+      if (!(e <= worst)) worst = e;
+    }
+    return worst;
+  }
+
+  /** The evaluated state starts the next step: its temperatures for the secant, ρc_p at them for the scales. */
+  markStart(): void {
+    this.T0.set(this.ws.T);
+    updateCapacity(this.ws);
+  }
+}
+
+/**
+ * Brings the face nodes of U into balance with the cells under `cond` (after a schedule change the face temperature
+ * jumps; a zero-volume node has no memory). Scalar Newton per face. Leaves ws evaluated at U. Overwrites U[0], U[n+1].
+ */
+export function settleFaces(ws: Workspace, U: Float64Array, cond: StepConditions, toleranceK: number): boolean {
+  const { n } = ws;
+  if (cond.bottom.kind === 'fixed') U[0] = cond.bottom.tK;
+  if (cond.top.kind === 'fixed') U[n + 1] = cond.top.tK;
+  const maxIterations = 60;
+  for (let iter = 0; iter < maxIterations; iter++) {
+    evaluate(ws, U, cond);
+    let worst = 0;
+    if (cond.bottom.kind !== 'fixed') {
+      const r = ws.G[0]! * (ws.T[0]! - ws.T[1]!) - ws.faceQ[0]!;
+      const step = r / (ws.G[0]! * (1 - ws.G[0]! * (ws.T[0]! - ws.T[1]!) * ws.dRa[0]!) - ws.faceDq[0]!);
+      U[0] = U[0]! - step;
+      worst = Math.max(worst, Math.abs(step));
+    }
+    if (cond.top.kind !== 'fixed') {
+      const r = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!) - ws.faceQ[1]!;
+      const step = r / (ws.G[n]! * (1 - ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!) * ws.dRb[n]!) - ws.faceDq[1]!);
+      U[n + 1] = U[n + 1]! - step;
+      worst = Math.max(worst, Math.abs(step));
+    }
+    if (worst <= toleranceK) {
+      evaluate(ws, U, cond);
+      // book as the face's heat input exactly what its half cell conducts inwards: the Newton remainder of the face
+      // balance (up to tolerance × (G + |dq/dT|), large beside a stiff plate) then stays out of the energy ledger
+      if (cond.bottom.kind !== 'fixed') ws.faceQ[0] = ws.G[0]! * (ws.T[0]! - ws.T[1]!);
+      if (cond.top.kind !== 'fixed') ws.faceQ[1] = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!);
+      return true;
+    }
+    if (!Number.isFinite(worst)) return false;
+  }
+  return false;
+}
