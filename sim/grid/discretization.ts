@@ -2,7 +2,8 @@
  * The semi-discrete heat equation on the grid, in conservation form (finite volumes, Patankar 1980 ch. 4):
  *   Δx_i · dH_i/dt = Q_{i−½} − Q_{i+½} + s_i·Δx_i,     Q_{i+½} = G_{i+½}·(T_i − T_{i+1}),
  *   s_i = s_sched,i(t) + Σ s_term(T_i)   (the layer's schedule and its temperature-dependent terms, heat-terms.ts),
- *   1/G_{i+½} = Δx_i/(2k_i) + R_contact + Δx_{i+1}/(2k_{i+1})   (series resistance; harmonic mean of k).
+ *   1/G_{i+½} = Δx_i/(2k̄_i) + R_contact + Δx_{i+1}/(2k̄_{i+1})   (series resistance), each k̄ the Kirchhoff mean of
+ *   its cell's k between T_i and T_{i+1} (kirchhoff.ts), so the flux is monotone in both temperatures for any k(T).
  * Each exposed face carries a node of zero volume whose temperature balances the half-cell conduction against the
  * face's heat input (flux, convection, radiation, plate), or is held fixed. So the face temperature that drives
  * convection and radiation is the surface temperature itself, not a cell centre.
@@ -17,7 +18,8 @@ import { faceHeatIn } from '../physics/faces.ts';
 import type { PlateNode } from '../physics/heater.ts';
 import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
-import { conductivityWithSlope, sensibleCapacity, temperatureOf } from '../physics/material.ts';
+import { sensibleCapacity, temperatureOf } from '../physics/material.ts';
+import { halfCellConductivity } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import type { CellHeatTerm } from '../physics/heat-terms.ts';
@@ -53,8 +55,12 @@ export interface Workspace {
   readonly tau: Float64Array;
   /** Conductance between node j and j+1, W·m⁻²·K⁻¹ (n+1). */
   readonly G: Float64Array;
-  /** d(half-cell resistance)/dU per node (n+2): from the liquid fraction in two-phase cells, from k(T) elsewhere. */
-  readonly dHalf: Float64Array;
+  /**
+   * Slopes of each face's series resistance 1/G_j in the unknowns of its two nodes, ∂(1/G_j)/∂U_j and ∂(1/G_j)/∂U_{j+1}
+   * (n+1 each): through k̄ of each half cell (kirchhoff.ts) and, in two-phase cells, through the liquid fraction.
+   */
+  readonly dRa: Float64Array;
+  readonly dRb: Float64Array;
   /** Net heat rate into each cell per unit area, W/m² (n). */
   readonly F: Float64Array;
   /** Sensible capacity ρc_p per cell at the start of the step, J·m⁻³·K⁻¹ (n): the error scale. */
@@ -100,7 +106,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     grid, n,
     curves: grid.materials.map((mat) => mat.enthalpy),
     bottomContext, topContext,
-    T: new Float64Array(m), tau: new Float64Array(m), G: new Float64Array(n + 1), dHalf: new Float64Array(m),
+    T: new Float64Array(m), tau: new Float64Array(m), G: new Float64Array(n + 1), dRa: new Float64Array(n + 1), dRb: new Float64Array(n + 1),
     F: new Float64Array(n),
     capacity: new Float64Array(n), segmentHint: new Int32Array(n),
     latent: Float64Array.from(grid.materials, (mat) => (mat.melt ? mat.density * mat.melt.latentJPerKg : 0)),
@@ -120,7 +126,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
  * ws.scratch2, ws.termScratch, ws.termState.
  */
 export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): void {
-  const { n, T, tau, G, F, curves, segmentHint, scratch2, grid, dHalf } = ws;
+  const { n, T, tau, G, F, curves, segmentHint, scratch2, grid, dRa, dRb } = ws;
   const dx = grid.dx;
   T[0] = U[0]!;
   tau[0] = 1;
@@ -131,30 +137,41 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     T[i + 1] = scratch2[0]!;
     tau[i + 1] = scratch2[1]!;
   }
-  // half-cell resistances, then series sums on each face
+  // half-cell resistances Δx/(2k̄), k̄ the Kirchhoff mean toward each neighbour (kirchhoff.ts), then series sums on
+  // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above)
   let halfBelow = 0;
+  let belowOwn = 0;
+  let belowNb = 0;
   for (let i = 0; i < n; i++) {
-    const tC = T[i + 1]!;
+    const j = i + 1;
+    const tC = T[j]!;
     const material = grid.materials[i]!;
     const melt = material.melt;
-    const h = U[i + 1]!;
-    const k = conductivityWithSlope(material, h, tC, scratch2);
+    const h = U[j]!;
+    let mush = 0;
     if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus) {
       // half = Δx/(2k) with 1/k linear in f: d(half)/dH = (Δx/2)·(1/k_l − 1/k_s)·df/dH
       const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus)
-        : tau[i + 1]! / (melt.liquidusK - melt.solidusK);
-      dHalf[i + 1] = 0.5 * dx[i]! * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
-    } else {
-      // half = Δx/(2k(T)): d(half)/dH = −Δx/(2k²)·dk/dT·dT/dH
-      const slope = scratch2[0]!;
-      dHalf[i + 1] = slope === 0 ? 0 : (-0.5 * dx[i]! * slope * tau[i + 1]!) / (k * k);
+        : tau[j]! / (melt.liquidusK - melt.solidusK);
+      mush = 0.5 * dx[i]! * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
     }
-    const half = (0.5 * dx[i]!) / k;
-    if (i === 0) G[0] = 1 / half;
-    else G[i] = 1 / (halfBelow + grid.contactAbove[i - 1]! + half);
-    halfBelow = half;
+    // half = Δx/(2k̄(T_own, T_nb)): d(half)/dT = −Δx/(2k̄²)·dk̄/dT
+    const kLo = halfCellConductivity(material, h, tC, T[j - 1]!, scratch2);
+    const cLo = (-0.5 * dx[i]!) / (kLo * kLo);
+    const loOwn = cLo * scratch2[0]! * tau[j]! + mush;
+    const loNb = cLo * scratch2[1]! * tau[j - 1]!;
+    const kUp = halfCellConductivity(material, h, tC, T[j + 1]!, scratch2);
+    const cUp = (-0.5 * dx[i]!) / (kUp * kUp);
+    G[i] = 1 / (halfBelow + (i === 0 ? 0 : grid.contactAbove[i - 1]!) + (0.5 * dx[i]!) / kLo);
+    dRa[i] = belowOwn + loNb;
+    dRb[i] = belowNb + loOwn;
+    halfBelow = (0.5 * dx[i]!) / kUp;
+    belowOwn = cUp * scratch2[0]! * tau[j]! + mush;
+    belowNb = cUp * scratch2[1]! * tau[j + 1]!;
   }
   G[n] = 1 / halfBelow;
+  dRa[n] = belowOwn;
+  dRb[n] = belowNb;
   const { cellTerms, generatedDs, edgeDs, termScratch, termState } = ws;
   let generated = 0;
   let edge = 0;
@@ -228,19 +245,19 @@ export function stageResidual(ws: Workspace, U: Float64Array, B: Float64Array, h
 
 /**
  * Jacobian of stageResidual() with respect to U. The flux through face j (node j to j+1), Q_j = G_j·(T_j − T_{j+1}),
- * has slopes a_j = ∂Q_j/∂U_j and b_j = ∂Q_j/∂U_{j+1}, which include the change of G through the half-cell resistance
- * of two-phase cells (k follows the liquid fraction) and of single-phase cells (tabulated k(T)). A cell's own terms
+ * has slopes a_j = ∂Q_j/∂U_j and b_j = ∂Q_j/∂U_{j+1}, which include the change of G through the half-cell resistances
+ * of both its cells (ws.dRa, ws.dRb: two-phase cells through the liquid fraction, single-phase ones through k̄). A cell's own terms
  * add −h·Δx·(∂s/∂T)·τ to its diagonal. Overwrites ws.lower, ws.diag, ws.upper.
  */
 export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): void {
-  const { n, G, tau, lower, diag, upper, grid, T, dHalf, generatedDs, edgeDs } = ws;
+  const { n, G, tau, lower, diag, upper, grid, T, dRa, dRb, generatedDs, edgeDs } = ws;
   let aPrev = 0;
   let bPrev = 0;
   for (let j = 0; j <= n; j++) {
     const g = G[j]!;
     const g2dT = g * g * (T[j]! - T[j + 1]!);
-    const a = g * tau[j]! - g2dT * dHalf[j]!;
-    const b = -g * tau[j + 1]! - g2dT * dHalf[j + 1]!;
+    const a = g * tau[j]! - g2dT * dRa[j]!;
+    const b = -g * tau[j + 1]! - g2dT * dRb[j]!;
     if (j === 0) {
       if (cond.bottom.kind === 'fixed') { diag[0] = 1; upper[0] = 0; }
       else { diag[0] = h * (a - ws.faceDq[0]!); upper[0] = h * b; }

@@ -130,18 +130,18 @@ export class LineSystem implements StageSystem {
   acceptUpdate(U: Float64Array, delta: Float64Array, res: Float64Array, h: number): void {
     const ws = this.ws;
     const cond = this.cond;
-    const { n, T, tau, F, G, dHalf, faceQ, faceDq } = ws;
+    const { n, T, tau, F, G, dRa, dRb, faceQ, faceDq } = ws;
     const dx = ws.grid.dx;
     // faces first, from the slopes at the old state
     if (cond.bottom.kind === 'fixed') {
-      const b0 = -G[0]! * tau[1]! - G[0]! * G[0]! * (T[0]! - T[1]!) * dHalf[1]!;
+      const b0 = -G[0]! * tau[1]! - G[0]! * G[0]! * (T[0]! - T[1]!) * dRb[0]!;
       faceQ[0] = faceQ[0]! - b0 * delta[1]!;
     } else {
       faceQ[0] = faceQ[0]! - faceDq[0]! * delta[0]!;
     }
     if (cond.top.kind === 'fixed') {
       // heat into the top face is −Q_n; Q_n's slope in U_n is a_n
-      const an = G[n]! * tau[n]! - G[n]! * G[n]! * (T[n]! - T[n + 1]!) * dHalf[n]!;
+      const an = G[n]! * tau[n]! - G[n]! * G[n]! * (T[n]! - T[n + 1]!) * dRa[n]!;
       faceQ[1] = faceQ[1]! + an * delta[n]!;
     } else {
       faceQ[1] = faceQ[1]! - faceDq[1]! * delta[n + 1]!;
@@ -212,13 +212,13 @@ export function settleFaces(ws: Workspace, U: Float64Array, cond: StepConditions
     let worst = 0;
     if (cond.bottom.kind !== 'fixed') {
       const r = ws.G[0]! * (ws.T[0]! - ws.T[1]!) - ws.faceQ[0]!;
-      const step = r / (ws.G[0]! - ws.faceDq[0]!);
+      const step = r / (ws.G[0]! * (1 - ws.G[0]! * (ws.T[0]! - ws.T[1]!) * ws.dRa[0]!) - ws.faceDq[0]!);
       U[0] = U[0]! - step;
       worst = Math.max(worst, Math.abs(step));
     }
     if (cond.top.kind !== 'fixed') {
       const r = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!) - ws.faceQ[1]!;
-      const step = r / (ws.G[n]! - ws.faceDq[1]!);
+      const step = r / (ws.G[n]! * (1 - ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!) * ws.dRb[n]!) - ws.faceDq[1]!);
       U[n + 1] = U[n + 1]! - step;
       worst = Math.max(worst, Math.abs(step));
     }

@@ -1,0 +1,106 @@
+/**
+ * The conductivity of a half cell as the mean of k over the temperatures between the cell and its neighbour, through
+ * the Kirchhoff transform Φ(T) = ∫k dT (Carslaw & Jaeger, Conduction of Heat in Solids, 2nd ed. 1959, §1.7; Özişik,
+ * Heat Conduction, 2nd ed. 1993, §11.2):  k̄ = (Φ(T_nb) − Φ(T_own)) / (T_nb − T_own).
+ *
+ * Why: with k read at the cell's own temperature, the flux G·(T_i − T_{i+1}) toward a much hotter neighbour falls as
+ * the cell warms wherever (dk/dT)·ΔT > k (a tabulated k rising ×100 over a few kelvin next to a held face), so the
+ * discrete equations stop being monotone and Newton's method cycles even at steps of 1e-12 s. With the mean, each half
+ * resistance Δx/(2k̄) falls as either temperature moves away from the other, so the flux ΔT/(Σ Δx/(2k̄) + R_c) rises
+ * with T_i and falls with T_{i+1} whatever the table: the monotone flux of the Kirchhoff transform. Within one material
+ * it is the exact Kirchhoff flux (Φ(T_i) − Φ(T_{i+1}))/((Δx_i + Δx_{i+1})/2); for a constant k it is the usual one.
+ *
+ * A melting material is read as conductivityAt() reads it (physics/material.ts): a solid cell on the table held flat
+ * above its solid row, a liquid cell on the table held flat below its liquid row, a two-phase cell at its mush value
+ * (which follows the liquid fraction, not T: the caller handles that slope).
+ */
+import type { Material } from '../physics/material.ts';
+import { liquidFractionOf, mushConductivity } from '../physics/material.ts';
+import type { Table } from '../physics/table.ts';
+import { evalTable } from '../physics/table.ts';
+
+/** g(T) = table(clamp(T, lo, hi)): the table as one phase of a cell reads it. */
+function clampedValue(table: Table, lo: number, hi: number, t: number): number {
+  return evalTable(table, t < lo ? lo : t > hi ? hi : t);
+}
+
+/** Which linear piece of g holds T: −1 below the first knot, the row index between knots, n − 1 above. */
+function pieceOf(table: Table, lo: number, hi: number, t: number): number {
+  const xs = table.tK;
+  const last = xs.length - 1;
+  if (t <= lo || t <= xs[0]!) return -1;
+  if (t >= hi || t >= xs[last]!) return last;
+  let k = 0;
+  while (k + 1 < last && xs[k + 1]! <= t) k++;
+  return k;
+}
+
+/** ∫_a^b table(T) dT for a ≤ b, the table held flat outside its rows. */
+function tableIntegral(table: Table, a: number, b: number): number {
+  const { tK: xs, y } = table;
+  const last = xs.length - 1;
+  let sum = 0;
+  let t = a;
+  if (t < xs[0]!) { const e = Math.min(b, xs[0]!); sum += (e - t) * y[0]!; t = e; }
+  for (let k = 0; k < last && t < b; k++) {
+    if (xs[k + 1]! <= t) continue;
+    const e = Math.min(b, xs[k + 1]!);
+    sum += ((e - t) * (evalTable(table, t) + evalTable(table, e))) / 2;
+    t = e;
+  }
+  if (t < b) sum += (b - t) * y[last]!;
+  return sum;
+}
+
+/** ∫_a^b g(T) dT for a ≤ b, g the table clamped to [lo, hi]. */
+function clampedIntegral(table: Table, lo: number, hi: number, a: number, b: number): number {
+  let sum = 0;
+  let from = a;
+  let to = b;
+  if (from < lo) { const e = Math.min(to, lo); sum += (e - from) * evalTable(table, lo); from = e; }
+  if (to > hi) { const s = Math.max(from, hi); sum += (to - s) * evalTable(table, hi); to = s; }
+  if (from < to) sum += tableIntegral(table, from, to);
+  return sum;
+}
+
+/**
+ * Mean of g(T) = table(clamp(T, lo, hi)) over the temperatures between `own` and `nb` (K), with ∂/∂own in out[0] and
+ * ∂/∂nb in out[1]. Exact for a piecewise-linear table; where both ends lie on one linear piece the mean is the
+ * average of the end values and each slope is half the piece's, so no difference of near-equal numbers is taken.
+ * Overwrites out[0], out[1]. Allocates nothing.
+ */
+export function clampedTableMean(table: Table, lo: number, hi: number, own: number, nb: number, out: Float64Array): number {
+  const gOwn = clampedValue(table, lo, hi, own);
+  const gNb = clampedValue(table, lo, hi, nb);
+  const piece = pieceOf(table, lo, hi, own);
+  if (piece === pieceOf(table, lo, hi, nb)) {
+    const xs = table.tK;
+    const inner = piece >= 0 && piece < xs.length - 1;
+    const slope = inner ? (table.y[piece + 1]! - table.y[piece]!) / (xs[piece + 1]! - xs[piece]!) : 0;
+    out[0] = slope / 2;
+    out[1] = slope / 2;
+    return (gOwn + gNb) / 2;
+  }
+  const span = nb - own;
+  const mean = (own < nb ? clampedIntegral(table, lo, hi, own, nb) : clampedIntegral(table, lo, hi, nb, own)) / Math.abs(span);
+  out[0] = (mean - gOwn) / span;
+  out[1] = (gNb - mean) / span;
+  return mean;
+}
+
+/**
+ * The conductivity (W·m⁻¹·K⁻¹) of the half of a cell (enthalpy hJ, temperature ownK) that faces a node at nbK: the
+ * Kirchhoff mean of its material's k between the two, read by phase as above; out[0] = ∂k̄/∂T_own, out[1] = ∂k̄/∂T_nb
+ * (both 0 in a two-phase cell, whose k follows the liquid fraction). Overwrites out[0], out[1].
+ */
+export function halfCellConductivity(material: Material, hJ: number, ownK: number, nbK: number, out: Float64Array): number {
+  const melt = material.melt;
+  const table = material.conductivity;
+  out[0] = 0;
+  out[1] = 0;
+  if (table.y.length === 1) return table.y[0]!;
+  if (melt === undefined) return clampedTableMean(table, -Infinity, Infinity, ownK, nbK, out);
+  if (hJ <= melt.hSolidus) return clampedTableMean(table, -Infinity, melt.solidTableK, ownK, nbK, out);
+  if (hJ >= melt.hLiquidus) return clampedTableMean(table, melt.liquidTableK, Infinity, ownK, nbK, out);
+  return mushConductivity(melt, liquidFractionOf(material, hJ, ownK));
+}
