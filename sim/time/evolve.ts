@@ -23,6 +23,7 @@ import type { StateSwitch } from './events.ts';
 import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
+import { growthFactor, retryStepS } from './step-control.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
@@ -229,9 +230,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       }
       stats.rejected++;
       rejectedLast = true;
-      h = outcome.status === 'ok'
-        ? step * Math.max(d.shrink, d.safety * outcome.errorNorm ** (-1 / 3))
-        : step * d.newtonCut;
+      h = retryStepS(step, outcome, d);
       continue;
     }
     if (atFloor && outcome.errorNorm > 1) stats.forced++;
@@ -285,12 +284,10 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     buf.q0.set(buf.q1);
     line.markStart();
     if (adaptive) {
-      const ratio = outcome.errorNorm > 0 ? d.safety * outcome.errorNorm ** (-1 / 3) : d.grow;
-      // no growth right after a rejection (Hairer & Wanner II, §IV.8): the step that failed is still near
-      const growth = rejectedLast ? 1 : d.grow;
-      rejectedLast = false;
       // a step shortened to land on a breakpoint says nothing about the next one: grow from the controller's own h
-      h = Math.max(landing ? h : step, step) * Math.min(growth, Math.max(d.shrink, ratio));
+      // (step-control.ts: no growth right after a rejection)
+      h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
+      rejectedLast = false;
     }
     t = t1;
     if (landing && t < durationS) {

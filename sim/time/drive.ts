@@ -1,0 +1,90 @@
+/**
+ * drive(): TR-BDF2 with the time loop's step control (step-control.ts, evolveDefaults) on any stage system
+ * (grid/stage-system.ts), for a system with no schedule, breakpoints or state events: a lumped network
+ * (grid/node-network.ts), and the proof that the integrator and its control need nothing of the grid. The stack's own
+ * loop, with schedules, events, plates and the record, is evolve.ts.
+ */
+import type { StageSystem, StepBuffers } from '../grid/stage-system.ts';
+import { evolveDefaults } from './evolve.ts';
+import { growthFactor, retryStepS } from './step-control.ts';
+import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
+import { stepFaceEnergy, takeStep } from './tr-bdf2.ts';
+
+export interface DriveOptions {
+  /** End of the run, s (the run starts at 0). */
+  readonly endS: number;
+  /** Adaptive steps from firstStepS up to maxStepS, or a fixed step. */
+  readonly stepping: { readonly kind: 'adaptive'; readonly firstStepS: number; readonly maxStepS: number }
+    | { readonly kind: 'fixed'; readonly stepS: number; readonly scheme: 'tr-bdf2' | 'backward-euler' };
+  readonly newton: NewtonSettings;
+  /** Trial steps allowed (accepted and rejected). */
+  readonly maxSteps: number;
+}
+
+export interface DriveStats {
+  steps: number;
+  rejected: number;
+  newtonIterations: number;
+}
+
+export type DriveEnd =
+  | { readonly status: 'ok'; readonly stats: DriveStats }
+  | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: DriveStats };
+
+/**
+ * Integrates sys from the state in buf.U0 at t = 0 to options.endS, landing on the end. After each accepted step
+ * onStep(t0, t1, channelJ) sees buf (U0 the start, U1 the end) and the energy each ledger channel took in over it by
+ * the method's quadrature (channelJ, reused). Never throws for numerical trouble: a failure is the returned status.
+ */
+export function drive(sys: StageSystem, buf: StepBuffers, options: DriveOptions,
+  onStep?: (t0: number, t1: number, channelJ: Float64Array) => void): DriveEnd {
+  const d = evolveDefaults;
+  const stats: DriveStats = { steps: 0, rejected: 0, newtonIterations: 0 };
+  const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
+  const { stepping, endS } = options;
+  const adaptive = stepping.kind === 'adaptive';
+  const backwardEuler = stepping.kind === 'fixed' && stepping.scheme === 'backward-euler';
+  const maxStepS = stepping.kind === 'adaptive' ? stepping.maxStepS : stepping.stepS;
+  const channelJ = new Float64Array(sys.channels);
+  sys.evaluate(buf.U0);
+  sys.readRates(buf.F0);
+  sys.readChannels(buf.q0);
+  sys.markStart();
+  let h = stepping.kind === 'adaptive' ? Math.min(stepping.firstStepS, maxStepS) : stepping.stepS;
+  let t = 0;
+  let rejectedLast = false;
+  while (t < endS) {
+    if (stats.steps + stats.rejected >= options.maxSteps) {
+      return { status: 'failed', message: `the step budget of ${options.maxSteps} trial steps ran out at t = ${t} s`, tS: t, stats };
+    }
+    let step = Math.min(h, maxStepS);
+    let landing = false;
+    if (t + step * (1 + d.landShare) >= endS) { step = endS - t; landing = true; }
+    else if (adaptive && t + 2 * step > endS) step = 0.5 * (endS - t);
+    takeStep(sys, buf, step, options.newton, backwardEuler, outcome);
+    stats.newtonIterations += outcome.newtonIterations;
+    if (outcome.status !== 'ok' || (adaptive && outcome.errorNorm > 1)) {
+      if (!adaptive) return { status: 'failed', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
+      stats.rejected++;
+      rejectedLast = true;
+      h = retryStepS(step, outcome, d);
+      continue;
+    }
+    stats.steps++;
+    const t1 = landing ? endS : t + step;
+    if (onStep) {
+      for (let k = 0; k < sys.channels; k++) channelJ[k] = stepFaceEnergy(buf, k, step, backwardEuler);
+      onStep(t, t1, channelJ);
+    }
+    buf.U0.set(buf.U1);
+    buf.F0.set(buf.F1);
+    buf.q0.set(buf.q1);
+    sys.markStart();
+    if (adaptive) {
+      h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
+      rejectedLast = false;
+    }
+    t = t1;
+  }
+  return { status: 'ok', stats };
+}
