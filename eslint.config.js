@@ -39,6 +39,22 @@ function layerRule(folder) {
   };
 }
 
+/**
+ * The integrator and its step control see a system only through the stage-system interface (DEVELOPERS.md, "The
+ * numerical method"): no grid, no kernels, no Thomas solve, so the same TR-BDF2 serves the stack, a network and 2D.
+ */
+function integratorRule() {
+  const time = layerRule('time').rules['no-restricted-imports'][1].patterns;
+  return {
+    files: ['sim/time/tr-bdf2.ts', 'sim/time/step-control.ts', 'sim/time/drive.ts'],
+    rules: {
+      'no-restricted-imports': ['error', {
+        patterns: [...time, { group: ['../grid/*', '!../grid/stage-system.ts'], message: 'the integrator sees a system only through grid/stage-system.ts (no grid, kernels or linear solver of its own).' }],
+      }],
+    },
+  };
+}
+
 export default tseslint.config(
   { ignores: ['dist/**', 'build/**', 'node_modules/**', 'sim/cli/bin.js'] },
   ...tseslint.configs.recommended,
@@ -58,6 +74,7 @@ export default tseslint.config(
     },
   },
   ...['physics', 'grid', 'time', 'observe', 'lumped', 'scenario'].map(layerRule),
+  integratorRule(),
   {
     // study/ may use everything below it and run.ts, but not the CLI
     files: ['sim/study/**/*.ts'],

@@ -23,6 +23,9 @@ describe('the import direction between sim/ folders', () => {
     ['sim/lumped/probe.ts', "import { evolve } from '../time/evolve.ts';", 'sim/lumped/ may import only sim/physics/'],
     ['sim/observe/probe.ts', "import { parseScenario } from '../scenario/scenario.ts';", 'sim/observe/ may import only'],
     ['sim/grid/probe.ts', "import { runProblem } from '../run.ts';", 'must not import the top of sim/'],
+    ['sim/time/tr-bdf2.ts', "import { solveTridiagonal } from '../grid/tridiagonal.ts';", 'the integrator sees a system only through grid/stage-system.ts'],
+    ['sim/time/drive.ts', "import { evaluate } from '../grid/discretization.ts';", 'the integrator sees a system only through grid/stage-system.ts'],
+    ['sim/time/tr-bdf2.ts', "import { createRecorder } from '../observe/record.ts';", 'sim/time/ may import only'],
     ['sim/study/probe.ts', "import { program } from '../cli/main.ts';", 'sim/study/ must not import the CLI'],
     ['ui/probe.ts', "import { runProblem } from '../sim/run.ts';", 'only through sim/index.ts'],
   ])('refuses %s importing against the grain: %s', async (file, code, words) => {
@@ -32,6 +35,7 @@ describe('the import direction between sim/ folders', () => {
 
   it.each([
     ['sim/grid/probe.ts', "import { buildMaterial } from '../physics/material.ts';"],
+    ['sim/time/tr-bdf2.ts', "import type { StageSystem } from '../grid/stage-system.ts';"],
     ['sim/observe/probe.ts', "import { evolve } from '../time/evolve.ts';"],
     ['sim/scenario/probe.ts', "import { formatTime } from '../observe/format.ts';"],
     ['sim/study/probe.ts', "import { runProblem } from '../run.ts';"],
