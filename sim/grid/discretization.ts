@@ -19,7 +19,7 @@ import type { PlateNode } from '../physics/heater.ts';
 import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
 import { sensibleCapacity, temperatureOf } from '../physics/material.ts';
-import { halfCellConductivity } from './kirchhoff.ts';
+import { halfCellConductivity, splitsConductivity } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import type { CellHeatTerm } from '../physics/heat-terms.ts';
@@ -149,7 +149,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     const melt = material.melt;
     const h = U[j]!;
     let mush = 0;
-    if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus) {
+    if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus && splitsConductivity(material)) {
       // half = Δx/(2k) with 1/k linear in f: d(half)/dH = (Δx/2)·(1/k_l − 1/k_s)·df/dH
       const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus)
         : tau[j]! / (melt.liquidusK - melt.solidusK);

@@ -12,7 +12,10 @@
  *
  * A melting material is read as conductivityAt() reads it (physics/material.ts): a solid cell on the table held flat
  * above its solid row, a liquid cell on the table held flat below its liquid row, a two-phase cell at its mush value
- * (which follows the liquid fraction, not T: the caller handles that slope).
+ * (which follows the liquid fraction, not T: the caller handles that slope). Except when its latent heat is below what
+ * c_p·(1 K) holds (splitsConductivity): then k would jump from k_s to k_l across an enthalpy interval ρL too narrow for
+ * any step to resolve (with L = 0, a true jump, and the stage equations have no root: fuzz seed 9 case 275, Newton
+ * failed at 1.8e-9 s), so the table is read at T straight through the melt, continuous and Kirchhoff-monotone.
  */
 import type { Material } from '../physics/material.ts';
 import { liquidFractionOf, mushConductivity } from '../physics/material.ts';
@@ -99,8 +102,21 @@ export function halfCellConductivity(material: Material, hJ: number, ownK: numbe
   out[0] = 0;
   out[1] = 0;
   if (table.y.length === 1) return table.y[0]!;
-  if (melt === undefined) return clampedTableMean(table, -Infinity, Infinity, ownK, nbK, out);
+  if (melt === undefined || !splitsConductivity(material)) return clampedTableMean(table, -Infinity, Infinity, ownK, nbK, out);
   if (hJ <= melt.hSolidus) return clampedTableMean(table, -Infinity, melt.solidTableK, ownK, nbK, out);
   if (hJ >= melt.hLiquidus) return clampedTableMean(table, melt.liquidTableK, Infinity, ownK, nbK, out);
   return mushConductivity(melt, liquidFractionOf(material, hJ, ownK));
+}
+
+/**
+ * Below this latent heat, in kelvin of the material's own c_p at its solidus, the melt does not split k into solid,
+ * mush and liquid values: a phase change whose latent heat a 1 K temperature step outweighs cannot change conduction in
+ * a way the grid resolves (real melts: 10²–10⁴ K of c_p, e.g. 3.3e5 J/kg over 2.1e3 J/(kg·K) for ice, from memory).
+ */
+const SPLIT_LATENT_K = 1;
+
+/** Whether a melting material's k follows its phase (solid, mush, liquid) rather than the table at T (see above). */
+export function splitsConductivity(material: Material): boolean {
+  const melt = material.melt;
+  return melt !== undefined && melt.latentJPerKg >= SPLIT_LATENT_K * evalTable(material.specificHeat, melt.solidusK);
 }

@@ -11,7 +11,7 @@
  * temperature, so the conductance G toward a much hotter neighbour grows with the cell's temperature; where
  * (dG/dT)·ΔT > G (k ×95 over 4 K, 170 K across the face) the discrete flux falls as the cell warms, a cell locks onto
  * the row and the solver chatters there (one 13-cell run took 1.4 M steps of ~1e-9 s). A half-cell flux through the
- * Kirchhoff transform Φ(T) = ∫k dT is monotone in both temperatures and would remove it (open).
+ * Kirchhoff transform Φ(T) = ∫k dT is monotone in both temperatures and removes it (grid/kirchhoff.ts).
  */
 
 /**
