@@ -15,7 +15,7 @@ const layers = {
   physics: [],
   grid: ['physics'],
   time: ['grid', 'physics'],
-  observe: ['time', 'grid', 'physics'],
+  observe: ['grid', 'physics'], // reads solver-neutral observations (physics/observation.ts), not time/
   lumped: ['physics'],
   scenario: ['observe', 'grid', 'physics'],
   study: ['scenario', 'observe', 'time', 'grid', 'physics', 'lumped'],

@@ -1,11 +1,13 @@
 /**
- * One run, end to end: scenario → grid → evolve() driven to the end → record → verdicts. Used by the CLI, the Web
+ * One run, end to end: scenario → grid → evolve() driven to the end → each step observed (time/observe-step.ts) →
+ * record → verdicts. Used by the CLI, the Web
  * Worker, the tests and the benchmark; `onProgress` lets a caller show progress or stop the run (return false).
  * `detail: 'summary'` records only what the verdicts read (no position–time map, no per-step series): for window
  * searches and sweeps, which run many times and read only the summary.
  */
 import type { EvolveEnd, EvolveOptions, EvolveStats } from './time/evolve.ts';
 import { evolve } from './time/evolve.ts';
+import { createStepObserver } from './time/observe-step.ts';
 import type { Grid } from './grid/mesh.ts';
 import { buildGrid } from './grid/mesh.ts';
 import { withMeltRamp } from './physics/melt-ramp.ts';
@@ -43,13 +45,14 @@ export function runProblem(asWritten: Problem, options: RunOptions = {}): RunOut
   const problem = solvedProblem(asWritten);
   // the plan's grid factor (1 at the defaults) times a refinement study's own
   const grid = buildGrid(problem, (options.refine ?? 1) * (problem.numerics.accuracy?.gridRefine ?? 1));
-  const recorder = createRecorder(problem, grid, { detail: options.detail ?? 'full' });
+  const observer = createStepObserver(problem, grid);
+  const recorder = createRecorder(problem, observer.layout, { detail: options.detail ?? 'full' });
   const loop = evolve(problem, grid, options);
   let end: EvolveEnd;
   for (;;) {
     const next = loop.next();
     if (next.done) { end = next.value; break; }
-    recorder.onStep(next.value);
+    recorder.onStep(observer.observe(next.value));
     if (options.onProgress && options.onProgress(next.value.t1) === false) {
       return { status: 'cancelled', tS: next.value.t1 };
     }

@@ -5,8 +5,8 @@
  * during the step that ended there (W) and the plate temperature (K; NaN while no heater is under the stack: a plate
  * that has been lifted off is not followed).
  */
-import type { FaceCondition, Problem } from '../physics/problem.ts';
-import type { StepReport } from '../time/evolve.ts';
+import type { StepObservation } from '../physics/observation.ts';
+import type { Problem } from '../physics/problem.ts';
 
 export interface HeaterRecord {
   /** Power (W) and plate temperature (°C; NaN where no heater is under the stack), one per recorded row. */
@@ -23,8 +23,6 @@ export interface HeaterRecord {
 export const hasHeater = (problem: Problem): boolean =>
   [...problem.bottom, ...problem.top].some((s) => s.condition.kind === 'heater');
 
-const sideOf = (step: StepReport, side: 0 | 1): FaceCondition => (side === 0 ? step.cond.bottom : step.cond.top);
-
 export function createHeaterRecorder() {
   const ledger = { heaterJ: 0, plateStoredJ: 0 };
   let attachedS = 0;
@@ -33,27 +31,21 @@ export function createHeaterRecorder() {
   /** The values for the latest row: power W, plate K. */
   const latest = { powerW: 0, plateK: NaN };
 
-  function onStep(step: StepReport): void {
+  function onStep(obs: StepObservation): void {
     latest.powerW = 0;
     latest.plateK = NaN;
+    const dt = obs.t1 - obs.t0;
     for (const side of [0, 1] as const) {
-      const c = sideOf(step, side);
+      const c = (side === 0 ? obs.bottom : obs.top).condition;
       if (c.kind !== 'heater') continue;
-      const node = step.ws.plates[side];
-      if (step.t1 === 0) {
-        // the initial state: the plate as it starts, the power about to be applied
-        latest.powerW += node.powerWPerM2 * c.heater.areaM2;
-        latest.plateK = node.tK;
-      } else {
-        const p = step.plates[side];
-        const dt = step.t1 - step.t0;
-        ledger.heaterJ += p.heaterJ;
-        ledger.plateStoredJ += p.storedJ;
-        attachedS += dt;
-        fullPowerJ += dt * c.heater.powerWPerM2;
-        latest.powerW += p.powerW;
-        latest.plateK = p.plateK;
-      }
+      // on the initial report (dt = 0) the channel holds no heat, the power about to be applied and the starting plate
+      const p = obs.energy.plates[side];
+      ledger.heaterJ += p.heaterJ;
+      ledger.plateStoredJ += p.storedJ;
+      attachedS += dt;
+      fullPowerJ += dt * c.heater.powerWPerM2;
+      latest.powerW += p.powerW;
+      latest.plateK = p.plateK;
       plateMaxK = Math.max(plateMaxK, latest.plateK);
     }
   }

@@ -8,9 +8,9 @@
  * brackets a crossing is the original pair. So the two points around each change of side are held exactly, and the
  * rest is decimated (row-store.ts).
  */
-import type { Grid } from '../grid/mesh.ts';
 import { liquidFractionOf, sensibleCapacity, temperatureOf } from '../physics/material.ts';
-import type { Problem } from '../physics/problem.ts';
+import type { Material } from '../physics/material.ts';
+import type { ObservationLayout, StepObservation } from '../physics/observation.ts';
 import { RowStore } from './row-store.ts';
 
 /** Separator indicators at step ends and stage points, for event times interpolated inside a step. */
@@ -77,44 +77,60 @@ export function createIndicatorStore(budget: number, heldPairs: number): Indicat
 }
 
 export interface TraceRecorder {
-  /** Records the indicators of state U (n+2 layout) at time tS. */
-  add(U: Float64Array, tS: number): void;
+  /** Records the separator's indicators of an observation: at its stage point ('stage') or at its end ('end'). */
+  add(obs: StepObservation, at: 'stage' | 'end'): void;
   finish: IndicatorStore['finish'];
 }
 
-/** A recorder for the separator cells of the grid, or undefined when the stack has no separator. */
-export function createTraceRecorder(problem: Problem, grid: Grid, budget: number, heldPairs: number): TraceRecorder | undefined {
-  const cells: number[] = [];
-  for (let i = 0; i < grid.n; i++) if (problem.layers[grid.layerOf[i]!]!.separator) cells.push(i);
-  if (cells.length === 0) return undefined;
+/** A recorder for the separator samples of the layout, or undefined when the stack has no separator. */
+export function createTraceRecorder(layout: ObservationLayout, budget: number, heldPairs: number): TraceRecorder | undefined {
+  const separators = layout.layers.filter((l) => l.separator && l.widthM.length > 0);
+  if (separators.length === 0) return undefined;
   const store = createIndicatorStore(budget, heldPairs);
-  const hint = new Int32Array(cells.length);
   const scratch = new Float64Array(2);
-  // the margins' unit: the melt's enthalpy span, or a kelvin of sensible heat when the latent heat vanishes (an
-  // isothermal melt with zero latent heat has no span, and a margin divided by it would be infinite)
-  const span = Float64Array.from(cells, (i) => {
-    const mat = grid.materials[i]!;
-    const melt = mat.melt!;
-    return Math.max(melt.hLiquidus - melt.hSolidus, sensibleCapacity(mat, melt.solidusK) * MARGIN_FLOOR_K);
+  // the margins' unit, per separator layer: the melt's enthalpy span, or a kelvin of sensible heat when the latent
+  // heat vanishes (an isothermal melt with zero latent heat has no span, and a margin divided by it would be infinite)
+  const span = separators.map(({ material }) => {
+    const melt = material.melt!;
+    return Math.max(melt.hLiquidus - melt.hSolidus, sensibleCapacity(material, melt.solidusK) * MARGIN_FLOOR_K);
   });
+  // the liquid fraction reads the temperature only inside a melt range of finite width without a lever rule
+  // (material.ts liquidFractionOf): elsewhere T(H) is not computed at all
+  const needsT = separators.map(({ material }) => {
+    const melt = material.melt!;
+    return melt.liquidusK !== melt.solidusK && !melt.lever;
+  });
+  const hint = separators.map((l) => new Int32Array(l.widthM.length));
 
-  function add(U: Float64Array, tS: number): void {
+  /** The liquid fraction of a sample of enthalpy h (the layer's `c`-th separator, its sample j). */
+  const liquidOf = (material: Material, c: number, j: number, h: number): number => {
+    const melt = material.melt!;
+    if (!needsT[c] || h <= melt.hSolidus || h >= melt.hLiquidus) return liquidFractionOf(material, h, NaN);
+    const hints = hint[c]!;
+    hints[j] = temperatureOf(material.enthalpy, h, hints[j]!, scratch);
+    return liquidFractionOf(material, h, scratch[0]!);
+  };
+
+  function add(obs: StepObservation, at: 'stage' | 'end'): void {
     let meltMargin = Infinity;
     let freezeMargin = -Infinity;
     let liquid = 0;
     let width = 0;
-    for (let c = 0; c < cells.length; c++) {
-      const i = cells[c]!;
-      const mat = grid.materials[i]!;
-      const melt = mat.melt!;
-      const h = U[i + 1]!;
-      hint[c] = temperatureOf(mat.enthalpy, h, hint[c]!, scratch);
-      meltMargin = Math.min(meltMargin, (h - melt.hLiquidus) / span[c]!);
-      freezeMargin = Math.max(freezeMargin, (h - melt.hSolidus) / span[c]!);
-      liquid += liquidFractionOf(mat, h, scratch[0]!) * grid.dx[i]!;
-      width += grid.dx[i]!;
+    for (let c = 0; c < separators.length; c++) {
+      const layer = obs.layers[separators[c]!.index]!;
+      const { material, widthM } = layer;
+      const melt = material.melt!;
+      const H = at === 'stage' ? layer.stageEnthalpy : layer.enthalpy;
+      const sp = span[c]!;
+      for (let j = 0; j < H.length; j++) {
+        const h = H[j]!;
+        meltMargin = Math.min(meltMargin, (h - melt.hLiquidus) / sp);
+        freezeMargin = Math.max(freezeMargin, (h - melt.hSolidus) / sp);
+        liquid += liquidOf(material, c, j, h) * widthM[j]!;
+        width += widthM[j]!;
+      }
     }
-    store.add(tS, meltMargin, liquid / width, freezeMargin);
+    store.add(at === 'stage' ? obs.tStage : obs.t1, meltMargin, liquid / width, freezeMargin);
   }
 
   return { add, finish: store.finish };

@@ -5,14 +5,14 @@
  * Memory does not grow with the step count: the series are kept to a budget of rows (row-store.ts), with each layer's
  * peak row and the first and last rows held exactly. With detail 'summary' only what the verdicts read is kept: the
  * peak, first and last rows (no map), the event points and the ledger.
- * The recorder consumes the StepReports of evolve(); it owns no physics beyond reading the state.
+ * The recorder reads only solver-neutral observations (physics/observation.ts: the 1D grid's through
+ * time/observe-step.ts, the lumped network's through lumped/lumped.ts); it owns no physics beyond reading them.
  */
 import ndarray from 'ndarray';
 import type { NdArray } from 'ndarray';
 import { AIR_TABLE_RANGE_K } from '../physics/air.ts';
-import type { StepReport } from '../time/evolve.ts';
 import { liquidFractionOf } from '../physics/material.ts';
-import type { Grid } from '../grid/mesh.ts';
+import type { ObservationLayout, StepObservation } from '../physics/observation.ts';
 import { facingOf, filmTemperature, naturalConvectionRanges, plumeRisesFromFace, rayleigh, rayleighInRange } from '../physics/natural-convection.ts';
 import { characteristicLengthM, type FaceCondition, type Problem } from '../physics/problem.ts';
 import { hasEdgeTerms } from '../physics/heat-terms.ts';
@@ -75,7 +75,7 @@ export interface RunRecord {
   readonly layers: readonly LayerSeries[];
   readonly bottomC: Float64Array;
   readonly topC: Float64Array;
-  /** Node positions, mm: bottom face, cell centres, top face. */
+  /** Node positions, mm: bottom face, the samples' positions (cell centres), top face. */
   readonly nodeXMm: Float64Array;
   /** Node temperatures, °C, shape [rows of tS, nodes]; [0, nodes] with detail 'summary'. */
   readonly map: NdArray<Float64Array>;
@@ -96,16 +96,19 @@ export interface RecorderOptions {
   readonly detail?: RecordDetail;
 }
 
-export function createRecorder(problem: Problem, grid: Grid, options: RecorderOptions = {}) {
-  const { n } = grid;
+/** `layout`: the fixed part of the observations the recorder will be given (e.g. time/observe-step.ts gridLayout). */
+export function createRecorder(problem: Problem, layout: ObservationLayout, options: RecorderOptions = {}) {
+  const n = layout.layers.reduce((a, l) => a + l.widthM.length, 0);
   const nodes = n + 2;
   const detail: RecordDetail = options.detail ?? 'full';
   const full = detail === 'full';
   const nodeX = new Float64Array(nodes);
-  nodeX[0] = 0;
-  for (let i = 0; i < n; i++) nodeX[i + 1] = mToMm(grid.xc[i]!);
-  nodeX[n + 1] = mToMm(grid.totalM);
+  nodeX[0] = mToMm(layout.bottomM);
+  let node = 1;
+  for (const l of layout.layers) for (let j = 0; j < l.positionM.length; j++) nodeX[node++] = mToMm(l.positionM[j]!);
+  nodeX[n + 1] = mToMm(layout.topM);
   const layerCount = problem.layers.length;
+  if (layout.layers.length !== layerCount) throw new Error(`createRecorder: the observation has ${layout.layers.length} layers, the problem ${layerCount}`);
 
   // one row per recorded time: t, bottom face, top face, per layer min/mean/max (and liquid fraction), then the nodes
   const layerAt = new Int32Array(layerCount);
@@ -123,12 +126,15 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
   const peakSlot = new Int32Array(layerCount).fill(-1);
   const maxK = new Float64Array(layerCount);
 
-  const trace = createTraceRecorder(problem, grid, full ? recordDefaults.tracePoints : 0, recordDefaults.heldCrossings);
+  const trace = createTraceRecorder(layout, full ? recordDefaults.tracePoints : 0, recordDefaults.heldCrossings);
+  // probes in both details: a handful of interpolations at the requested times only (a summary keeps them too)
   const probeTimes = [...new Set(problem.outputTimesS)].sort((a, b) => a - b);
   let nextProbe = 0;
   const probeX = problem.probesM.map(mToMm);
   const probeT: number[][] = probeX.map(() => []);
   const probeTimesSeen: number[] = [];
+  /** The node temperatures (K: bottom face, samples, top face), gathered only at a probe time. */
+  const nodeT = new Float64Array(probeTimes.length > 0 ? nodes : 0);
   const energy = { bottomInJ: 0, bottomOutJ: 0, topInJ: 0, topOutJ: 0, sourceJ: 0 };
   const edges = hasEdgeTerms(problem.layers.map((l) => l.terms));
   const edgeEnergy = { edgeInJ: 0, edgeOutJ: 0 };
@@ -140,52 +146,61 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
   };
   const lengthM = characteristicLengthM(problem.footprint);
 
-  const storedOf = (U: Float64Array): number => {
+  /** Stored enthalpy, J/m²: Σ H·width over every sample, bottom to top. */
+  const storedOf = (obs: StepObservation): number => {
     let s = 0;
-    for (let i = 0; i < n; i++) s += U[i + 1]! * grid.dx[i]!;
+    for (const l of obs.layers) {
+      const { enthalpy, widthM } = l;
+      for (let j = 0; j < enthalpy.length; j++) s += enthalpy[j]! * widthM[j]!;
+    }
     return s;
   };
 
-  /** Highest node temperature of each layer, K, into maxK (a layer's faces count as its nodes). */
-  const layerMaxima = (T: Float64Array): void => {
+  /** Highest sample temperature of each layer, K, into maxK (a layer's faces count as its samples). */
+  const layerMaxima = (obs: StepObservation): void => {
     for (let li = 0; li < layerCount; li++) {
+      const T = obs.layers[li]!.temperatureK;
       let hi = -Infinity;
-      for (let i = grid.layerStart[li]!; i < grid.layerEnd[li]!; i++) if (T[i + 1]! > hi) hi = T[i + 1]!;
+      for (let j = 0; j < T.length; j++) if (T[j]! > hi) hi = T[j]!;
       maxK[li] = hi;
     }
-    maxK[0] = Math.max(maxK[0]!, T[0]!);
-    maxK[layerCount - 1] = Math.max(maxK[layerCount - 1]!, T[n + 1]!);
+    maxK[0] = Math.max(maxK[0]!, obs.bottom.temperatureK);
+    maxK[layerCount - 1] = Math.max(maxK[layerCount - 1]!, obs.top.temperatureK);
   };
 
-  /** Writes the row for the state after a step (T in K, U the enthalpies) at time tS. */
-  const fillRow = (row: Float64Array, T: Float64Array, U: Float64Array, tS: number): void => {
-    row[0] = tS;
-    row[1] = kToC(T[0]!);
-    row[2] = kToC(T[n + 1]!);
+  /** Writes the row for the observed state at its end time. */
+  const fillRow = (row: Float64Array, obs: StepObservation): void => {
+    const bottomK = obs.bottom.temperatureK;
+    const topK = obs.top.temperatureK;
+    row[0] = obs.t1;
+    row[1] = kToC(bottomK);
+    row[2] = kToC(topK);
+    let cell = mapAt + 1;
     for (let li = 0; li < layerCount; li++) {
-      const material = grid.materials[grid.layerStart[li]!]!; // the grid's own enthalpy origin
+      const { material, temperatureK: T, enthalpy: U, widthM: dx } = obs.layers[li]!;
       let lo = Infinity;
       let hi = -Infinity;
       let sum = 0;
       let thickness = 0;
       let liquid = 0;
-      for (let i = grid.layerStart[li]!; i < grid.layerEnd[li]!; i++) {
-        const tk = T[i + 1]!;
+      for (let j = 0; j < T.length; j++) {
+        const tk = T[j]!;
         if (tk < lo) lo = tk;
         if (tk > hi) hi = tk;
-        sum += tk * grid.dx[i]!;
-        thickness += grid.dx[i]!;
-        if (material.melt) liquid += liquidFractionOf(material, U[i + 1]!, tk) * grid.dx[i]!;
+        sum += tk * dx[j]!;
+        thickness += dx[j]!;
+        if (material.melt) liquid += liquidFractionOf(material, U[j]!, tk) * dx[j]!;
+        if (full) row[cell++] = kToC(tk);
       }
-      if (li === 0) { lo = Math.min(lo, T[0]!); hi = Math.max(hi, T[0]!); }
-      if (li === layerCount - 1) { lo = Math.min(lo, T[n + 1]!); hi = Math.max(hi, T[n + 1]!); }
+      if (li === 0) { lo = Math.min(lo, bottomK); hi = Math.max(hi, bottomK); }
+      if (li === layerCount - 1) { lo = Math.min(lo, topK); hi = Math.max(hi, topK); }
       const at = layerAt[li]!;
       row[at] = kToC(lo);
       row[at + 1] = kToC(sum / thickness);
       row[at + 2] = kToC(hi);
       if (material.melt) row[at + 3] = liquid / thickness;
     }
-    if (full) for (let j = 0; j < nodes; j++) row[mapAt + j] = kToC(T[j]!);
+    if (full) { row[mapAt] = kToC(bottomK); row[mapAt + nodes - 1] = kToC(topK); }
   };
 
   /** Holds the latest row for every layer whose peak it raises (strictly: the first time of a peak is kept). */
@@ -212,46 +227,54 @@ export function createRecorder(problem: Problem, grid: Grid, options: RecorderOp
     r.filmHighK = Math.max(r.filmHighK, film);
   };
 
-  function onStep(step: StepReport): void {
-    const { ws, buf } = step;
-    const T = ws.T;
-    const first = step.t1 === 0;
+  /** The node temperatures of an observation into nodeT (bottom face, every sample bottom to top, top face). */
+  const gatherNodes = (obs: StepObservation): void => {
+    let j = 0;
+    nodeT[j++] = obs.bottom.temperatureK;
+    for (const l of obs.layers) { nodeT.set(l.temperatureK, j); j += l.temperatureK.length; }
+    nodeT[j] = obs.top.temperatureK;
+  };
+
+  function onStep(obs: StepObservation): void {
+    const first = obs.initial;
     if (first) {
-      storedStart = storedOf(buf.U0);
-      trace?.add(buf.U0, 0);
+      storedStart = storedOf(obs);
+      trace?.add(obs, 'end');
     } else {
-      energy.bottomInJ += Math.max(step.bottomJ, 0);
-      energy.bottomOutJ += Math.max(-step.bottomJ, 0);
-      energy.topInJ += Math.max(step.topJ, 0);
-      energy.topOutJ += Math.max(-step.topJ, 0);
-      energy.sourceJ += step.sourceJ;
-      edgeEnergy.edgeInJ += Math.max(step.edgeJ, 0);
-      edgeEnergy.edgeOutJ += Math.max(-step.edgeJ, 0);
-      trace?.add(buf.Ug, step.tg);
-      trace?.add(buf.U1, step.t1);
+      const e = obs.energy;
+      energy.bottomInJ += Math.max(e.bottomJ, 0);
+      energy.bottomOutJ += Math.max(-e.bottomJ, 0);
+      energy.topInJ += Math.max(e.topJ, 0);
+      energy.topOutJ += Math.max(-e.topJ, 0);
+      energy.sourceJ += e.generatedJ;
+      edgeEnergy.edgeInJ += Math.max(e.edgesJ, 0);
+      edgeEnergy.edgeOutJ += Math.max(-e.edgesJ, 0);
+      trace?.add(obs, 'stage');
+      trace?.add(obs, 'end');
     }
-    heater?.onStep(step);
-    storedEnd = storedOf(buf.U1);
+    heater?.onStep(obs);
+    storedEnd = storedOf(obs);
     // a summary keeps only the first, the last and each layer's peak row: find out cheaply whether this is one
-    let wanted = full || first || step.t1 >= problem.durationS;
+    let wanted = full || first || obs.t1 >= problem.durationS;
     if (!wanted) {
-      layerMaxima(T);
+      layerMaxima(obs);
       for (let li = 0; li < layerCount && !wanted; li++) if (kToC(maxK[li]!) > peakC[li]!) wanted = true;
     }
     if (wanted) {
       const row = rows.row;
-      fillRow(row, T, buf.U1, step.t1);
+      fillRow(row, obs);
       if (heater) { row[heaterAt] = heater.latest.powerW; row[heaterAt + 1] = kToC(heater.latest.plateK); }
       rows.commit();
       if (first) rows.hold('latest');
       holdPeaks(row);
     }
-    watchRayleigh('bottom', step.cond.bottom, T[0]!);
-    watchRayleigh('top', step.cond.top, T[n + 1]!);
-    while (nextProbe < probeTimes.length && probeTimes[nextProbe]! < step.t1) nextProbe++;
-    if (nextProbe < probeTimes.length && probeTimes[nextProbe] === step.t1) {
-      probeTimesSeen.push(step.t1);
-      probeX.forEach((x, p) => probeT[p]!.push(interpolateProfile(nodeX, T, x)));
+    watchRayleigh('bottom', obs.bottom.condition, obs.bottom.temperatureK);
+    watchRayleigh('top', obs.top.condition, obs.top.temperatureK);
+    while (nextProbe < probeTimes.length && probeTimes[nextProbe]! < obs.t1) nextProbe++;
+    if (nextProbe < probeTimes.length && probeTimes[nextProbe] === obs.t1) {
+      probeTimesSeen.push(obs.t1);
+      gatherNodes(obs);
+      probeX.forEach((x, p) => probeT[p]!.push(interpolateProfile(nodeX, nodeT, x)));
       nextProbe++;
     }
   }

@@ -3,7 +3,6 @@
  * additions (warnings, solver statistics, per-layer limit lists). Every number is finite: a NaN or infinity here is
  * an internal error, reported as such rather than written as null.
  */
-import type { EvolveStats } from '../time/evolve.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
 import type { RunRecord } from './record.ts';
@@ -39,7 +38,10 @@ export interface ResultDocument {
   readonly coefficients: readonly Coefficient[];
 }
 
-export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, summary: Summary, stats: EvolveStats): ResultDocument {
+/** The solver's counters the document prints (time/evolve.ts EvolveStats has them; observe/ does not import time/). */
+export interface SolverCounts { readonly steps: number; readonly rejected: number; readonly newtonIterations: number }
+
+export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, summary: Summary, stats: SolverCounts): ResultDocument {
   // keyed by layer id with own properties (Object.fromEntries), so any id, "__proto__" included, is kept
   const layers = Object.fromEntries(record.layers.map((l, li) => [l.id, {
     min_C: Array.from(l.minC), mean_C: Array.from(l.meanC), max_C: Array.from(l.maxC),

@@ -22,6 +22,7 @@ describe('the import direction between sim/ folders', () => {
     ['sim/time/probe.ts', "import { createRecorder } from '../observe/record.ts';", 'sim/time/ may import only'],
     ['sim/lumped/probe.ts', "import { evolve } from '../time/evolve.ts';", 'sim/lumped/ may import only sim/physics/'],
     ['sim/observe/probe.ts', "import { parseScenario } from '../scenario/scenario.ts';", 'sim/observe/ may import only'],
+    ['sim/observe/probe.ts', "import type { StepReport } from '../time/evolve.ts';", 'sim/observe/ may import only sim/grid/, sim/physics/'],
     ['sim/grid/probe.ts', "import { runProblem } from '../run.ts';", 'must not import the top of sim/'],
     ['sim/time/tr-bdf2.ts', "import { solveTridiagonal } from '../grid/tridiagonal.ts';", 'the integrator sees a system only through grid/stage-system.ts'],
     ['sim/time/drive.ts', "import { evaluate } from '../grid/discretization.ts';", 'the integrator sees a system only through grid/stage-system.ts'],
@@ -36,7 +37,9 @@ describe('the import direction between sim/ folders', () => {
   it.each([
     ['sim/grid/probe.ts', "import { buildMaterial } from '../physics/material.ts';"],
     ['sim/time/tr-bdf2.ts', "import type { StageSystem } from '../grid/stage-system.ts';"],
-    ['sim/observe/probe.ts', "import { evolve } from '../time/evolve.ts';"],
+    ['sim/observe/probe.ts', "import type { StepObservation } from '../physics/observation.ts';"],
+    ['sim/time/probe.ts', "import type { StepObservation } from '../physics/observation.ts';"],
+    ['sim/lumped/probe.ts', "import type { StepObservation } from '../physics/observation.ts';"],
     ['sim/scenario/probe.ts', "import { formatTime } from '../observe/format.ts';"],
     ['sim/study/probe.ts', "import { runProblem } from '../run.ts';"],
     ['ui/probe.ts', "import { runProblem } from '../sim/index.ts';"],
