@@ -14,6 +14,7 @@ import { withMeltRamp } from './physics/melt-ramp.ts';
 import type { Problem } from './physics/problem.ts';
 import type { RecordDetail, RunRecord } from './observe/record.ts';
 import { createRecorder } from './observe/record.ts';
+import { lumpedLayout, observeLumped } from './lumped/lumped.ts';
 import type { Summary } from './observe/verdict.ts';
 import { summarize } from './observe/verdict.ts';
 
@@ -60,4 +61,23 @@ export function runProblem(asWritten: Problem, options: RunOptions = {}): RunOut
   if (end.status === 'failed') return end;
   const record = recorder.finish();
   return { status: 'ok', problem, grid, record, summary: summarize(problem, record), stats: end.stats };
+}
+
+export type LumpedOutcome =
+  | { readonly status: 'ok'; readonly record: RunRecord; readonly summary: Summary }
+  | { readonly status: 'failed'; readonly message: string };
+
+/**
+ * The lumped network (lumped/lumped.ts: one node per layer) summarised by the same recorder and verdicts as the grid:
+ * its observations feed createRecorder unchanged. A quick estimate and an independent check; the problem as written
+ * (no melt ramp: the network's event times are not held to an accuracy plan). Throws for a heater or bench face or
+ * cell terms, which the network does not model.
+ */
+export function runLumpedProblem(problem: Problem, options: { readonly detail?: RecordDetail } = {}): LumpedOutcome {
+  const recorder = createRecorder(problem, lumpedLayout(problem), { detail: options.detail ?? 'full' });
+  if (observeLumped(problem, recorder.onStep) !== 'ok') {
+    return { status: 'failed', message: 'the lumped network did not converge (odex gave up within its step budget)' };
+  }
+  const record = recorder.finish();
+  return { status: 'ok', record, summary: summarize(problem, record) };
 }
