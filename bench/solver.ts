@@ -18,7 +18,6 @@ import type { Problem } from '../sim/physics/problem.ts';
 import { runProblem, solvedProblem } from '../sim/run.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
-import { accuracyDefaults } from '../sim/scenario/accuracy.ts';
 import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
 import { runPeer } from './peer-bdf.ts';
 
@@ -33,20 +32,28 @@ function parse(file: unknown): Problem {
   return parsed.problem;
 }
 
-/** The demo with `total` cells shared by thickness and tolerances × `tolScale`; `rampK` > 0 smooths the melt kinks. */
+/** Cells of the scaling rows' base grid: each row refines it by an exact factor (the accuracy plan's grid factor). */
+const SCALING_BASE = SCALING_CELLS[0]!;
+
+/**
+ * The demo with `total` cells (SCALING_BASE shared by thickness, times total / SCALING_BASE), tolerances × `tolScale`;
+ * `rampK` > 0 smooths the melt kinks. The refinement goes through the plan's grid factor, as an accuracy plan refines,
+ * so the liquid-fraction error is measured per base cell at every row (the molten-thickness allowance stays the same
+ * length while the cells shrink): the rows hold the time accuracy fixed and vary only the grid.
+ */
 function demoProblem(total: number, tolScale: number, rampK: number): Problem {
   const file = structuredClone(scenario) as unknown as ScenarioFile;
   const thickness = file.layers.reduce((a, l) => a + l.thickness_mm, 0);
-  let left = total;
+  let left = SCALING_BASE;
   file.layers.forEach((l, i) => {
-    const share = i === file.layers.length - 1 ? left : Math.max(1, Math.round((total * l.thickness_mm) / thickness));
+    const share = i === file.layers.length - 1 ? left : Math.max(1, Math.round((SCALING_BASE * l.thickness_mm) / thickness));
     (l as { cells?: number }).cells = share;
     left -= share;
   });
   (file as { numerics?: object }).numerics = { tolerance_K: 0.2 * tolScale, liquid_fraction_tolerance: 4e-3 * tolScale };
   const p = parse(file);
-  // the file gives grid and tolerances, so its plan keeps the curve as written; the ramp is set here for the comparison
-  return { ...p, numerics: { ...p.numerics, accuracy: { ...p.numerics.accuracy!, meltRampK: rampK } } };
+  // the file gives grid and tolerances, so its plan keeps the curve as written; grid factor and ramp are set here
+  return { ...p, numerics: { ...p.numerics, accuracy: { ...p.numerics.accuracy!, gridRefine: total / SCALING_BASE, meltRampK: rampK } } };
 }
 
 const t0 = performance.now();
@@ -93,40 +100,55 @@ const ownScenario = {
   bottom: [{ from_s: 0, plate: { temperature_C: 450, conductance_W_m2K: 800 } }, { from_s: 240, convection_W_m2K: 'natural', emissivity: 0.4 }],
   top: [{ from_s: 0, convection_W_m2K: 'natural', emissivity: 0.3 }],
 };
-const atAccuracy = (a: number) => parse({ ...ownScenario, numerics: { event_accuracy_s: a } });
 const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
-const accuracies = QUICK ? [1, 0.1] : [1, 0.1, 0.01];
-// the reference: two levels beyond the finest row asked (cells × 4, tolerances ÷ 9), or the finest level there is
-const finest = atAccuracy(accuracies[accuracies.length - 1]!).numerics.accuracy!;
-const coarsest = atAccuracy(accuracies[0]!).numerics.accuracy!;
-const levelOne = coarsest.expectedErrorS * 2 ** coarsest.level; // the modelled error at level 0
-// the finest level that finishes within the solver's step budget (step-guards.ts) is the reference; levels at or
-// above it have no finer reference and say so below
-let refLevel = Math.min(finest.level + 2, accuracyDefaults.maxLevel);
-let ref = runProblem(atAccuracy(levelOne / 2 ** refLevel), { detail: 'summary' });
-while (ref.status !== 'ok' && refLevel > coarsest.level + 1) {
-  console.log(`  (reference at level ${refLevel} did not finish: ${ref.status === 'failed' ? ref.message : ref.status}; trying level ${refLevel - 1})`);
-  refLevel--;
-  ref = runProblem(atAccuracy(levelOne / 2 ** refLevel), { detail: 'summary' });
+const asked = QUICK ? [1, 0.1] : [1, 0.1, 0.01];
+// each accuracy's plan, or the rule's refusal (an accuracy beyond the cell limit or the work budget is refused at
+// validation, and the row says so)
+const plans = asked.map((a) => {
+  const parsed = parseScenario({ ...ownScenario, numerics: { event_accuracy_s: a } });
+  return { a, problem: parsed.ok ? parsed.problem : undefined, refusal: parsed.ok ? '' : parsed.errors.map((e) => `${e.path}: ${e.message}`).join('; ') };
+});
+const accepted = plans.filter((p) => p.problem !== undefined);
+// the reference: the finest row's plan two grid levels and two tolerance levels further (cells × 4, tolerances ÷ 9,
+// ramp ÷ 4), built from the plan as tests/convergence/event-accuracy.test.ts builds its own; when it exceeds the
+// solver's work budget, one level of each beyond, then the next coarser row's; rows at or beyond it have no reference
+const finer = (p: Problem, steps: number): Problem => {
+  const a = p.numerics.accuracy!;
+  return { ...p, numerics: { ...p.numerics, toleranceK: p.numerics.toleranceK / 3 ** steps, liquidFractionTolerance: p.numerics.liquidFractionTolerance / 3 ** steps,
+    accuracy: { ...a, level: a.level + steps, gridRefine: a.gridRefine * 2 ** steps, toleranceDivisor: a.toleranceDivisor * 3 ** steps, meltRampK: (a.meltRampK || 0.1) / 2 ** steps } } };
+};
+let refProblem: Problem | undefined;
+let found: ReturnType<typeof runProblem> | undefined;
+search: for (let row = accepted.length - 1; row >= 0; row--) {
+  for (const steps of [2, 1]) {
+    refProblem = finer(accepted[row]!.problem!, steps);
+    found = runProblem(refProblem, { detail: 'summary' });
+    if (found.status === 'ok') break search;
+    console.log(`  (reference ${steps} levels beyond the ${accepted[row]!.a} s row did not finish: ${found.status === 'failed' ? found.message : found.status})`);
+  }
 }
-if (ref.status !== 'ok') throw new Error(`no reference run finished down to level ${refLevel}`);
+if (found?.status !== 'ok' || refProblem === undefined) throw new Error('no reference run finished');
+const ref = found;
+const refLevel = refProblem.numerics.accuracy!.level;
+const refDivisor = refProblem.numerics.accuracy!.toleranceDivisor;
 const refTimes = EVENTS.map((e) => ref.summary.separator[e]);
 const heatOffS = ref.summary.heat_off_s ?? ownScenario.duration_s;
 console.log('');
-console.log(`  accuracy asked in seconds — ${ownScenario.name}; reference: ${ref.grid.n} cells, level ${ref.problem.numerics.accuracy!.level}: molten ${refTimes[0]?.toFixed(3)} s, half-frozen ${refTimes[1]?.toFixed(3)} s, frozen ${refTimes[2]?.toFixed(3)} s`);
-console.log('  asked s   freezeline: cells level   ms   error s   | peer BDF: tol K     ms   error s   steps | ratio');
+console.log(`  accuracy asked in seconds — ${ownScenario.name}; reference: ${ref.grid.n} cells, tolerances ÷${refDivisor}: molten ${refTimes[0]?.toFixed(3)} s, half-frozen ${refTimes[1]?.toFixed(3)} s, frozen ${refTimes[2]?.toFixed(3)} s`);
+console.log('  asked s   freezeline: cells  tol ÷     ms   error s   | peer BDF: tol K     ms   error s   steps | ratio');
 const worst = (times: readonly (number | null)[]) => Math.max(...times.map((t, i) => (t === null || refTimes[i] === null ? Infinity : Math.abs(t - refTimes[i]!))));
 const timeIt = (f: () => void, runs: number) => {
   const out: number[] = [];
   for (let i = 0; i < runs; i++) { const s = performance.now(); f(); out.push(performance.now() - s); }
   return out.sort((a, b) => a - b)[out.length >> 1]!;
 };
-for (const a of accuracies) {
-  const problem = atAccuracy(a);
+for (const { a, problem, refusal } of plans) {
+  if (problem === undefined) { console.log(`  ${String(a).padStart(7)}   refused at validation: ${refusal}`); continue; }
   const solved = solvedProblem(problem);
   const own = runProblem(problem, { detail: 'summary' });
   if (own.status !== 'ok') { console.log(`  ${a}: freezeline run ${own.status}`); continue; }
-  if (problem.numerics.accuracy!.level >= refLevel) { console.log(`  ${String(a).padStart(7)}   level ${problem.numerics.accuracy!.level}: no finer reference within accuracyDefaults.maxLevel`); continue; }
+  const plan = problem.numerics.accuracy!;
+  if (plan.level >= refLevel && plan.toleranceDivisor >= refDivisor) { console.log(`  ${String(a).padStart(7)}   ${own.grid.n} cells, tolerances ÷${plan.toleranceDivisor}: no finer reference finished within the work budget`); continue; }
   const ownErr = worst(EVENTS.map((e) => own.summary.separator[e]));
   const grid = buildGrid(solved, solved.numerics.accuracy!.gridRefine);
   // the peer's cheapest tolerance reaching the accuracy asked on the same grid
@@ -147,6 +169,6 @@ for (const a of accuracies) {
     if (Number.isFinite(peerTol)) peerMs = timeIt(() => runPeer(solved, grid, peerTol, heatOffS), runs);
   }
   const peerCell = Number.isFinite(peerTol) ? `${String(peerTol).padStart(6)} ${peerMs.toFixed(1).padStart(8)}   ${peerErr.toFixed(4).padStart(7)}   ${String(peerSteps).padStart(5)}` : '  none of its tolerances reached it       ';
-  console.log(`  ${String(a).padStart(7)}   ${String(own.grid.n).padStart(16)} ${String(problem.numerics.accuracy!.level).padStart(5)} ${ownMs.toFixed(1).padStart(6)}   ${ownErr.toFixed(4).padStart(7)}   | ${peerCell} | ${Number.isFinite(peerMs) ? `${(peerMs / ownMs).toFixed(2)}×` : '—'}`);
+  console.log(`  ${String(a).padStart(7)}   ${String(own.grid.n).padStart(16)} ${String(plan.toleranceDivisor).padStart(6)} ${ownMs.toFixed(1).padStart(6)}   ${ownErr.toFixed(4).padStart(7)}   | ${peerCell} | ${Number.isFinite(peerMs) ? `${(peerMs / ownMs).toFixed(2)}×` : '—'}`);
 }
 console.log(JSON.stringify({ first_solve_ms: firstMs, median_ms: base.median_ms, runs: base.runs, cells: base.cells, steps: base.steps, newton_iterations: base.newton_iterations, cell_updates_per_s: base.cell_updates_per_s }));

@@ -9,7 +9,8 @@
  * - the linear accept (acceptUpdate): F, T, the face heats and the cell-term channels move by the update's own
  *   linearisation, so the stage equations hold exactly and the energy ledger closes to round-off;
  * - the error measure: each cell's enthalpy error in what a run reports, its temperature (through the secant dT/dH over
- *   the step, zero on an isothermal plateau) and, for a cell in or across its melt, its liquid fraction (error / ρL).
+ *   the step, zero on an isothermal plateau) and, for the cells in or across their melt, a layer's molten thickness
+ *   (Σ Δx·error/ρL, against the liquid-fraction tolerance × the layer's level-0 cell width).
  * The heater plates and bench chains are eliminated per stage through the `beforeStage` hook (time/plates.ts).
  */
 import type { StepConditions, Workspace } from './discretization.ts';
@@ -22,8 +23,10 @@ import { solveTridiagonal } from './tridiagonal.ts';
 export interface ErrorScale {
   /** Temperature error allowed per step, K. */
   readonly toleranceK: number;
-  /** Liquid-fraction error allowed per step (a share of the latent heat). */
+  /** Liquid-fraction error allowed per step (a share of the latent heat) of a level-0 cell: see LineSystem.errorNorm. */
   readonly liquidFraction: number;
+  /** Cells per level-0 cell: the accuracy plan's grid factor (scenario/accuracy.ts), 1 without a plan. */
+  readonly gridRefine: number;
 }
 
 /** Sets the eliminated bodies' stage constants before a stage (time/plates.ts beginPlateStage has this shape). */
@@ -44,6 +47,9 @@ export class LineSystem implements StageSystem {
   /** The cells' part of the integrator's B (a view, made once for the buffer it is given). */
   private bOf: Float64Array | undefined;
   private bCells: Float64Array;
+  /** Per layer: the molten-thickness error of the step being measured, m, and its allowance's length, m. */
+  private readonly frontError: Float64Array;
+  private readonly levelZeroWidth: Float64Array;
 
   constructor(readonly ws: Workspace, readonly scale: ErrorScale, private readonly beforeStage: BeforeStage,
     cond: StepConditions) {
@@ -52,6 +58,16 @@ export class LineSystem implements StageSystem {
     this.T0 = new Float64Array(this.size);
     this.work = new Float64Array(this.size);
     this.bCells = new Float64Array(0);
+    const { grid } = ws;
+    const layers = grid.layerStart.length;
+    this.frontError = new Float64Array(layers);
+    this.levelZeroWidth = new Float64Array(layers);
+    for (let l = 0; l < layers; l++) {
+      let thick = 0;
+      for (let i = grid.layerStart[l]!; i < grid.layerEnd[l]!; i++) thick += grid.dx[i]!;
+      // the mean width of the layer's cells before the plan refined them
+      this.levelZeroWidth[l] = (thick * scale.gridRefine) / Math.max(1, grid.layerEnd[l]! - grid.layerStart[l]!);
+    }
   }
 
   evaluate(U: Float64Array): void {
@@ -158,14 +174,25 @@ export class LineSystem implements StageSystem {
 
   /**
    * The error of each cell's enthalpy (z) as what it does to the reported quantities: its temperature (through the
-   * secant dT/dH over the step, which is zero while a cell sits on an isothermal plateau) and, for a cell in or across
-   * its melt, its liquid fraction (error / ρL, or the temperature measure if that allows more). So a cell crossing a
-   * kink of T(H) is judged by its real effect, not by the kink. Reads ws.T as the end state's temperatures.
+   * secant dT/dH over the step, which is zero while a cell sits on an isothermal plateau), and, for the cells in or
+   * across their melt, the molten thickness of their layer: Σ Δx·z/ρL over those cells (each z/ρL is measured against
+   * the larger of tol_f and the temperature allowance ρc_p·tol_K/ρL, so it fades into the temperature measure as the
+   * latent heat → 0), against tol_f × the width of the layer's level-0 cell. So a cell crossing a kink of T(H) is judged
+   * by its real effect, not by the kink; and, because the front's error is summed over the layer rather than taken at
+   * each cell, the many cells a melt front crosses on a fine grid (and the several that share a smoothed melt,
+   * physics/melt-ramp.ts) do not each reject steps: at a fixed accuracy plan the cost grows with the cells, not faster
+   * (issue 8; bench/solver.ts). What this gives up: on a refined grid one cell's liquid fraction may be off by up to
+   * tol_f × the refinement within a step, so the time the last cell melts or freezes is held to the level-0 front
+   * position, tol_f × Δx₀, and no longer tightens with the grid by itself; the accuracy plan divides the tolerances
+   * for that (scenario/accuracy.ts). Reads ws.T as the end state's temperatures.
    */
   errorNorm(U0: Float64Array, U1: Float64Array, z: Float64Array): number {
     const ws = this.ws;
     const { n, grid } = ws;
+    const dx = grid.dx;
     const scale = this.scale;
+    const front = this.frontError;
+    front.fill(0);
     let worst = 0;
     const T1 = ws.T;
     const T0 = this.T0;
@@ -173,19 +200,22 @@ export class LineSystem implements StageSystem {
       const e0 = Math.abs(z[i + 1]!);
       const dH = Math.abs(U1[i + 1]! - U0[i + 1]!);
       const secant = dH > ws.capacity[i]! * KINK_NUDGE_K ? Math.abs(T1[i + 1]! - T0[i + 1]!) / dH : ws.tau[i + 1]!;
-      let e = (e0 * secant) / scale.toleranceK;
+      const e = (e0 * secant) / scale.toleranceK;
       const latent = ws.latent[i]!;
       if (latent > 0) {
-        // the liquid-fraction error counts only for a cell in or across its melt over the step, and is measured
-        // against the larger of the two allowances, so it fades into the temperature measure as the latent heat → 0
-        // (a latent heat of 1e-6 J/kg must cost what no melt costs)
+        // the liquid-fraction error counts only for a cell in or across its melt over the step
         const melt = grid.materials[i]!.melt!;
         const a = U0[i + 1]!;
         const b = U1[i + 1]!;
         if (Math.min(a, b) <= melt.hLiquidus + e0 && Math.max(a, b) >= melt.hSolidus - e0) {
-          e = Math.max(e, e0 / Math.max(scale.liquidFraction * latent, scale.toleranceK * ws.capacity[i]!));
+          const li = grid.layerOf[i]!;
+          front[li] = front[li]! + (dx[i]! * e0) / Math.max(scale.liquidFraction * latent, scale.toleranceK * ws.capacity[i]!);
         }
       }
+      if (!(e <= worst)) worst = e;
+    }
+    for (let l = 0; l < front.length; l++) {
+      const e = front[l]! / this.levelZeroWidth[l]!;
       if (!(e <= worst)) worst = e;
     }
     return worst;

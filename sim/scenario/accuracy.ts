@@ -3,15 +3,19 @@
  *
  * The verdict times (molten, half-frozen, frozen) carry a spatial error, first order in Δx (the enthalpy method
  * resolves a front to a cell: a cell turns fully liquid or solid as the front leaves it), and a time error that
- * the step tolerances set. A refinement level ℓ halves the cells' width (grid × 2^ℓ) and divides both tolerances by
- * 3^ℓ (the global error of TR-BDF2 with local error control falls about as tol^(2/3), so ÷3 halves it too): each level
- * about halves the event-time error. The error at level 0 (the defaults) is modelled as a share of the run's
- * duration, which stands for the time scales of its events; the share is calibrated by refinement on examples/
- * (DEVELOPERS.md, "Accuracy"). The level is the smallest that brings the modelled error within the accuracy asked.
- * It is a rule, not a run-time check: no second run estimates the error of this one (the tests check the rule by
+ * the step tolerances set. The two are pursued separately. A grid level ℓ halves the cells' width (grid × 2^ℓ) and
+ * about halves the grid's part; a tolerance level k divides both tolerances by 3^k, and each division by 3 about halves
+ * the time part (the global error of TR-BDF2 with local error control falls about as tol^(2/3)). The liquid-fraction
+ * error of a step is measured per level-0 cell (the error norm, in the grid's stage system, reads the plan's grid
+ * factor), so refining the grid does not by itself tighten the time control, nor cost more steps per cell. Each part
+ * at level 0 is modelled as a share of the run's duration, which stands for the time scales of its events; the shares
+ * are calibrated by refinement on examples/ (DEVELOPERS.md, "Accuracy"). The plan is the pair (ℓ, k) of least modelled
+ * work (cells × steps) whose modelled error is within the accuracy asked, within the cell limit and the solver's work
+ * budget; an accuracy no pair reaches is refused at validation with the limit that binds and the accuracy that can be
+ * had. It is a rule, not a run-time check: no second run estimates the error of this one (the tests check the rule by
  * refinement on the examples and on a seeded scan).
  *
- * Levels above 0 also smooth the melt's kinks (physics/melt-ramp.ts) over ±δ, δ shrinking with the accuracy asked, so
+ * Plans above level (0, 0) also smooth the melt's kinks (physics/melt-ramp.ts) over ±δ, δ shrinking with the accuracy asked, so
  * the ramp's own model error stays a small share of it; level 0 keeps the curve exactly as written (the defaults'
  * verified behaviour is unchanged). Expert keys win: tolerances given in the file are used as given (not divided),
  * a grid given in the file (cells_per_mm, min_cells_per_layer, separator_cells_per_mm, min_separator_cells, or any
@@ -29,31 +33,49 @@ export type { AccuracyPlan };
 export const accuracyDefaults = {
   /**
    * Floor of the default of numerics.event_accuracy_s, s. Without the key a run keeps the default grid and tolerances
-   * (as before the key existed) and states their modelled accuracy, max(0.5 s, errorShareAtDefaults × duration):
-   * 2 s for a one-hour run. Asking for 0.5 s of a one-hour run costs two levels (cells × 4, tolerances ÷ 9).
+   * (as before the key existed) and states their modelled accuracy, max(0.5 s, (spaceShare + timeShare) × duration).
    */
   eventAccuracyS: 0.5,
   /** Smallest accuracy one may ask, s: below it the grid a one-hour run needs passes the cell limit anyway. */
   minEventAccuracyS: 1e-3,
   /**
-   * Modelled event-time error at level 0 as a share of the duration (1/s · s), from the event-time changes of the
-   * examples between level 0 and level 2 (tests/convergence/event-accuracy.test.ts): largest 1.08 s of 2400 s
-   * (sleeved-square-cell, molten), 1.38 s of 5400 s (insulated-pellet-stack, frozen), 0.74 s of 3600 s (cold-morning,
-   * molten), i.e. ≤ 4.5e-4 of the duration; 5.5e-4 leaves a 20 % margin. The first-order molten and frozen times
-   * ("every cell") bind; half-frozen (a mean) is 5–10× better.
+   * Modelled event-time error at level 0 as a share of the duration (1/s · s), in two parts: the grid's (halved by
+   * each doubling of the cells) and the step tolerances' (halved by each division by 3). Calibrated by refinement on
+   * examples/ and the benchmark's scenario: runs at (cells ×1, ×2, ×4; tolerances ÷1) and (×1; ÷3) against a reference
+   * at cells ×8, tolerances ÷9, melt ramp ±0.025 K. The constraints that bind, as S/2^ℓ + T/2^k ≥ measured error: sleeved-square-cell
+   * (2400 s) molten 1.56 s at (×1, ÷3), so S ≥ 1.4 s; cold-morning (3600 s) molten 1.44 s at (×4, ÷1) and 1.25 s at
+   * (×1, ÷3), so T ≳ 0.9 s given S; insulated-pellet-stack (5400 s) frozen 1.67 s at level 0. Shares 6.25e-4 and 2.5e-4
+   * meet every measured error; with a 20 % margin, 7.5e-4 and 3e-4. The event times converge erratically (the last cell
+   * to melt or freeze decides them), so this is a rule checked by tests/convergence/event-accuracy.test.ts, not an
+   * error estimate of the run.
    */
-  errorShareAtDefaults: 5.5e-4,
-  /** Grid factor and tolerance divisor per level (see above). */
+  spaceShareAtDefaults: 7.5e-4,
+  timeShareAtDefaults: 3e-4,
+  /** Grid factor per grid level, tolerance divisor per tolerance level (see above). */
   gridPerLevel: 2,
   tolerancePerLevel: 3,
-  /** Highest level: grid × 64; beyond it the cell limit (scenarioLimitDefaults.maxCells) binds first anyway. */
+  /** Highest grid level: grid × 64; beyond it the cell limit (scenarioLimitDefaults.maxCells) binds first anyway. */
   maxLevel: 6,
+  /** Highest tolerance level: tolerances ÷ 729. */
+  maxToleranceLevel: 6,
   /**
    * Half-width of the melt ramp at the default accuracy, K, scaled down in proportion to a finer accuracy asked
    * (0.02 K at 0.1 s). Measured at 0.1 K on the demo, 1600 cells: event times move ≤ 0.04 s (molten), 0.004 s
    * (half-frozen), 0.001 s (frozen) against no ramp, and the Newton work falls by half.
    */
   meltRampK: 0.1,
+  /**
+   * The work model that keeps a plan within the solver's budget. The budget, cells × steps (accepted and rejected), is
+   * stepGuardDefaults.maxCellSteps (time/step-guards.ts, which scenario/ may not import; a unit test holds the two
+   * equal). Steps tried (accepted and rejected) by a level-0 run: at most 1257 on examples/ (heater-plate-lift-off;
+   * the others 291–1116), 1500 with a margin. Per level, from the same calibration runs: ×0.9–1.4 per doubling of the
+   * cells and ×1.2–1.4 per division of the tolerances by 3, and ×6.4–7.5 for three grid levels and two tolerance levels
+   * with the ramp ÷4 (the ramp narrows with the accuracy, and a narrower ramp costs steps); 1.5 and 1.5 cover that.
+   */
+  workBudgetCellSteps: 5e7,
+  trialsAtDefaults: 1500,
+  trialsPerGridLevel: 1.5,
+  trialsPerToleranceLevel: 1.5,
 } as const;
 
 /** What a file's numerics ask for, and which low-level keys it gave itself. */
@@ -68,44 +90,100 @@ export interface AccuracyAsk {
   readonly maxCells: number;
 }
 
+/** Modelled event-time error, s, at grid level `level` and tolerance level `tolLevel`. */
+function modelledErrorS(durationS: number, level: number, tolLevel: number): number {
+  const d = accuracyDefaults;
+  return (d.spaceShareAtDefaults * durationS) / d.gridPerLevel ** level + (d.timeShareAtDefaults * durationS) / 2 ** tolLevel;
+}
+
+/** Modelled work of a level, cells × steps (accepted and rejected). */
+function modelledWork(baseCells: number, level: number, tolLevel: number): number {
+  const d = accuracyDefaults;
+  return baseCells * d.gridPerLevel ** level * d.trialsAtDefaults * d.trialsPerGridLevel ** level * d.trialsPerToleranceLevel ** tolLevel;
+}
+
 /**
- * The smallest level whose modelled event-time error is within the accuracy asked, and its settings; or, for an
- * accuracy asked that no level within maxLevel and the cell limit reaches, the reason (for numerics.event_accuracy_s).
- * Without an accuracy asked the default is the defaults' own: 0.5 s, or the modelled error at level 0 when that is
- * larger (runs longer than about an hour), so a file without the key runs exactly as before.
+ * The cheapest grid and tolerance levels whose modelled event-time error is within the accuracy asked, within the
+ * cell limit and the solver's work budget, and their settings; or, for an accuracy no such pair reaches, the reason
+ * (for numerics.event_accuracy_s), naming the limit that binds. The grid error and the time error are pursued
+ * separately: a level refines the grid, a tolerance level divides the tolerances, and the plan takes only what the
+ * accuracy needs of each (the cheapest in modelled work). Without an accuracy asked the default is the defaults'
+ * own: 0.5 s, or the modelled error at level 0 when that is larger, so a file without the key runs as before.
  */
 export function accuracyPlan(ask: AccuracyAsk): AccuracyPlan | { readonly error: string } {
   const d = accuracyDefaults;
-  const atDefaults = d.errorShareAtDefaults * ask.durationS;
+  const D = ask.durationS;
+  const atDefaults = modelledErrorS(D, 0, 0);
   const asked = ask.eventAccuracyS ?? Math.max(d.eventAccuracyS, atDefaults);
   const free = ask.eventAccuracyS !== undefined && !(ask.ownGrid && ask.ownTolerances);
-  let level = 0;
-  while (free && atDefaults / 2 ** level > asked) level++;
-  const fits = (l: number) => ask.ownGrid || ask.baseCells * d.gridPerLevel ** l <= ask.maxCells;
-  if (level > d.maxLevel || !fits(level)) {
-    return {
-      error: `needs about ${(d.gridPerLevel ** level).toFixed(0)}× the default cells (modelled error ${atDefaults.toPrecision(2)} s at the defaults, ` +
-        `halved per doubling), beyond ${level > d.maxLevel ? `the finest level (${d.gridPerLevel ** d.maxLevel}×)` : `the limit of ${ask.maxCells} cells`}: ` +
-        `ask for ${(atDefaults / 2 ** Math.min(d.maxLevel, maxFittingLevel(fits))).toPrecision(2)} s or more, or set the grid and tolerances yourself, got ${asked}`,
-    };
-  }
-  const ramp = level === 0 ? 0 : d.meltRampK * Math.min(1, asked / d.eventAccuracyS);
+  const best = free ? cheapestLevels(ask, asked) : { level: 0, tolLevel: 0 };
+  if ('error' in best) return best;
+  const { level, tolLevel } = best;
+  const ramp = level === 0 && tolLevel === 0 ? 0 : d.meltRampK * Math.min(1, asked / d.eventAccuracyS);
   return {
     eventAccuracyS: asked,
     level,
     gridRefine: ask.ownGrid ? 1 : d.gridPerLevel ** level,
-    toleranceDivisor: ask.ownTolerances ? 1 : d.tolerancePerLevel ** level,
+    toleranceDivisor: ask.ownTolerances ? 1 : d.tolerancePerLevel ** tolLevel,
     meltRampK: ask.ownTolerances ? 0 : ramp,
-    expectedErrorS: atDefaults / 2 ** level,
+    expectedErrorS: modelledErrorS(D, level, tolLevel),
     ownGrid: ask.ownGrid,
     ownTolerances: ask.ownTolerances,
   };
 }
 
-function maxFittingLevel(fits: (level: number) => boolean): number {
-  let l = 0;
-  while (l < accuracyDefaults.maxLevel && fits(l + 1)) l++;
-  return l;
+/**
+ * The cheapest (grid level, tolerance level) in modelled work whose modelled error is within `asked`, the cell limit
+ * and the work budget. A file's own grid (tolerances) fixes that level at 0: when the other part alone cannot bring
+ * the error within the ask, the plan takes the level that brings its own part within half the ask (or the finest
+ * that fits) and states the modelled error it reaches, which is then above the ask.
+ */
+function cheapestLevels(ask: AccuracyAsk, asked: number): { level: number; tolLevel: number } | { readonly error: string } {
+  const d = accuracyDefaults;
+  const D = ask.durationS;
+  const levels = ask.ownGrid ? 0 : d.maxLevel;
+  const tolLevels = ask.ownTolerances ? 0 : d.maxToleranceLevel;
+  const cellsFit = (l: number) => ask.ownGrid || ask.baseCells * d.gridPerLevel ** l <= ask.maxCells;
+  const workFits = (l: number, k: number) => modelledWork(ask.baseCells, l, k) <= d.workBudgetCellSteps;
+  let best: { level: number; tolLevel: number; work: number } | undefined;
+  let reachable = Infinity; // the finest modelled error within both limits, for the message
+  let cellsBind = false;
+  let workBinds = false;
+  for (let l = 0; l <= levels; l++) {
+    for (let k = 0; k <= tolLevels; k++) {
+      const err = modelledErrorS(D, l, k);
+      const fits = cellsFit(l) && workFits(l, k);
+      if (fits) reachable = Math.min(reachable, err);
+      if (err > asked) continue;
+      if (!cellsFit(l)) { cellsBind = true; continue; }
+      if (!workFits(l, k)) { workBinds = true; continue; }
+      const work = modelledWork(ask.baseCells, l, k);
+      if (best === undefined || work < best.work) best = { level: l, tolLevel: k, work };
+    }
+  }
+  if (best !== undefined) return best;
+  if (ask.ownGrid || ask.ownTolerances) {
+    // only one part is ours to pursue: bring it within half the ask, or as far as the limits allow
+    let l = 0;
+    let k = 0;
+    if (!ask.ownGrid) while (l < d.maxLevel && cellsFit(l + 1) && workFits(l + 1, 0) && (d.spaceShareAtDefaults * D) / d.gridPerLevel ** l > asked / 2) l++;
+    if (!ask.ownTolerances) while (k < d.maxToleranceLevel && workFits(0, k + 1) && (d.timeShareAtDefaults * D) / 2 ** k > asked / 2) k++;
+    return { level: l, tolLevel: k };
+  }
+  const limit = cellsBind ? `the limit of ${ask.maxCells} cells`
+    : workBinds ? `the solver's work budget of ${d.workBudgetCellSteps.toExponential(0)} cells × steps (as modelled)`
+    : `the finest levels (cells ×${d.gridPerLevel ** d.maxLevel}, tolerances ÷${d.tolerancePerLevel ** d.maxToleranceLevel})`;
+  return {
+    error: `no grid and tolerances within ${limit} reach it (modelled error ${modelledErrorS(D, 0, 0).toPrecision(2)} s at the defaults: ` +
+      `${(d.spaceShareAtDefaults * D).toPrecision(2)} s from the grid, halved per doubling of the cells, and ${(d.timeShareAtDefaults * D).toPrecision(2)} s ` +
+      `from the step tolerances, halved per division by ${d.tolerancePerLevel}): ask for ${twoFiguresUp(reachable)} s or more, or set the grid and tolerances yourself, got ${asked}`,
+  };
+}
+
+/** x rounded up to two significant figures (an accuracy that is then surely reachable). */
+function twoFiguresUp(x: number): number {
+  const unit = 10 ** (Math.floor(Math.log10(x)) - 1);
+  return Number((Math.ceil(x / unit - 1e-9) * unit).toPrecision(2));
 }
 
 /**
@@ -139,7 +217,7 @@ export function accuracyLine(plan: AccuracyPlan | undefined): string {
   const asked = `event times to ${Number(plan.eventAccuracyS.toPrecision(3))} s`;
   const expected = `modelled error about ${Number(plan.expectedErrorS.toPrecision(2))} s`;
   if (plan.ownGrid && plan.ownTolerances) return `accuracy: grid and tolerances as set in the file (${asked} not pursued)`;
-  if (plan.level === 0) {
+  if (plan.gridRefine === 1 && plan.toleranceDivisor === 1) {
     const what = plan.ownGrid ? 'grid as given, default tolerances' : plan.ownTolerances ? 'default grid, tolerances as given' : 'default grid and tolerances';
     return `accuracy: ${asked}, ${what} (${expected})`;
   }

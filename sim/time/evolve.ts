@@ -138,7 +138,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
   const ws = createWorkspace(grid, { facing: facingOf('bottom'), lengthM }, { facing: facingOf('top'), lengthM }, problem.layers.map((l) => l.terms));
-  const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance };
+  const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: numerics.accuracy?.gridRefine ?? 1 };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
   const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0, events: 0, eventTrials: 0 };
   const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
