@@ -4,10 +4,11 @@
  * verdicts' inputs and the view read only this (observe/record.ts); the 1D grid's time loop fills it from its own
  * buffers (time/observe-step.ts), and the lumped network fills one per accepted step of its own (lumped/lumped.ts).
  *
- * Types only, in SI. Why here: physics/ is the one folder that every producer (grid/, time/, lumped/, a 2D grid to
- * come) and every reader (observe/) may import under the layering (eslint.config.js), and the observation names no
- * solver concept (no node layout, no stage buffers, no workspace): only layers, faces, materials and heat, which are
- * physics/'s own words. A folder of its own would need a layering rule for one file of types.
+ * Types in SI, and NO_PLATE (the empty plate channel of a producer without heaters). Why here: physics/ is the one
+ * folder that every producer (grid/, time/, lumped/, a 2D grid to come) and every reader (observe/) may import under
+ * the layering (eslint.config.js), and the observation names no solver concept (no node layout, no stage buffers, no
+ * workspace): only layers, faces, materials and heat, which are physics/'s own words. A folder of its own would need a
+ * layering rule for one file of types.
  *
  * A producer owns the arrays and may overwrite them at its next step: a reader copies what it keeps.
  */
