@@ -18,7 +18,8 @@ import { faceHeatIn } from '../physics/faces.ts';
 import type { PlateNode } from '../physics/heater.ts';
 import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
-import { sensibleCapacity, temperatureOf } from '../physics/material.ts';
+import { curveSlopes, temperaturesOf } from '../physics/material.ts';
+import { evalTable } from '../physics/table.ts';
 import { halfCellConductivity, splitsConductivity } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
@@ -66,6 +67,9 @@ export interface Workspace {
   /** Sensible capacity ρc_p per cell at the start of the step, J·m⁻³·K⁻¹ (n): the error scale. */
   readonly capacity: Float64Array;
   readonly segmentHint: Int32Array;
+  /** Each layer's enthalpy curve and its curveSlopes(), by layer index: T(H) runs layer by layer (temperaturesOf). */
+  readonly layerCurves: readonly EnthalpyCurve[];
+  readonly layerSlopes: readonly Float64Array[];
   /** Latent heat per volume ρ·L per cell, J/m³ (0 where the material does not melt): the liquid-fraction error scale. */
   readonly latent: Float64Array;
   /**
@@ -102,6 +106,8 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
   const n = grid.n;
   const m = n + 2;
   const cellTerms = Array.from(grid.layerOf, (li) => termsByLayer[li] ?? NO_TERMS);
+  // a layer's cells share its material (mesh.ts), so its curve is its first cell's
+  const layerCurves = Array.from(grid.layerStart, (first) => grid.materials[first]!.enthalpy);
   return {
     grid, n,
     curves: grid.materials.map((mat) => mat.enthalpy),
@@ -109,6 +115,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     T: new Float64Array(m), tau: new Float64Array(m), G: new Float64Array(n + 1), dRa: new Float64Array(n + 1), dRb: new Float64Array(n + 1),
     F: new Float64Array(n),
     capacity: new Float64Array(n), segmentHint: new Int32Array(n),
+    layerCurves, layerSlopes: layerCurves.map(curveSlopes),
     latent: Float64Array.from(grid.materials, (mat) => (mat.melt ? mat.density * mat.melt.latentJPerKg : 0)),
     faceQ: new Float64Array(CHANNEL_COUNT), faceDq: new Float64Array(2), plates: [createPlateNode(NaN), createPlateNode(NaN)],
     benches: [createBenchNode(), createBenchNode()],
@@ -126,16 +133,14 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
  * ws.scratch2, ws.termScratch, ws.termState.
  */
 export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): void {
-  const { n, T, tau, G, F, curves, segmentHint, scratch2, grid, dRa, dRb } = ws;
+  const { n, T, tau, G, F, segmentHint, scratch2, grid, dRa, dRb, layerCurves, layerSlopes } = ws;
   const dx = grid.dx;
   T[0] = U[0]!;
   tau[0] = 1;
   T[n + 1] = U[n + 1]!;
   tau[n + 1] = 1;
-  for (let i = 0; i < n; i++) {
-    segmentHint[i] = temperatureOf(curves[i]!, U[i + 1]!, segmentHint[i]!, scratch2);
-    T[i + 1] = scratch2[0]!;
-    tau[i + 1] = scratch2[1]!;
+  for (let l = 0; l < layerCurves.length; l++) {
+    temperaturesOf(layerCurves[l]!, layerSlopes[l]!, U, grid.layerStart[l]!, grid.layerEnd[l]!, segmentHint, T, tau);
   }
   // half-cell resistances Δx/(2k̄), k̄ the Kirchhoff mean toward each neighbour (kirchhoff.ts), then series sums on
   // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above)
@@ -172,7 +177,29 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   G[n] = 1 / halfBelow;
   dRa[n] = belowOwn;
   dRb[n] = belowNb;
-  const { cellTerms, generatedDs, edgeDs, termScratch, termState } = ws;
+  if (!ws.hasTerms) {
+    // no cell has a term: the schedule's source alone (generatedDs and edgeDs stay 0)
+    const source = cond.source;
+    let generated = 0;
+    for (let i = 0; i < n; i++) {
+      const j = i + 1;
+      const s = source[i]! * dx[i]!;
+      generated += s;
+      F[i] = G[j - 1]! * (T[j - 1]! - T[j]!) - G[j]! * (T[j]! - T[j + 1]!) + s;
+    }
+    ws.faceQ[CHANNEL.generated] = generated;
+    ws.faceQ[CHANNEL.edge] = 0;
+  } else {
+    evaluateCellTerms(ws, cond);
+  }
+  evaluateFace(ws, cond.bottom, 0, 0);
+  evaluateFace(ws, cond.top, 1, n + 1);
+}
+
+/** The net rates F of evaluate() with each cell's terms and their slopes. Overwrites ws.F, ws.generatedDs, ws.edgeDs. */
+function evaluateCellTerms(ws: Workspace, cond: StepConditions): void {
+  const { n, T, G, F, cellTerms, generatedDs, edgeDs, termScratch, termState } = ws;
+  const dx = ws.grid.dx;
   let generated = 0;
   let edge = 0;
   for (let i = 0; i < n; i++) {
@@ -196,13 +223,19 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   }
   ws.faceQ[CHANNEL.generated] = generated;
   ws.faceQ[CHANNEL.edge] = edge;
-  evaluateFace(ws, cond.bottom, 0, 0);
-  evaluateFace(ws, cond.top, 1, n + 1);
 }
 
 /** Sets ws.capacity (ρc_p per cell at the temperatures in ws.T), the scale of errors and Newton updates. */
 export function updateCapacity(ws: Workspace): void {
-  for (let i = 0; i < ws.n; i++) ws.capacity[i] = sensibleCapacity(ws.grid.materials[i]!, ws.T[i + 1]!);
+  const { grid, capacity, T } = ws;
+  // layer by layer (a layer's cells share its material): ρ·c_p(T) as sensibleCapacity() computes it
+  for (let l = 0; l < grid.layerStart.length; l++) {
+    const first = grid.layerStart[l]!;
+    const material = grid.materials[first]!;
+    const table = material.specificHeat;
+    const rho = material.density;
+    for (let i = first; i < grid.layerEnd[l]!; i++) capacity[i] = rho * evalTable(table, T[i + 1]!);
+  }
 }
 
 function evaluateFace(ws: Workspace, c: FaceCondition, side: 0 | 1, node: number): void {
@@ -251,22 +284,25 @@ export function stageResidual(ws: Workspace, U: Float64Array, B: Float64Array, h
  */
 export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): void {
   const { n, G, tau, lower, diag, upper, grid, T, dRa, dRb, generatedDs, edgeDs } = ws;
-  let aPrev = 0;
-  let bPrev = 0;
-  for (let j = 0; j <= n; j++) {
+  const dx = grid.dx;
+  // face 0 (bottom node to cell 1) gives the bottom face's row
+  const g0 = G[0]!;
+  const g2dT0 = g0 * g0 * (T[0]! - T[1]!);
+  let aPrev = g0 * tau[0]! - g2dT0 * dRa[0]!;
+  let bPrev = -g0 * tau[1]! - g2dT0 * dRb[0]!;
+  if (cond.bottom.kind === 'fixed') { diag[0] = 1; upper[0] = 0; }
+  else { diag[0] = h * (aPrev - ws.faceDq[0]!); upper[0] = h * bPrev; }
+  // cell row j: Δx·(U_j − B) − h·(Q_{j−1} − Q_j); its own terms add −h·Δx·(∂s/∂T)·τ (none: the loop without them)
+  const terms = ws.hasTerms;
+  for (let j = 1; j <= n; j++) {
     const g = G[j]!;
     const g2dT = g * g * (T[j]! - T[j + 1]!);
     const a = g * tau[j]! - g2dT * dRa[j]!;
     const b = -g * tau[j + 1]! - g2dT * dRb[j]!;
-    if (j === 0) {
-      if (cond.bottom.kind === 'fixed') { diag[0] = 1; upper[0] = 0; }
-      else { diag[0] = h * (a - ws.faceDq[0]!); upper[0] = h * b; }
-    } else {
-      // cell row j: Δx·(U_j − B) − h·(Q_{j−1} − Q_j)
-      lower[j] = -h * aPrev;
-      diag[j] = grid.dx[j - 1]! - h * (bPrev - a + grid.dx[j - 1]! * (generatedDs[j - 1]! + edgeDs[j - 1]!) * tau[j]!);
-      upper[j] = h * b;
-    }
+    const w = dx[j - 1]!;
+    lower[j] = -h * aPrev;
+    diag[j] = terms ? w - h * (bPrev - a + w * (generatedDs[j - 1]! + edgeDs[j - 1]!) * tau[j]!) : w - h * (bPrev - a);
+    upper[j] = h * b;
     aPrev = a;
     bPrev = b;
   }

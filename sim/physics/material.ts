@@ -305,6 +305,70 @@ export function temperatureOf(curve: EnthalpyCurve, hJ: number, hint: number, ou
   return i;
 }
 
+/**
+ * Each segment's capacity slope (cRight − cLeft)/width of an enthalpy curve, J·m⁻³·K⁻² (0 on an isothermal jump): the
+ * division temperatureOf() does per call, done once per curve for temperaturesOf().
+ */
+export function curveSlopes(curve: EnthalpyCurve): Float64Array {
+  const { tK: xs, cLeft, cRight } = curve;
+  const slopes = new Float64Array(Math.max(0, xs.length - 1));
+  for (let i = 0; i + 1 < xs.length; i++) {
+    const width = xs[i + 1]! - xs[i]!;
+    slopes[i] = width === 0 ? 0 : (cRight[i]! - cLeft[i]!) / width;
+  }
+  return slopes;
+}
+
+/**
+ * temperatureOf() for the cells from ≤ i < to that share one curve, in one loop with the curve's arrays held: T[i + 1]
+ * and tau[i + 1] (dT/dH) from U[i + 1], hint[i] the segment where cell i's search starts and ends. `slopes` is
+ * curveSlopes(curve). The arithmetic is temperatureOf()'s, operation for operation, so the results are the same to the
+ * bit. Overwrites T[from + 1 .. to], tau[from + 1 .. to], hint[from .. to − 1]. Allocates nothing.
+ */
+export function temperaturesOf(curve: EnthalpyCurve, slopes: Float64Array, U: Float64Array, from: number, to: number,
+  hint: Int32Array, T: Float64Array, tau: Float64Array): void {
+  const { tK: xs, h, cLeft } = curve;
+  const last = xs.length - 1;
+  const hFirst = h[0]!;
+  const hLast = h[last]!;
+  for (let c = from; c < to; c++) {
+    const j = c + 1;
+    const hJ = U[j]!;
+    if (hJ <= hFirst) {
+      const cl = cLeft[0]!;
+      T[j] = xs[0]! + (hJ - hFirst) / cl;
+      tau[j] = 1 / cl;
+      hint[c] = -1;
+      continue;
+    }
+    if (hJ >= hLast) {
+      const cr = curve.cRight[last - 1]!;
+      T[j] = xs[last]! + (hJ - hLast) / cr;
+      tau[j] = 1 / cr;
+      hint[c] = last;
+      continue;
+    }
+    const start = hint[c]!;
+    let i = start < 0 ? 0 : start >= last ? last - 1 : start;
+    while (i > 0 && hJ < h[i]!) i--;
+    while (i + 1 < last && hJ >= h[i + 1]!) i++;
+    hint[c] = i;
+    const x0 = xs[i]!;
+    if (xs[i + 1]! === x0) {
+      T[j] = x0;
+      tau[j] = 0;
+      continue;
+    }
+    const cl = cLeft[i]!;
+    const slope = slopes[i]!;
+    const dh = hJ - h[i]!;
+    const root = Math.sqrt(Math.max(cl * cl + 2 * slope * dh, 0));
+    const d = (2 * dh) / (cl + root);
+    T[j] = x0 + d;
+    tau[j] = 1 / (cl + slope * d);
+  }
+}
+
 const leverScratch = new Float64Array(2);
 
 /** Liquid fraction in [0, 1] from H (J/m³) and its T (K): linear in T over the mushy range, linear in H on a jump. */
