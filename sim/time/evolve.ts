@@ -44,6 +44,8 @@ export const evolveDefaults = {
    */
   newtonShare: 1e-2,
   maxNewtonIterations: 12,
+  /** Extra Newton iterations at the smallest step, per cell: two melt kinks a cell may stop at, one iteration each. */
+  floorIterationsPerCell: 2,
   /** Newton failure: cut the step by this factor. */
   newtonCut: 0.25,
   /** A step that would end within this share of a breakpoint is stretched onto it. */
@@ -105,7 +107,7 @@ export interface EvolveStats {
   steps: number;
   rejected: number;
   newtonIterations: number;
-  /** Steps accepted at the smallest step (step-guards.ts) although the error estimate asked for less. */
+  /** Steps taken at the smallest step (step-guards.ts), by backward Euler and accepted without an error estimate. */
   forced: number;
   /** State events landed on, and the trial steps it took to locate them. */
   events: number;
@@ -140,6 +142,10 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const ws = createWorkspace(grid, { facing: facingOf('bottom'), lengthM }, { facing: facingOf('top'), lengthM }, problem.layers.map((l) => l.terms));
   const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: numerics.accuracy?.gridRefine ?? 1 };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
+  // a floored step must not fail for want of iterations: each cell crossing a melt kink costs one (its update stops
+  // there), and a face held far below a thin melting layer's plateau freezes many cells within one floored step
+  // (fuzz: 15 cells of a 5 µm separator under a face switched to 463 °C, 3e-9 s steps, 12 iterations not enough)
+  const newtonAtFloor: NewtonSettings = { ...newton, maxIterations: d.maxNewtonIterations + d.floorIterationsPerCell * grid.n };
   const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0, events: 0, eventTrials: 0 };
   const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
   const stepping: Stepping = options.stepping ?? { kind: 'adaptive' };
@@ -151,7 +157,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const plates = createPlateControl(problem, grid, ws);
   const watch = createEventWatch([...plates.switches, ...(options.switches ?? [])]);
   const plateSteps = plates.steps;
-  const weights = backwardEuler ? [0, 0, 1] as const : WEIGHTS;
+  const eulerWeights = [0, 0, 1] as const;
   /** The conditions at tS: the schedules, then each caller's switch's adjustment; the plates follow them. */
   const readConditions = (tS: number, before: StepConditions | undefined): StepConditions => {
     let c = conditionsAt(problem, grid, tS, source);
@@ -214,8 +220,12 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
     // (a floored step stretched by rounding to land on a breakpoint is still at the floor)
     const atFloor = floored || (adaptive && step <= floor);
+    // a step at the floor is taken by backward Euler, L-stable and monotone for an M-matrix (Patankar 1980 §4.3):
+    // TR-BDF2's stability function dips below 0 for large hλ, and a floored step, accepted whatever its error, then
+    // overshot (a 1 µm layer under a face switched from 273 °C to −60 °C reached −102 °C: fuzz seed 9 case 179)
+    const euler = backwardEuler || atFloor;
     line.cond = cond;
-    takeStep(line, buf, step, newton, backwardEuler, outcome);
+    takeStep(line, buf, step, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
     if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {
       // an iterate below 0 K on a long step may still come back; on the smallest step it is the physics
@@ -233,7 +243,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       h = retryStepS(step, outcome, d);
       continue;
     }
-    if (atFloor && outcome.errorNorm > 1) stats.forced++;
+    if (atFloor) stats.forced++;
     plates.afterTrial();
     const armed = watch.armed();
     const gEnd = armed < 0 ? watch.highest(ws, t + step) : -Infinity;
@@ -242,7 +252,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
       const from = t;
       const trial = (s: number): number | undefined => {
-        takeStep(line, buf, s, newton, backwardEuler, outcome);
+        takeStep(line, buf, s, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
         stats.newtonIterations += outcome.newtonIterations;
         stats.eventTrials++;
         if (outcome.status !== 'ok') return undefined;
@@ -264,19 +274,19 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q1, at), tS: at, stats };
     }
     stats.steps++;
-    plates.commit(step, weights, buf.qg, buf.q1, buf.Ug, buf.U1, plateSteps);
+    plates.commit(step, euler ? eulerWeights : WEIGHTS, buf.qg, buf.q1, buf.Ug, buf.U1, plateSteps);
     // on a heater face what leaves the body (stack + plate) is the plate's loss; its heat into the face is internal
     const faceJ = (side: 0 | 1): number => ((side === 0 ? cond.bottom : cond.top).kind === 'heater'
-      ? -plateSteps[side].lossJ : stepFaceEnergy(buf, side, step, backwardEuler));
+      ? -plateSteps[side].lossJ : stepFaceEnergy(buf, side, step, euler));
     yield {
-      t0: t, tg: t + (backwardEuler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
+      t0: t, tg: t + (euler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
       bottomJ: faceJ(0),
       topJ: faceJ(1),
       plates: plateSteps,
       switched,
       // heat generated and heat through the edges by the stages' own quadrature (exact also for s(T): tr-bdf2.ts)
-      sourceJ: stepFaceEnergy(buf, CHANNEL.generated, step, backwardEuler),
-      edgeJ: stepFaceEnergy(buf, CHANNEL.edge, step, backwardEuler),
+      sourceJ: stepFaceEnergy(buf, CHANNEL.generated, step, euler),
+      edgeJ: stepFaceEnergy(buf, CHANNEL.edge, step, euler),
     };
     // accept: the end state becomes the start of the next step
     buf.U0.set(buf.U1);

@@ -6,8 +6,10 @@
  * G₋ and G₊ relaxes with the time constant τ = C·Δx/(G₋ + G₊) (the cell's own eigenvalue of the semi-discrete heat
  * equation, Patankar 1980 §4.3). A step far below the smallest τ resolves nothing the grid can show: the error
  * estimate there is measuring the start-up transient of a thin cell after an abrupt change (a held face switched on),
- * which TR-BDF2 damps anyway (L-stable). So at a small share of it the step is taken and accepted whatever the error
- * estimate says (a forced step, counted in the run's statistics).
+ * which TR-BDF2 damps anyway (L-stable). So at a small share of it the step is taken by backward Euler and accepted
+ * without an error estimate (a forced step, counted in the run's statistics): backward Euler is L-stable and, on the
+ * M-matrix of the stage, monotone, while TR-BDF2's stability function is negative for large hλ (Hosea & Shampine 1996,
+ * §2), so a step accepted whatever its error could overshoot a held face's jump (evolve.ts).
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
 import { faceHeatIn } from '../physics/faces.ts';
