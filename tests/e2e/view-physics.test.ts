@@ -103,13 +103,13 @@ describe('the view and the newer physics', () => {
 
   it('the event-time accuracy field shows the core\'s default for the run\'s duration, and the line beside the verdict states what a run asked for', async () => {
     const page = await freshPage();
-    // README "Accuracy in seconds": without the key a run states max(0.5 s, 5.5e-4 × duration); the demo runs 3600 s → 1.98 s
-    expect(await page.$eval('[data-testid="event-accuracy-s"]', (e) => (e as HTMLInputElement).placeholder)).toBe('default 1.98');
-    expect(await text(page, 'verdict-accuracy')).toMatch(/^Accuracy: event times to 1\.98 s, default grid and tolerances/);
-    // 0.5 s of an hour: two levels, cells × 4 and tolerances ÷ 9 (README: "0.5 s of an hour: 4× the cells")
+    // README "Accuracy in seconds": without the key a run states max(0.5 s, (7.5e-4 + 3e-4) × duration); the demo runs 3600 s → 3.78 s
+    expect(await page.$eval('[data-testid="event-accuracy-s"]', (e) => (e as HTMLInputElement).placeholder)).toBe('default 3.78');
+    expect(await text(page, 'verdict-accuracy')).toMatch(/^Accuracy: event times to 3\.78 s, default grid and tolerances/);
+    // 0.5 s of an hour: grid level 3 and tolerance level 3, cells × 8 and tolerances ÷ 27 (README: "0.5 s of an hour: 8× the cells and tolerances ÷ 27")
     await edit(page, 'event-accuracy-s', '0.5');
     expect((await saved(page)).numerics).toEqual({ event_accuracy_s: 0.5 });
-    expect(await text(page, 'verdict-accuracy')).toMatch(/^Accuracy: event times to 0\.5 s, cells ×4, tolerances ÷9/);
+    expect(await text(page, 'verdict-accuracy')).toMatch(/^Accuracy: event times to 0\.5 s, cells ×8, tolerances ÷27/);
     // below the smallest accuracy one may ask (1e-3 s) the core refuses, named beside the field
     await page.fill('[data-testid="event-accuracy-s"]', '0.0001');
     await statusIs(page, 'error');
@@ -117,7 +117,7 @@ describe('the view and the newer physics', () => {
     // clearing the field removes the key and the run is back at the default
     await edit(page, 'event-accuracy-s', '');
     expect((await saved(page)).numerics).toBeUndefined();
-    expect(await text(page, 'verdict-accuracy')).toMatch(/event times to 1\.98 s/);
+    expect(await text(page, 'verdict-accuracy')).toMatch(/event times to 3\.78 s/);
     await page.context().close();
   });
 });
