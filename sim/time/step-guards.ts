@@ -21,8 +21,13 @@ export const stepGuardDefaults = {
    * tolerance on every transient the grid resolves (from there the step grows ×3 a step back to the cell's own time).
    */
   floorShare: 1e-3,
-  /** …and never below this share of the time reached, so that t + h differs from t in double precision (ε ≈ 2e-16). */
-  floorRelative: 1e-12,
+  /**
+   * …and never below this share of the time reached, so that t + h differs from t in double precision (ε ≈ 2.2e-16:
+   * 45 ulps; the step the integrator takes is exact, t drifts by at most half an ulp per floored step). 1e-12 was
+   * 4500 ulps and, after a held face switched at t = 1e6 s, a floor of 1e-6 s, far above a thin cell's relaxation time:
+   * a whole melting layer crossed its melt in one floored step and Newton failed (fuzz seed 11 cases 1615, 1492).
+   */
+  floorRelative: 1e-14,
   /**
    * Work budget, cells × steps (accepted and rejected): about half a minute at the measured 4–8 M cell-updates/s with
    * 4–8 Newton sweeps a step. A run needing more ends with a message saying what to change.
