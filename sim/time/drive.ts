@@ -8,7 +8,7 @@ import type { StageSystem, StepBuffers } from '../grid/stage-system.ts';
 import { evolveDefaults } from './evolve.ts';
 import { growthFactor, retryStepS } from './step-control.ts';
 import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
-import { stepFaceEnergy, takeStep } from './tr-bdf2.ts';
+import { acceptStep, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
 
 export interface DriveOptions {
   /** End of the run, s (the run starts at 0). */
@@ -76,10 +76,7 @@ export function drive(sys: StageSystem, buf: StepBuffers, options: DriveOptions,
       for (let k = 0; k < sys.channels; k++) channelJ[k] = stepFaceEnergy(buf, k, step, backwardEuler);
       onStep(t, t1, channelJ);
     }
-    buf.U0.set(buf.U1);
-    buf.F0.set(buf.F1);
-    buf.q0.set(buf.q1);
-    sys.markStart();
+    acceptStep(sys, buf);
     if (adaptive) {
       h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
       rejectedLast = false;

@@ -18,7 +18,7 @@ import type { Problem } from '../physics/problem.ts';
 import { facingOf } from '../physics/natural-convection.ts';
 import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
 import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
-import { STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
+import { acceptStep, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
 import type { StateSwitch } from './events.ts';
 import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
@@ -289,10 +289,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       edgeJ: stepFaceEnergy(buf, CHANNEL.edge, step, euler),
     };
     // accept: the end state becomes the start of the next step
-    buf.U0.set(buf.U1);
-    buf.F0.set(buf.F1);
-    buf.q0.set(buf.q1);
-    line.markStart();
+    acceptStep(line, buf);
     if (adaptive) {
       // a step shortened to land on a breakpoint says nothing about the next one: grow from the controller's own h
       // (step-control.ts: no growth right after a rejection)

@@ -142,6 +142,14 @@ export function takeStep(sys: StageSystem, buf: StepBuffers, h: number, newton: 
  * Energy per unit area (J/m²) that a ledger channel (a face, the cells' generation, their edges) took in over a step
  * of size h, by the method's own quadrature: the same weights that advance the enthalpies, so the ledger closes.
  */
+/** Accepts a step: its end state and rates become the start of the next one, and the system marks that start. */
+export function acceptStep(sys: StageSystem, buf: StepBuffers): void {
+  buf.U0.set(buf.U1);
+  buf.F0.set(buf.F1);
+  buf.q0.set(buf.q1);
+  sys.markStart();
+}
+
 export function stepFaceEnergy(buf: StepBuffers, channel: number, h: number, backwardEuler: boolean): number {
   if (backwardEuler) return h * buf.q1[channel]!;
   return h * (WEIGHTS[0] * buf.q0[channel]! + WEIGHTS[1] * buf.qg[channel]! + WEIGHTS[2] * buf.q1[channel]!);
