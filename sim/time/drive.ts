@@ -27,9 +27,10 @@ export interface DriveStats {
   newtonIterations: number;
 }
 
-export type DriveEnd =
-  | { readonly status: 'ok'; readonly stats: DriveStats }
-  | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: DriveStats };
+/** How a time loop ended (this one, and evolve() with its larger stats). */
+export type DriveEnd<S extends DriveStats = DriveStats> =
+  | { readonly status: 'ok'; readonly stats: S }
+  | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: S };
 
 /**
  * Integrates sys from the state in buf.U0 at t = 0 to options.endS, landing on the end. After each accepted step

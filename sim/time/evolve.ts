@@ -17,6 +17,7 @@ import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
 import { facingOf } from '../physics/natural-convection.ts';
 import { breakpoints, characteristicLengthM, conditionAt, sourceAt } from '../physics/problem.ts';
+import type { DriveEnd, DriveStats } from './drive.ts';
 import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
 import { acceptStep, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
 import type { StateSwitch } from './events.ts';
@@ -103,10 +104,7 @@ export interface StepReport {
   readonly switched: boolean;
 }
 
-export interface EvolveStats {
-  steps: number;
-  rejected: number;
-  newtonIterations: number;
+export interface EvolveStats extends DriveStats {
   /** Steps taken at the smallest step (step-guards.ts), by backward Euler and accepted without an error estimate. */
   forced: number;
   /** State events landed on, and the trial steps it took to locate them. */
@@ -114,9 +112,7 @@ export interface EvolveStats {
   eventTrials: number;
 }
 
-export type EvolveEnd =
-  | { readonly status: 'ok'; readonly stats: EvolveStats }
-  | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: EvolveStats };
+export type EvolveEnd = DriveEnd<EvolveStats>;
 
 function conditionsAt(problem: Problem, grid: Grid, tS: number, source: Float64Array): StepConditions {
   for (let i = 0; i < grid.n; i++) source[i] = sourceAt(problem.layers[grid.layerOf[i]!]!, tS);
