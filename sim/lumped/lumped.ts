@@ -37,7 +37,7 @@ export interface LumpedTrace {
   readonly outcome: 'ok' | 'failed';
 }
 
-/** Integrates the lumped network over the whole run, reporting at every accepted odex step. */
+/** Integrates the lumped network over the whole run, reporting at every accepted odex step. Refuses, by throwing, cell terms, heater and bench faces. */
 export function runLumped(problem: Problem): LumpedTrace {
   const layers = problem.layers;
   const trace: LumpedTrace = { tS: [], tK: [], separatorLiquid: [], outcome: 'ok' };
@@ -74,9 +74,6 @@ export function lumpedLayout(problem: Problem): ObservationLayout {
  * temperature, any other at its layer's node (Biot ≪ 1). Refuses, by throwing, what the network does not model.
  */
 export function observeLumped(problem: Problem, onStep: (obs: StepObservation) => void): 'ok' | 'failed' {
-  if (problem.layers.some((l) => (l.terms?.length ?? 0) > 0)) {
-    throw new Error('observeLumped: the lumped network has no cell terms (side-wall losses, temperature-dependent sources); run the grid solver (runProblem)');
-  }
   const layout = lumpedLayout(problem);
   const n = problem.layers.length;
   const samples: Writable<LayerSamples>[] = layout.layers.map((l) => {
@@ -121,6 +118,9 @@ export function observeLumped(problem: Problem, onStep: (obs: StepObservation) =
  */
 function integrate(problem: Problem, channels: boolean,
   report: (t: number, state: readonly number[], temps: Float64Array, bottom: FaceCondition, top: FaceCondition) => void): 'ok' | 'failed' {
+  if (problem.layers.some((l) => (l.terms?.length ?? 0) > 0)) {
+    throw new Error('the lumped network (runLumped, observeLumped) has no cell terms (side-wall losses, temperature-dependent sources); run the grid solver (runProblem)');
+  }
   const layers = problem.layers;
   const n = layers.length;
   const lengthM = characteristicLengthM(problem.footprint);

@@ -50,8 +50,10 @@ describe('runLumpedProblem() on the bench coupon', () => {
     assertClose(full.summary.separator.half_frozen_at_s! - heatOff, grid.summary.separator.half_frozen_at_s! - heatOff, { rel: 0.15 }, 'time from heat-off to half-frozen, s');
   });
 
-  it('refuses what the network does not model, naming it: a heater face, side-wall terms', () => {
+  it('refuses what the network does not model, naming it, through either entry: a heater face, side-wall terms', () => {
     expect(() => runLumpedProblem(example('heater-plate-lift-off.json'))).toThrow(/heater/);
     expect(() => runLumpedProblem(example('sleeved-square-cell.json'))).toThrow(/cell terms/);
+    // runLumped() alone once returned a trace that left the side-wall terms out, silently.
+    expect(() => runLumped(example('sleeved-square-cell.json'))).toThrow(/cell terms/);
   });
 });
