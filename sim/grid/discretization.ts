@@ -18,9 +18,9 @@ import { faceHeatIn } from '../physics/faces.ts';
 import type { PlateNode } from '../physics/heater.ts';
 import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
-import { curveSlopes, temperaturesOf } from '../physics/material.ts';
+import { curveSlopes, liquidFractionOf, mushConductivity, temperaturesOf } from '../physics/material.ts';
 import { evalTable } from '../physics/table.ts';
-import { halfCellConductivity, splitsConductivity } from './kirchhoff.ts';
+import { meanFromEnds, pieceNear, splitsConductivity, tableSlopes, valueOnPiece } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import type { CellHeatTerm } from '../physics/heat-terms.ts';
@@ -98,7 +98,26 @@ export interface Workspace {
   readonly diag: Float64Array;
   readonly upper: Float64Array;
   readonly scratch2: Float64Array;
+  /** Per cell, fixed for the run: whether its material's k follows its phase (kirchhoff.ts splitsConductivity). */
+  readonly kSplits: Uint8Array;
+  /** Per cell, fixed for the run: its k table's piece slopes (kirchhoff.ts tableSlopes; one array per table). */
+  readonly kSlopes: readonly Float64Array[];
+  /**
+   * Per cell at the last evaluation, how its half cells read k (kirchhoff.ts halfCellConductivity): K_CONSTANT (one
+   * row), K_TABLE (the table clamped to [kFloor, kCeiling]: its phase's range) or K_MUSH (a two-phase cell); kValue: k
+   * at the cell's own temperature as so read (the mush value for K_MUSH); kPiece: the table's piece holding it (also
+   * the next search's start).
+   */
+  readonly kRegion: Uint8Array;
+  readonly kFloor: Float64Array;
+  readonly kCeiling: Float64Array;
+  readonly kValue: Float64Array;
+  readonly kPiece: Int32Array;
 }
+
+const K_CONSTANT = 0;
+const K_TABLE = 1;
+const K_MUSH = 2;
 
 /** termsByLayer: each layer's temperature-dependent terms (heat-terms.ts), by layer index; none if omitted. */
 export function createWorkspace(grid: Grid, bottomContext: FaceContext, topContext: FaceContext,
@@ -124,7 +143,67 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     termState: new Float64Array(n).fill(NaN),
     lower: new Float64Array(m), diag: new Float64Array(m), upper: new Float64Array(m),
     scratch2: new Float64Array(2),
+    kSplits: Uint8Array.from(grid.materials, (mat) => (splitsConductivity(mat) ? 1 : 0)),
+    kSlopes: kSlopesByCell(grid),
+    kRegion: new Uint8Array(n), kFloor: new Float64Array(n), kCeiling: new Float64Array(n), kValue: new Float64Array(n),
+    kPiece: new Int32Array(n),
   };
+}
+
+/** Each cell's k-table slopes, one array per distinct table. */
+function kSlopesByCell(grid: Grid): Float64Array[] {
+  const byTable = new Map<object, Float64Array>();
+  return grid.materials.map((mat) => {
+    let slopes = byTable.get(mat.conductivity);
+    if (slopes === undefined) { slopes = tableSlopes(mat.conductivity); byTable.set(mat.conductivity, slopes); }
+    return slopes;
+  });
+}
+
+/**
+ * How each cell's half cells read k at its state (halfCellConductivity's cases, kirchhoff.ts), and k at its own
+ * temperature so read. Overwrites ws.kRegion, ws.kFloor, ws.kCeiling, ws.kValue, ws.kPiece. Reads ws.T.
+ */
+function classifyConductivity(ws: Workspace, U: Float64Array): void {
+  const { n, T, grid, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece } = ws;
+  for (let i = 0; i < n; i++) {
+    const material = grid.materials[i]!;
+    const table = material.conductivity;
+    const tC = T[i + 1]!;
+    if (table.y.length === 1) { kRegion[i] = K_CONSTANT; kValue[i] = table.y[0]!; continue; }
+    const melt = material.melt;
+    let lo = -Infinity;
+    let hi = Infinity;
+    if (melt !== undefined && kSplits[i] === 1) {
+      const h = U[i + 1]!;
+      if (h <= melt.hSolidus) hi = melt.solidTableK;
+      else if (h >= melt.hLiquidus) lo = melt.liquidTableK;
+      else { kRegion[i] = K_MUSH; kValue[i] = mushConductivity(melt, liquidFractionOf(material, h, tC)); continue; }
+    }
+    kRegion[i] = K_TABLE;
+    kFloor[i] = lo;
+    kCeiling[i] = hi;
+    const piece = pieceNear(table, lo, hi, tC, kPiece[i]!);
+    kPiece[i] = piece;
+    kValue[i] = valueOnPiece(table, lo, hi, tC, piece);
+  }
+}
+
+/**
+ * halfCellConductivity(cell i, its temperature, nbK) from the cell's classification: its Kirchhoff mean toward a node
+ * whose own reading is not shared (a face node, a cell of another layer or phase). Overwrites out[0], out[1].
+ */
+function halfTowards(ws: Workspace, i: number, ownK: number, nbK: number, out: Float64Array): number {
+  out[0] = 0;
+  out[1] = 0;
+  const region = ws.kRegion[i]!;
+  if (region !== K_TABLE) return ws.kValue[i]!;
+  const table = ws.grid.materials[i]!.conductivity;
+  const lo = ws.kFloor[i]!;
+  const hi = ws.kCeiling[i]!;
+  const piece = pieceNear(table, lo, hi, nbK, ws.kPiece[i]!);
+  return meanFromEnds(table, ws.kSlopes[i]!, lo, hi, ownK, ws.kValue[i]!, ws.kPiece[i]!, nbK,
+    valueOnPiece(table, lo, hi, nbK, piece), piece, out);
 }
 
 /**
@@ -143,34 +222,66 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     temperaturesOf(layerCurves[l]!, layerSlopes[l]!, U, grid.layerStart[l]!, grid.layerEnd[l]!, segmentHint, T, tau);
   }
   // half-cell resistances Δx/(2k̄), k̄ the Kirchhoff mean toward each neighbour (kirchhoff.ts), then series sums on
-  // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above)
+  // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above). Two cells of one
+  // layer that read k on the same clamped table share the mean of their common face (one evaluation, slopes swapped)
+  classifyConductivity(ws, U);
+  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSlopes, kSplits } = ws;
   let halfBelow = 0;
   let belowOwn = 0;
   let belowNb = 0;
+  let shared = false;
+  let sharedK = 0;
+  let sharedOwn = 0;
+  let sharedNb = 0;
   for (let i = 0; i < n; i++) {
     const j = i + 1;
     const tC = T[j]!;
     const material = grid.materials[i]!;
     const melt = material.melt;
     const h = U[j]!;
+    const dxi = dx[i]!;
     let mush = 0;
-    if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus && splitsConductivity(material)) {
+    if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus && kSplits[i] === 1) {
       // half = Δx/(2k) with 1/k linear in f: d(half)/dH = (Δx/2)·(1/k_l − 1/k_s)·df/dH
       const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus)
         : tau[j]! / (melt.liquidusK - melt.solidusK);
-      mush = 0.5 * dx[i]! * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
+      mush = 0.5 * dxi * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
     }
     // half = Δx/(2k̄(T_own, T_nb)): d(half)/dT = −Δx/(2k̄²)·dk̄/dT
-    const kLo = halfCellConductivity(material, h, tC, T[j - 1]!, scratch2);
-    const cLo = (-0.5 * dx[i]!) / (kLo * kLo);
-    const loOwn = cLo * scratch2[0]! * tau[j]! + mush;
-    const loNb = cLo * scratch2[1]! * tau[j - 1]!;
-    const kUp = halfCellConductivity(material, h, tC, T[j + 1]!, scratch2);
-    const cUp = (-0.5 * dx[i]!) / (kUp * kUp);
-    G[i] = 1 / (halfBelow + (i === 0 ? 0 : grid.contactAbove[i - 1]!) + (0.5 * dx[i]!) / kLo);
+    let kLo: number;
+    let sLoOwn: number;
+    let sLoNb: number;
+    if (shared) {
+      kLo = sharedK;
+      sLoOwn = sharedNb;
+      sLoNb = sharedOwn;
+    } else {
+      kLo = halfTowards(ws, i, tC, T[j - 1]!, scratch2);
+      sLoOwn = scratch2[0]!;
+      sLoNb = scratch2[1]!;
+    }
+    const cLo = (-0.5 * dxi) / (kLo * kLo);
+    const loOwn = cLo * sLoOwn * tau[j]! + mush;
+    const loNb = cLo * sLoNb * tau[j - 1]!;
+    let kUp: number;
+    const next = i + 1;
+    if (next < n && kRegion[i] === K_TABLE && kRegion[next] === K_TABLE && grid.materials[next]!.conductivity === material.conductivity
+      && kFloor[i] === kFloor[next] && kCeiling[i] === kCeiling[next]) {
+      kUp = meanFromEnds(material.conductivity, kSlopes[i]!, kFloor[i]!, kCeiling[i]!, tC, kValue[i]!, kPiece[i]!,
+        T[j + 1]!, kValue[next]!, kPiece[next]!, scratch2);
+      shared = true;
+      sharedK = kUp;
+      sharedOwn = scratch2[0]!;
+      sharedNb = scratch2[1]!;
+    } else {
+      kUp = halfTowards(ws, i, tC, T[j + 1]!, scratch2);
+      shared = false;
+    }
+    const cUp = (-0.5 * dxi) / (kUp * kUp);
+    G[i] = 1 / (halfBelow + (i === 0 ? 0 : grid.contactAbove[i - 1]!) + (0.5 * dxi) / kLo);
     dRa[i] = belowOwn + loNb;
     dRb[i] = belowNb + loOwn;
-    halfBelow = (0.5 * dx[i]!) / kUp;
+    halfBelow = (0.5 * dxi) / kUp;
     belowOwn = cUp * scratch2[0]! * tau[j]! + mush;
     belowNb = cUp * scratch2[1]! * tau[j + 1]!;
   }

@@ -92,6 +92,66 @@ export function clampedTableMean(table: Table, lo: number, hi: number, own: numb
 }
 
 /**
+ * Each linear piece's slope (y[k+1] − y[k])/(T[k+1] − T[k]) of a table (length rows − 1), as clampedTableMean() divides
+ * it out per call: worked out once per table for the grid's evaluation (discretization.ts).
+ */
+export function tableSlopes(table: Table): Float64Array {
+  const { tK: xs, y } = table;
+  const slopes = new Float64Array(Math.max(0, xs.length - 1));
+  for (let k = 0; k + 1 < xs.length; k++) slopes[k] = (y[k + 1]! - y[k]!) / (xs[k + 1]! - xs[k]!);
+  return slopes;
+}
+
+/**
+ * pieceOf() searched from `hint` (the piece of the same cell at the last evaluation) instead of from the first row:
+ * the same answer for strictly increasing rows (the scenario checks it), in one or two comparisons when T moved little.
+ */
+export function pieceNear(table: Table, lo: number, hi: number, t: number, hint: number): number {
+  const xs = table.tK;
+  const last = xs.length - 1;
+  if (t <= lo || t <= xs[0]!) return -1;
+  if (t >= hi || t >= xs[last]!) return last;
+  let k = hint < 0 ? 0 : hint >= last ? last - 1 : hint;
+  while (k > 0 && xs[k]! > t) k--;
+  while (k + 1 < last && xs[k + 1]! <= t) k++;
+  return k;
+}
+
+/**
+ * clampedValue() at T when `piece` = pieceNear(T) is known: on an inner piece the table is read on that row pair with
+ * evalTable()'s arithmetic (its binary search finds the same row), so the value is the same to the bit.
+ */
+export function valueOnPiece(table: Table, lo: number, hi: number, t: number, piece: number): number {
+  const xs = table.tK;
+  if (piece < 0 || piece >= xs.length - 1) return clampedValue(table, lo, hi, t);
+  const y = table.y;
+  const x0 = xs[piece]!;
+  const y0 = y[piece]!;
+  return y0 + ((y[piece + 1]! - y0) * (t - x0)) / (xs[piece + 1]! - x0);
+}
+
+/**
+ * clampedTableMean() from the two ends' values and pieces already known (valueOnPiece, pieceNear under the same clamp),
+ * `slopes` = tableSlopes(table): the same arithmetic, so the same mean and slopes to the bit. Swapping own and nb
+ * gives the same mean and swaps out[0] and out[1] exactly (a − b = −(b − a) and x/(−y) = −(x/y) in IEEE arithmetic),
+ * which lets the two half cells that meet inside a layer share one evaluation. Overwrites out[0], out[1].
+ */
+export function meanFromEnds(table: Table, slopes: Float64Array, lo: number, hi: number, own: number, gOwn: number,
+  pOwn: number, nb: number, gNb: number, pNb: number, out: Float64Array): number {
+  if (pOwn === pNb) {
+    const slope = pOwn >= 0 && pOwn < slopes.length ? slopes[pOwn]! : 0;
+    out[0] = slope / 2;
+    out[1] = slope / 2;
+    return (gOwn + gNb) / 2;
+  }
+  const span = nb - own;
+  const mean = (own < nb ? clampedIntegral(table, lo, hi, own, nb) : clampedIntegral(table, lo, hi, nb, own)) / Math.abs(span);
+  out[0] = (mean - gOwn) / span;
+  out[1] = (gNb - mean) / span;
+  return mean;
+}
+
+/**
  * The conductivity (W·m⁻¹·K⁻¹) of the half of a cell (enthalpy hJ, temperature ownK) that faces a node at nbK: the
  * Kirchhoff mean of its material's k between the two, read by phase as above; out[0] = ∂k̄/∂T_own, out[1] = ∂k̄/∂T_nb
  * (both 0 in a two-phase cell, whose k follows the liquid fraction). Overwrites out[0], out[1].
