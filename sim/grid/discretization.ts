@@ -19,7 +19,7 @@ import type { PlateNode } from '../physics/heater.ts';
 import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
 import { curveSlopes, liquidFractionOf, mushConductivity, temperaturesOf } from '../physics/material.ts';
-import { evalTable } from '../physics/table.ts';
+import { evalTable, type Table } from '../physics/table.ts';
 import { meanFromEnds, pieceNear, splitsConductivity, tableSlopes, valueOnPiece } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
@@ -113,6 +113,23 @@ export interface Workspace {
   readonly kCeiling: Float64Array;
   readonly kValue: Float64Array;
   readonly kPiece: Int32Array;
+  /**
+   * Per cell, fixed for the run, read by the kernels instead of the material records (whose shapes differ between
+   * materials, which made every read polymorphic): its k table (one record of one shape per distinct table) and that
+   * table's index (equal indices: the same table); its melt's enthalpies at the solidus and liquidus, J/m³ (+∞ and −∞
+   * without a melt); the table rows the solid and liquid read k up to (physics/material.ts Melt); for a cell whose k
+   * follows its phase, 1/k_l − 1/k_s (m·K/W), the melt's width liquidus − solidus (K) and, on an isothermal melt,
+   * df/dH = 1/(H_l − H_s) (m³/J).
+   */
+  readonly kTable: readonly Table[];
+  readonly kTableId: Int32Array;
+  readonly hSolidus: Float64Array;
+  readonly hLiquidus: Float64Array;
+  readonly solidTableK: Float64Array;
+  readonly liquidTableK: Float64Array;
+  readonly mushResistivity: Float64Array;
+  readonly meltWidthK: Float64Array;
+  readonly jumpDfdH: Float64Array;
 }
 
 const K_CONSTANT = 0;
@@ -144,20 +161,47 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     lower: new Float64Array(m), diag: new Float64Array(m), upper: new Float64Array(m),
     scratch2: new Float64Array(2),
     kSplits: Uint8Array.from(grid.materials, (mat) => (splitsConductivity(mat) ? 1 : 0)),
-    kSlopes: kSlopesByCell(grid),
     kRegion: new Uint8Array(n), kFloor: new Float64Array(n), kCeiling: new Float64Array(n), kValue: new Float64Array(n),
     kPiece: new Int32Array(n),
+    ...cellConstants(grid),
   };
 }
 
-/** Each cell's k-table slopes, one array per distinct table. */
-function kSlopesByCell(grid: Grid): Float64Array[] {
-  const byTable = new Map<object, Float64Array>();
-  return grid.materials.map((mat) => {
-    let slopes = byTable.get(mat.conductivity);
-    if (slopes === undefined) { slopes = tableSlopes(mat.conductivity); byTable.set(mat.conductivity, slopes); }
-    return slopes;
-  });
+/** The per-cell constants of the workspace (see Workspace.kTable), one table record and slope array per table. */
+function cellConstants(grid: Grid) {
+  const n = grid.n;
+  const tables = new Map<Table, { table: Table; slopes: Float64Array; id: number }>();
+  const kTable: Table[] = [];
+  const kSlopes: Float64Array[] = [];
+  const kTableId = new Int32Array(n);
+  const hSolidus = new Float64Array(n).fill(Infinity);
+  const hLiquidus = new Float64Array(n).fill(-Infinity);
+  const solidTableK = new Float64Array(n);
+  const liquidTableK = new Float64Array(n);
+  const mushResistivity = new Float64Array(n);
+  const meltWidthK = new Float64Array(n);
+  const jumpDfdH = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const mat = grid.materials[i]!;
+    let entry = tables.get(mat.conductivity);
+    if (entry === undefined) {
+      entry = { table: { tK: mat.conductivity.tK, y: mat.conductivity.y }, slopes: tableSlopes(mat.conductivity), id: tables.size };
+      tables.set(mat.conductivity, entry);
+    }
+    kTable.push(entry.table);
+    kSlopes.push(entry.slopes);
+    kTableId[i] = entry.id;
+    const melt = mat.melt;
+    if (melt === undefined) continue;
+    hSolidus[i] = melt.hSolidus;
+    hLiquidus[i] = melt.hLiquidus;
+    solidTableK[i] = melt.solidTableK;
+    liquidTableK[i] = melt.liquidTableK;
+    mushResistivity[i] = 1 / melt.kLiquid - 1 / melt.kSolid;
+    meltWidthK[i] = melt.liquidusK - melt.solidusK;
+    jumpDfdH[i] = 1 / (melt.hLiquidus - melt.hSolidus);
+  }
+  return { kTable, kSlopes, kTableId, hSolidus, hLiquidus, solidTableK, liquidTableK, mushResistivity, meltWidthK, jumpDfdH };
 }
 
 /**
@@ -165,20 +209,23 @@ function kSlopesByCell(grid: Grid): Float64Array[] {
  * temperature so read. Overwrites ws.kRegion, ws.kFloor, ws.kCeiling, ws.kValue, ws.kPiece. Reads ws.T.
  */
 function classifyConductivity(ws: Workspace, U: Float64Array): void {
-  const { n, T, grid, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece } = ws;
+  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, hSolidus, hLiquidus } = ws;
   for (let i = 0; i < n; i++) {
-    const material = grid.materials[i]!;
-    const table = material.conductivity;
+    const table = kTable[i]!;
     const tC = T[i + 1]!;
     if (table.y.length === 1) { kRegion[i] = K_CONSTANT; kValue[i] = table.y[0]!; continue; }
-    const melt = material.melt;
     let lo = -Infinity;
     let hi = Infinity;
-    if (melt !== undefined && kSplits[i] === 1) {
+    if (kSplits[i] === 1) {
       const h = U[i + 1]!;
-      if (h <= melt.hSolidus) hi = melt.solidTableK;
-      else if (h >= melt.hLiquidus) lo = melt.liquidTableK;
-      else { kRegion[i] = K_MUSH; kValue[i] = mushConductivity(melt, liquidFractionOf(material, h, tC)); continue; }
+      if (h <= hSolidus[i]!) hi = ws.solidTableK[i]!;
+      else if (h >= hLiquidus[i]!) lo = ws.liquidTableK[i]!;
+      else {
+        const material = ws.grid.materials[i]!;
+        kRegion[i] = K_MUSH;
+        kValue[i] = mushConductivity(material.melt!, liquidFractionOf(material, h, tC));
+        continue;
+      }
     }
     kRegion[i] = K_TABLE;
     kFloor[i] = lo;
@@ -198,7 +245,7 @@ function halfTowards(ws: Workspace, i: number, ownK: number, nbK: number, out: F
   out[1] = 0;
   const region = ws.kRegion[i]!;
   if (region !== K_TABLE) return ws.kValue[i]!;
-  const table = ws.grid.materials[i]!.conductivity;
+  const table = ws.kTable[i]!;
   const lo = ws.kFloor[i]!;
   const hi = ws.kCeiling[i]!;
   const piece = pieceNear(table, lo, hi, nbK, ws.kPiece[i]!);
@@ -225,7 +272,9 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above). Two cells of one
   // layer that read k on the same clamped table share the mean of their common face (one evaluation, slopes swapped)
   classifyConductivity(ws, U);
-  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSlopes, kSplits } = ws;
+  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSlopes, kSplits, kTable, kTableId, hSolidus, hLiquidus } = ws;
+  const { mushResistivity, meltWidthK, jumpDfdH } = ws;
+  const contactAbove = grid.contactAbove;
   let halfBelow = 0;
   let belowOwn = 0;
   let belowNb = 0;
@@ -233,19 +282,21 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   let sharedK = 0;
   let sharedOwn = 0;
   let sharedNb = 0;
+  // without cell terms each cell's net rate F is summed here, one cell behind (its upper face's G comes next)
+  const noTerms = !ws.hasTerms;
+  const source = cond.source;
+  let generated = 0;
   for (let i = 0; i < n; i++) {
     const j = i + 1;
     const tC = T[j]!;
-    const material = grid.materials[i]!;
-    const melt = material.melt;
     const h = U[j]!;
     const dxi = dx[i]!;
     let mush = 0;
-    if (melt !== undefined && h > melt.hSolidus && h < melt.hLiquidus && kSplits[i] === 1) {
+    if (kSplits[i] === 1 && h > hSolidus[i]! && h < hLiquidus[i]!) {
       // half = Δx/(2k) with 1/k linear in f: d(half)/dH = (Δx/2)·(1/k_l − 1/k_s)·df/dH
-      const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus)
-        : tau[j]! / (melt.liquidusK - melt.solidusK);
-      mush = 0.5 * dxi * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
+      const width = meltWidthK[i]!;
+      const dfdH = width === 0 ? jumpDfdH[i]! : tau[j]! / width;
+      mush = 0.5 * dxi * mushResistivity[i]! * dfdH;
     }
     // half = Δx/(2k̄(T_own, T_nb)): d(half)/dT = −Δx/(2k̄²)·dk̄/dT
     let kLo: number;
@@ -265,9 +316,9 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     const loNb = cLo * sLoNb * tau[j - 1]!;
     let kUp: number;
     const next = i + 1;
-    if (next < n && kRegion[i] === K_TABLE && kRegion[next] === K_TABLE && grid.materials[next]!.conductivity === material.conductivity
+    if (next < n && kRegion[i] === K_TABLE && kRegion[next] === K_TABLE && kTableId[next] === kTableId[i]
       && kFloor[i] === kFloor[next] && kCeiling[i] === kCeiling[next]) {
-      kUp = meanFromEnds(material.conductivity, kSlopes[i]!, kFloor[i]!, kCeiling[i]!, tC, kValue[i]!, kPiece[i]!,
+      kUp = meanFromEnds(kTable[i]!, kSlopes[i]!, kFloor[i]!, kCeiling[i]!, tC, kValue[i]!, kPiece[i]!,
         T[j + 1]!, kValue[next]!, kPiece[next]!, scratch2);
       shared = true;
       sharedK = kUp;
@@ -278,26 +329,28 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
       shared = false;
     }
     const cUp = (-0.5 * dxi) / (kUp * kUp);
-    G[i] = 1 / (halfBelow + (i === 0 ? 0 : grid.contactAbove[i - 1]!) + (0.5 * dxi) / kLo);
+    G[i] = 1 / (halfBelow + (i === 0 ? 0 : contactAbove[i - 1]!) + (0.5 * dxi) / kLo);
     dRa[i] = belowOwn + loNb;
     dRb[i] = belowNb + loOwn;
     halfBelow = (0.5 * dxi) / kUp;
     belowOwn = cUp * scratch2[0]! * tau[j]! + mush;
     belowNb = cUp * scratch2[1]! * tau[j + 1]!;
+    if (noTerms && i > 0) {
+      const c = i - 1;
+      const s = source[c]! * dx[c]!;
+      generated += s;
+      F[c] = G[c]! * (T[c]! - T[i]!) - G[i]! * (T[i]! - T[j]!) + s;
+    }
   }
   G[n] = 1 / halfBelow;
   dRa[n] = belowOwn;
   dRb[n] = belowNb;
-  if (!ws.hasTerms) {
+  if (noTerms) {
     // no cell has a term: the schedule's source alone (generatedDs and edgeDs stay 0)
-    const source = cond.source;
-    let generated = 0;
-    for (let i = 0; i < n; i++) {
-      const j = i + 1;
-      const s = source[i]! * dx[i]!;
-      generated += s;
-      F[i] = G[j - 1]! * (T[j - 1]! - T[j]!) - G[j]! * (T[j]! - T[j + 1]!) + s;
-    }
+    const c = n - 1;
+    const s = source[c]! * dx[c]!;
+    generated += s;
+    F[c] = G[c]! * (T[c]! - T[n]!) - G[n]! * (T[n]! - T[n + 1]!) + s;
     ws.faceQ[CHANNEL.generated] = generated;
     ws.faceQ[CHANNEL.edge] = 0;
   } else {

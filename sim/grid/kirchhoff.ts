@@ -139,10 +139,11 @@ export function valueOnPiece(table: Table, lo: number, hi: number, t: number, pi
 export function meanFromEnds(table: Table, slopes: Float64Array, lo: number, hi: number, own: number, gOwn: number,
   pOwn: number, nb: number, gNb: number, pNb: number, out: Float64Array): number {
   if (pOwn === pNb) {
-    const slope = pOwn >= 0 && pOwn < slopes.length ? slopes[pOwn]! : 0;
-    out[0] = slope / 2;
-    out[1] = slope / 2;
-    return (gOwn + gNb) / 2;
+    // × 0.5 is ÷ 2 to the bit (a power of two), without a division
+    const half = 0.5 * (pOwn >= 0 && pOwn < slopes.length ? slopes[pOwn]! : 0);
+    out[0] = half;
+    out[1] = half;
+    return 0.5 * (gOwn + gNb);
   }
   const span = nb - own;
   const mean = (own < nb ? clampedIntegral(table, lo, hi, own, nb) : clampedIntegral(table, lo, hi, nb, own)) / Math.abs(span);
