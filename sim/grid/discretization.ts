@@ -20,7 +20,7 @@ import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
 import { curveSlopes, liquidFractionOf, mushConductivity, temperaturesOf } from '../physics/material.ts';
 import { evalTable, type Table } from '../physics/table.ts';
-import { meanFromEnds, pieceNear, splitsConductivity, tableSlopes, valueOnPiece } from './kirchhoff.ts';
+import { clampedIntegral, clampedValue, splitsConductivity, tableSlopes } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import type { CellHeatTerm } from '../physics/heat-terms.ts';
@@ -130,6 +130,8 @@ export interface Workspace {
   readonly mushResistivity: Float64Array;
   readonly meltWidthK: Float64Array;
   readonly jumpDfdH: Float64Array;
+  /** The half-cell readings' scratch: [∂k̄/∂T_own, ∂k̄/∂T_nb, k̄, a node's clamped k] (see meanOf). */
+  readonly kOut: Float64Array;
 }
 
 const K_CONSTANT = 0;
@@ -163,6 +165,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     kSplits: Uint8Array.from(grid.materials, (mat) => (splitsConductivity(mat) ? 1 : 0)),
     kRegion: new Uint8Array(n), kFloor: new Float64Array(n), kCeiling: new Float64Array(n), kValue: new Float64Array(n),
     kPiece: new Int32Array(n),
+    kOut: new Float64Array(4),
     ...cellConstants(grid),
   };
 }
@@ -209,10 +212,9 @@ function cellConstants(grid: Grid) {
  * temperature so read. Overwrites ws.kRegion, ws.kFloor, ws.kCeiling, ws.kValue, ws.kPiece. Reads ws.T.
  */
 function classifyConductivity(ws: Workspace, U: Float64Array): void {
-  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, hSolidus, hLiquidus } = ws;
+  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, hSolidus, hLiquidus, kOut } = ws;
   for (let i = 0; i < n; i++) {
     const table = kTable[i]!;
-    const tC = T[i + 1]!;
     if (table.y.length === 1) { kRegion[i] = K_CONSTANT; kValue[i] = table.y[0]!; continue; }
     let lo = -Infinity;
     let hi = Infinity;
@@ -223,34 +225,101 @@ function classifyConductivity(ws: Workspace, U: Float64Array): void {
       else {
         const material = ws.grid.materials[i]!;
         kRegion[i] = K_MUSH;
-        kValue[i] = mushConductivity(material.melt!, liquidFractionOf(material, h, tC));
+        kValue[i] = mushConductivity(material.melt!, liquidFractionOf(material, h, T[i + 1]!));
         continue;
       }
     }
     kRegion[i] = K_TABLE;
     kFloor[i] = lo;
     kCeiling[i] = hi;
-    const piece = pieceNear(table, lo, hi, tC, kPiece[i]!);
+    const piece = pieceAt(ws, i, i + 1);
     kPiece[i] = piece;
-    kValue[i] = valueOnPiece(table, lo, hi, tC, piece);
+    valueAt(ws, i, i + 1, piece);
+    kValue[i] = kOut[3]!;
   }
 }
 
-/**
- * halfCellConductivity(cell i, its temperature, nbK) from the cell's classification: its Kirchhoff mean toward a node
- * whose own reading is not shared (a face node, a cell of another layer or phase). Overwrites out[0], out[1].
+/*
+ * The helpers below take and return only integers and write their numbers to ws.kOut: a double passed to or returned
+ * from a call the JIT does not inline is boxed on the heap, which made evaluate() allocate ~35 bytes per cell and sweep.
  */
-function halfTowards(ws: Workspace, i: number, ownK: number, nbK: number, out: Float64Array): number {
-  out[0] = 0;
-  out[1] = 0;
-  const region = ws.kRegion[i]!;
-  if (region !== K_TABLE) return ws.kValue[i]!;
+
+/**
+ * Which piece of cell i's k table, clamped to its phase's range, holds the temperature of node `node` (kirchhoff.ts
+ * pieceOf), searched from the cell's own piece: −1 below, the row index between rows, the last row index above.
+ */
+function pieceAt(ws: Workspace, i: number, node: number): number {
+  const xs = ws.kTable[i]!.tK;
+  const last = xs.length - 1;
+  const t = ws.T[node]!;
+  if (t <= ws.kFloor[i]! || t <= xs[0]!) return -1;
+  if (t >= ws.kCeiling[i]! || t >= xs[last]!) return last;
+  const hint = ws.kPiece[i]!;
+  let k = hint < 0 ? 0 : hint >= last ? last - 1 : hint;
+  while (k > 0 && xs[k]! > t) k--;
+  while (k + 1 < last && xs[k + 1]! <= t) k++;
+  return k;
+}
+
+/**
+ * Cell i's clamped k at node `node`'s temperature, its piece known (kirchhoff.ts clampedValue: on an inner piece with
+ * evalTable()'s arithmetic on the row pair its search finds, so the same bits). Overwrites ws.kOut[3].
+ */
+function valueAt(ws: Workspace, i: number, node: number, piece: number): void {
+  const table = ws.kTable[i]!;
+  const xs = table.tK;
+  const t = ws.T[node]!;
+  if (piece < 0 || piece >= xs.length - 1) { ws.kOut[3] = clampedValue(table, ws.kFloor[i]!, ws.kCeiling[i]!, t); return; }
+  const y = table.y;
+  const x0 = xs[piece]!;
+  const y0 = y[piece]!;
+  ws.kOut[3] = y0 + ((y[piece + 1]! - y0) * (t - x0)) / (xs[piece + 1]! - x0);
+}
+
+/**
+ * kirchhoff.ts clampedTableMean() for cell i between its own node and node `nbNode`, from the ends' readings: its own
+ * (ws.kValue, ws.kPiece) and the neighbour's (value in ws.kOut[3], piece pNb) under the cell's clamp. The same
+ * arithmetic, so the same bits; swapping the ends gives the same mean and swaps the slopes exactly (a − b = −(b − a),
+ * x/(−y) = −(x/y)), which lets two half cells that meet inside a layer share it. Writes ws.kOut[0] = ∂k̄/∂T_own,
+ * ws.kOut[1] = ∂k̄/∂T_nb, ws.kOut[2] = k̄.
+ */
+function meanOf(ws: Workspace, i: number, ownNode: number, nbNode: number, pNb: number): void {
+  const out = ws.kOut;
+  const pOwn = ws.kPiece[i]!;
+  const gOwn = ws.kValue[i]!;
+  const gNb = out[3]!;
+  if (pOwn === pNb) {
+    // × 0.5 is ÷ 2 to the bit (a power of two), without a division
+    const slopes = ws.kSlopes[i]!;
+    const half = 0.5 * (pOwn >= 0 && pOwn < slopes.length ? slopes[pOwn]! : 0);
+    out[0] = half;
+    out[1] = half;
+    out[2] = 0.5 * (gOwn + gNb);
+    return;
+  }
   const table = ws.kTable[i]!;
   const lo = ws.kFloor[i]!;
   const hi = ws.kCeiling[i]!;
-  const piece = pieceNear(table, lo, hi, nbK, ws.kPiece[i]!);
-  return meanFromEnds(table, ws.kSlopes[i]!, lo, hi, ownK, ws.kValue[i]!, ws.kPiece[i]!, nbK,
-    valueOnPiece(table, lo, hi, nbK, piece), piece, out);
+  const own = ws.T[ownNode]!;
+  const nb = ws.T[nbNode]!;
+  const span = nb - own;
+  const mean = (own < nb ? clampedIntegral(table, lo, hi, own, nb) : clampedIntegral(table, lo, hi, nb, own)) / Math.abs(span);
+  out[0] = (mean - gOwn) / span;
+  out[1] = (gNb - mean) / span;
+  out[2] = mean;
+}
+
+/**
+ * halfCellConductivity(cell i, its temperature, T at nbNode) (kirchhoff.ts) from the cell's classification: its half
+ * toward a node whose reading is not shared (a face node, a cell of another layer or phase). Writes ws.kOut[0..2] as
+ * meanOf() does (0, 0 and the cell's k when its k does not follow T).
+ */
+function halfTowards(ws: Workspace, i: number, nbNode: number): void {
+  const out = ws.kOut;
+  if (ws.kRegion[i] !== K_TABLE) { out[0] = 0; out[1] = 0; out[2] = ws.kValue[i]!; return; }
+  const piece = pieceAt(ws, i, nbNode);
+  valueAt(ws, i, nbNode, piece);
+  meanOf(ws, i, i + 1, nbNode, piece);
 }
 
 /**
@@ -259,7 +328,7 @@ function halfTowards(ws: Workspace, i: number, ownK: number, nbK: number, out: F
  * ws.scratch2, ws.termScratch, ws.termState.
  */
 export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): void {
-  const { n, T, tau, G, F, segmentHint, scratch2, grid, dRa, dRb, layerCurves, layerSlopes } = ws;
+  const { n, T, tau, G, F, segmentHint, grid, dRa, dRb, layerCurves, layerSlopes } = ws;
   const dx = grid.dx;
   T[0] = U[0]!;
   tau[0] = 1;
@@ -272,7 +341,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above). Two cells of one
   // layer that read k on the same clamped table share the mean of their common face (one evaluation, slopes swapped)
   classifyConductivity(ws, U);
-  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSlopes, kSplits, kTable, kTableId, hSolidus, hLiquidus } = ws;
+  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSplits, kTableId, hSolidus, hLiquidus, kOut } = ws;
   const { mushResistivity, meltWidthK, jumpDfdH } = ws;
   const contactAbove = grid.contactAbove;
   let halfBelow = 0;
@@ -288,7 +357,6 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   let generated = 0;
   for (let i = 0; i < n; i++) {
     const j = i + 1;
-    const tC = T[j]!;
     const h = U[j]!;
     const dxi = dx[i]!;
     let mush = 0;
@@ -307,34 +375,37 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
       sLoOwn = sharedNb;
       sLoNb = sharedOwn;
     } else {
-      kLo = halfTowards(ws, i, tC, T[j - 1]!, scratch2);
-      sLoOwn = scratch2[0]!;
-      sLoNb = scratch2[1]!;
+      halfTowards(ws, i, j - 1);
+      kLo = kOut[2]!;
+      sLoOwn = kOut[0]!;
+      sLoNb = kOut[1]!;
     }
     const cLo = (-0.5 * dxi) / (kLo * kLo);
     const loOwn = cLo * sLoOwn * tau[j]! + mush;
     const loNb = cLo * sLoNb * tau[j - 1]!;
-    let kUp: number;
     const next = i + 1;
     if (next < n && kRegion[i] === K_TABLE && kRegion[next] === K_TABLE && kTableId[next] === kTableId[i]
       && kFloor[i] === kFloor[next] && kCeiling[i] === kCeiling[next]) {
-      kUp = meanFromEnds(kTable[i]!, kSlopes[i]!, kFloor[i]!, kCeiling[i]!, tC, kValue[i]!, kPiece[i]!,
-        T[j + 1]!, kValue[next]!, kPiece[next]!, scratch2);
+      kOut[3] = kValue[next]!;
+      meanOf(ws, i, j, j + 1, kPiece[next]!);
       shared = true;
-      sharedK = kUp;
-      sharedOwn = scratch2[0]!;
-      sharedNb = scratch2[1]!;
     } else {
-      kUp = halfTowards(ws, i, tC, T[j + 1]!, scratch2);
+      halfTowards(ws, i, j + 1);
       shared = false;
     }
+    const kUp = kOut[2]!;
+    const upOwn = kOut[0]!;
+    const upNb = kOut[1]!;
+    sharedK = kUp;
+    sharedOwn = upOwn;
+    sharedNb = upNb;
     const cUp = (-0.5 * dxi) / (kUp * kUp);
     G[i] = 1 / (halfBelow + (i === 0 ? 0 : contactAbove[i - 1]!) + (0.5 * dxi) / kLo);
     dRa[i] = belowOwn + loNb;
     dRb[i] = belowNb + loOwn;
     halfBelow = (0.5 * dxi) / kUp;
-    belowOwn = cUp * scratch2[0]! * tau[j]! + mush;
-    belowNb = cUp * scratch2[1]! * tau[j + 1]!;
+    belowOwn = cUp * upOwn * tau[j]! + mush;
+    belowNb = cUp * upNb * tau[j + 1]!;
     if (noTerms && i > 0) {
       const c = i - 1;
       const s = source[c]! * dx[c]!;

@@ -23,7 +23,7 @@ import type { Table } from '../physics/table.ts';
 import { evalTable } from '../physics/table.ts';
 
 /** g(T) = table(clamp(T, lo, hi)): the table as one phase of a cell reads it. */
-function clampedValue(table: Table, lo: number, hi: number, t: number): number {
+export function clampedValue(table: Table, lo: number, hi: number, t: number): number {
   return evalTable(table, t < lo ? lo : t > hi ? hi : t);
 }
 
@@ -56,7 +56,7 @@ function tableIntegral(table: Table, a: number, b: number): number {
 }
 
 /** ∫_a^b g(T) dT for a ≤ b, g the table clamped to [lo, hi]. */
-function clampedIntegral(table: Table, lo: number, hi: number, a: number, b: number): number {
+export function clampedIntegral(table: Table, lo: number, hi: number, a: number, b: number): number {
   let sum = 0;
   let from = a;
   let to = b;
@@ -100,56 +100,6 @@ export function tableSlopes(table: Table): Float64Array {
   const slopes = new Float64Array(Math.max(0, xs.length - 1));
   for (let k = 0; k + 1 < xs.length; k++) slopes[k] = (y[k + 1]! - y[k]!) / (xs[k + 1]! - xs[k]!);
   return slopes;
-}
-
-/**
- * pieceOf() searched from `hint` (the piece of the same cell at the last evaluation) instead of from the first row:
- * the same answer for strictly increasing rows (the scenario checks it), in one or two comparisons when T moved little.
- */
-export function pieceNear(table: Table, lo: number, hi: number, t: number, hint: number): number {
-  const xs = table.tK;
-  const last = xs.length - 1;
-  if (t <= lo || t <= xs[0]!) return -1;
-  if (t >= hi || t >= xs[last]!) return last;
-  let k = hint < 0 ? 0 : hint >= last ? last - 1 : hint;
-  while (k > 0 && xs[k]! > t) k--;
-  while (k + 1 < last && xs[k + 1]! <= t) k++;
-  return k;
-}
-
-/**
- * clampedValue() at T when `piece` = pieceNear(T) is known: on an inner piece the table is read on that row pair with
- * evalTable()'s arithmetic (its binary search finds the same row), so the value is the same to the bit.
- */
-export function valueOnPiece(table: Table, lo: number, hi: number, t: number, piece: number): number {
-  const xs = table.tK;
-  if (piece < 0 || piece >= xs.length - 1) return clampedValue(table, lo, hi, t);
-  const y = table.y;
-  const x0 = xs[piece]!;
-  const y0 = y[piece]!;
-  return y0 + ((y[piece + 1]! - y0) * (t - x0)) / (xs[piece + 1]! - x0);
-}
-
-/**
- * clampedTableMean() from the two ends' values and pieces already known (valueOnPiece, pieceNear under the same clamp),
- * `slopes` = tableSlopes(table): the same arithmetic, so the same mean and slopes to the bit. Swapping own and nb
- * gives the same mean and swaps out[0] and out[1] exactly (a − b = −(b − a) and x/(−y) = −(x/y) in IEEE arithmetic),
- * which lets the two half cells that meet inside a layer share one evaluation. Overwrites out[0], out[1].
- */
-export function meanFromEnds(table: Table, slopes: Float64Array, lo: number, hi: number, own: number, gOwn: number,
-  pOwn: number, nb: number, gNb: number, pNb: number, out: Float64Array): number {
-  if (pOwn === pNb) {
-    // × 0.5 is ÷ 2 to the bit (a power of two), without a division
-    const half = 0.5 * (pOwn >= 0 && pOwn < slopes.length ? slopes[pOwn]! : 0);
-    out[0] = half;
-    out[1] = half;
-    return 0.5 * (gOwn + gNb);
-  }
-  const span = nb - own;
-  const mean = (own < nb ? clampedIntegral(table, lo, hi, own, nb) : clampedIntegral(table, lo, hi, nb, own)) / Math.abs(span);
-  out[0] = (mean - gOwn) / span;
-  out[1] = (gNb - mean) / span;
-  return mean;
 }
 
 /**
