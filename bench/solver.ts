@@ -10,19 +10,21 @@
  *    1, 0.1 and 0.01, freezeline's time and achieved error against a refined run, side by side with the scripted
  *    peer (bench/peer-bdf.ts: method of lines + variable-step BDF2) on the same grid at the cheapest of its tolerances
  *    that reaches the same accuracy; warm, interleaved (peer and freezeline alternate), and the ratio.
- * BENCH_QUICK=1 skips the two slowest scaling rows and the 0.01 s row (for a loaded machine).
+ * BENCH_QUICK=1 skips the two slowest scaling rows and the 0.01 s row (for a loaded machine); BENCH_PART=accuracy
+ * runs only part 3 (after the first solve and the warm demo).
  */
 import scenario from '../examples/bench-coupon.json' with { type: 'json' };
 import type { BenchFigures } from '../sim/cli/bench-run.ts';
 import { benchProblem } from '../sim/cli/bench-run.ts';
 import type { Problem } from '../sim/physics/problem.ts';
-import { runProblem, solvedProblem } from '../sim/run.ts';
+import { runProblem } from '../sim/run.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
 import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
 import { runPeer } from './peer-bdf.ts';
 
 const QUICK = process.env.BENCH_QUICK === '1';
+const ONLY_ACCURACY = process.env.BENCH_PART === 'accuracy';
 const SCALING_CELLS = QUICK ? [50, 100, 200, 400, 800] : [50, 100, 200, 400, 800, 1600];
 const RUNS = 15;
 const TIGHT = 0.01;
@@ -80,7 +82,7 @@ console.log('');
 console.log('  scaling (demo, cells shared by thickness)');
 console.log('  tolerances  melt kinks    cells   median ms   steps   Newton   M cell-updates/s');
 const slopes: string[] = [];
-for (const tol of [1, TIGHT]) {
+for (const tol of ONLY_ACCURACY ? [] : [1, TIGHT]) {
   for (const ramp of [0, 0.1]) {
     const rows: { cells: number; ms: number; work: number }[] = [];
     for (const cells of SCALING_CELLS) {
@@ -128,7 +130,7 @@ const accepted = plans.filter((p) => p.problem !== undefined);
 const finer = (p: Problem, steps: number): Problem => {
   const a = p.numerics.accuracy!;
   return { ...p, numerics: { ...p.numerics, toleranceK: p.numerics.toleranceK / 3 ** steps, liquidFractionTolerance: p.numerics.liquidFractionTolerance / 3 ** steps,
-    accuracy: { ...a, level: a.level + steps, gridRefine: a.gridRefine * 2 ** steps, toleranceDivisor: a.toleranceDivisor * 3 ** steps, meltRampK: (a.meltRampK || 0.1) / 2 ** steps } } };
+    accuracy: { ...a, level: a.level + steps, gridRefine: a.gridRefine * 2 ** steps, toleranceDivisor: a.toleranceDivisor * 3 ** steps, meltRampK: (a.meltRampK || 0.1) / 2 ** steps, confirm: false } } };
 };
 let refProblem: Problem | undefined;
 let found: ReturnType<typeof runProblem> | undefined;
@@ -148,7 +150,7 @@ const refTimes = EVENTS.map((e) => ref.summary.separator[e]);
 const heatOffS = ref.summary.heat_off_s ?? ownScenario.duration_s;
 console.log('');
 console.log(`  accuracy asked in seconds — ${ownScenario.name}; reference: ${ref.grid.n} cells, tolerances ÷${refDivisor}: molten ${refTimes[0]?.toFixed(3)} s, half-frozen ${refTimes[1]?.toFixed(3)} s, frozen ${refTimes[2]?.toFixed(3)} s`);
-console.log('  asked s   freezeline: cells  tol ÷     ms   error s   | peer BDF: tol K     ms   error s   steps | ratio');
+console.log('  asked s   freezeline: cells  tol ÷     ms   error s  estimate s | peer BDF: tol K     ms   error s   steps | ratio');
 const worst = (times: readonly (number | null)[]) => Math.max(...times.map((t, i) => (t === null || refTimes[i] === null ? Infinity : Math.abs(t - refTimes[i]!))));
 const timeIt = (f: () => void, runs: number) => {
   const out: number[] = [];
@@ -157,13 +159,14 @@ const timeIt = (f: () => void, runs: number) => {
 };
 for (const { a, problem, refusal } of plans) {
   if (problem === undefined) { console.log(`  ${String(a).padStart(7)}   refused at validation: ${refusal}`); continue; }
-  const solved = solvedProblem(problem);
   const own = runProblem(problem, { detail: 'summary' });
   if (own.status !== 'ok') { console.log(`  ${a}: freezeline run ${own.status}`); continue; }
-  const plan = problem.numerics.accuracy!;
+  // the plan as run: a rung of the ladder below the parsed plan when the estimate met the ask first (sim/run.ts)
+  const solved = own.problem;
+  const plan = solved.numerics.accuracy!;
   if (plan.level >= refLevel && plan.toleranceDivisor >= refDivisor) { console.log(`  ${String(a).padStart(7)}   ${own.grid.n} cells, tolerances ÷${plan.toleranceDivisor}: no finer reference finished within the work budget`); continue; }
   const ownErr = worst(EVENTS.map((e) => own.summary.separator[e]));
-  const grid = buildGrid(solved, solved.numerics.accuracy!.gridRefine);
+  const grid = buildGrid(solved, plan.gridRefine);
   // the peer's cheapest tolerance reaching the accuracy asked on the same grid
   let peerTol = NaN;
   let peerErr = Infinity;
@@ -182,6 +185,7 @@ for (const { a, problem, refusal } of plans) {
     if (Number.isFinite(peerTol)) peerMs = timeIt(() => runPeer(solved, grid, peerTol, heatOffS), runs);
   }
   const peerCell = Number.isFinite(peerTol) ? `${String(peerTol).padStart(6)} ${peerMs.toFixed(1).padStart(8)}   ${peerErr.toFixed(4).padStart(7)}   ${String(peerSteps).padStart(5)}` : '  none of its tolerances reached it       ';
-  console.log(`  ${String(a).padStart(7)}   ${String(own.grid.n).padStart(16)} ${String(plan.toleranceDivisor).padStart(6)} ${ownMs.toFixed(1).padStart(6)}   ${ownErr.toFixed(4).padStart(7)}   | ${peerCell} | ${Number.isFinite(peerMs) ? `${(peerMs / ownMs).toFixed(2)}×` : '—'}`);
+  const est = plan.estimatedErrorS === undefined ? '—' : plan.estimatedErrorS.toFixed(4);
+  console.log(`  ${String(a).padStart(7)}   ${String(own.grid.n).padStart(16)} ${String(plan.toleranceDivisor).padStart(6)} ${ownMs.toFixed(1).padStart(6)}   ${ownErr.toFixed(4).padStart(7)}  ${est.padStart(10)} | ${peerCell} | ${Number.isFinite(peerMs) ? `${(peerMs / ownMs).toFixed(2)}×` : '—'}`);
 }
 console.log(JSON.stringify({ first_solve_ms: firstMs, median_ms: base.median_ms, runs: base.runs, cells: base.cells, steps: base.steps, newton_iterations: base.newton_iterations, cell_updates_per_s: base.cell_updates_per_s }));

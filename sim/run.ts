@@ -11,7 +11,9 @@ import { createStepObserver } from './time/observe-step.ts';
 import type { Grid } from './grid/mesh.ts';
 import { buildGrid } from './grid/mesh.ts';
 import { withMeltRamp } from './physics/melt-ramp.ts';
-import type { Problem } from './physics/problem.ts';
+import type { AccuracyPlan, Problem } from './physics/problem.ts';
+import type { EventTimes } from './scenario/accuracy.ts';
+import { estimatedErrorS, ladderPlans } from './scenario/accuracy.ts';
 import type { RecordDetail, RunRecord } from './observe/record.ts';
 import { createRecorder } from './observe/record.ts';
 import { lumpedLayout, observeLumped } from './lumped/lumped.ts';
@@ -42,7 +44,45 @@ export function solvedProblem(problem: Problem): Problem {
   return { ...problem, layers: problem.layers.map((l) => ({ ...l, material: withMeltRamp(l.material, rampK) })) };
 }
 
+/**
+ * One run of the problem. When its accuracy plan asks to be confirmed (an accuracy asked in seconds whose plan refines
+ * the defaults; scenario/accuracy.ts), the run climbs the plan's ladder instead: it solves rung 0 (the defaults), rung
+ * 1, … and returns the first rung from the second on whose estimated event-time error (estimatedErrorS, from the runs
+ * so far) is within the accuracy asked, or the plan itself, the top rung, which the rule holds to it anyway. The
+ * outcome's problem then carries the rung's plan with the estimate; its stats are the returned rung's own (the rungs
+ * below it cost more steps besides); onProgress sees each rung's steps from t = 0; a failure or a cancellation of any
+ * rung ends the climb with it. A refinement study (`refine`) runs the plan as it is.
+ */
 export function runProblem(asWritten: Problem, options: RunOptions = {}): RunOutcome {
+  const plan = asWritten.numerics.accuracy;
+  if (plan?.confirm && options.refine === undefined) return climbLadder(asWritten, plan, options);
+  return runOnce(asWritten, options);
+}
+
+const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
+
+function climbLadder(asWritten: Problem, plan: AccuracyPlan, options: RunOptions): RunOutcome {
+  const rungs = ladderPlans(plan, asWritten.durationS);
+  const seen: EventTimes[] = [];
+  const num = asWritten.numerics;
+  for (let i = 0; i < rungs.length; i++) {
+    const rung = rungs[i]!;
+    // the plan's tolerances are divided by its own divisor: undo it, divide by the rung's
+    const scale = plan.toleranceDivisor / rung.toleranceDivisor;
+    const problem: Problem = { ...asWritten, numerics: { ...num, toleranceK: num.toleranceK * scale, liquidFractionTolerance: num.liquidFractionTolerance * scale, accuracy: rung } };
+    const out = runOnce(problem, options);
+    if (out.status !== 'ok') return out;
+    seen.push(EVENTS.map((e) => out.summary.separator[e]));
+    const estimate = estimatedErrorS(seen);
+    if (i === rungs.length - 1 || (estimate !== undefined && estimate <= plan.eventAccuracyS)) {
+      const stated: AccuracyPlan = { ...rung, estimatedErrorS: estimate };
+      return { ...out, problem: { ...out.problem, numerics: { ...out.problem.numerics, accuracy: stated } } };
+    }
+  }
+  throw new Error('climbLadder: a plan has at least one rung');
+}
+
+function runOnce(asWritten: Problem, options: RunOptions): RunOutcome {
   const problem = solvedProblem(asWritten);
   // the plan's grid factor (1 at the defaults) times a refinement study's own
   const grid = buildGrid(problem, (options.refine ?? 1) * (problem.numerics.accuracy?.gridRefine ?? 1));

@@ -40,6 +40,8 @@ function program(): Command {
       const { scenario, problem } = readScenario(file);
       const requirements = parseRequirements(opts.require, problem);
       const out = runOrFail(problem);
+      // the accuracy plan as run (an accuracy asked may be met by a rung below the plan: run.ts runProblem)
+      const solvedAs = { ...problem, numerics: out.problem.numerics };
       const expectations = evaluateExpectations(scenario.expect, out.summary);
       if (opts.csv) {
         writeFileSync(opts.csv, opts.csvAt === 'output'
@@ -51,10 +53,10 @@ function program(): Command {
       const requirementLines: string[] = [];
       const unmetRequirements = reportRequirements(requirements, out.summary, file, (s) => requirementLines.push(s.replace(/\n$/, '')));
       if (opts.json) {
-        process.stdout.write(`${JSON.stringify(resultDocument(problem, out.grid, out.record, out.summary, out.stats))}\n`);
+        process.stdout.write(`${JSON.stringify(resultDocument(solvedAs, out.grid, out.record, out.summary, out.stats))}\n`);
         for (const line of requirementLines) process.stderr.write(`${line}\n`);
       } else {
-        process.stdout.write(`${summaryTable(problem, out.summary, out.record, { expectations, requirements: requirementLines, verbose: opts.verbose, steps: out.stats.steps })}\n`);
+        process.stdout.write(`${summaryTable(solvedAs, out.summary, out.record, { expectations, requirements: requirementLines, verbose: opts.verbose, steps: out.stats.steps })}\n`);
         if (opts.coefficients) process.stdout.write(`\n${coefficientTable(problem)}\n`);
       }
       // every unmet expectation and requirement on stderr, then exit 3

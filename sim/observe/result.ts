@@ -28,11 +28,14 @@ export interface ResultDocument {
    * The accuracy the run was solved to (an addition to the contract; scenario/accuracy.ts): the accuracy asked of the
    * verdict times, the refinement level chosen for it, its grid factor and tolerance divisor, the tolerances used, the
    * melt ramp, and the event-time error the rule expects there (modelled, not measured). event_accuracy_s is null
-   * for a problem built without a scenario file.
+   * for a problem built without a scenario file. estimated_error_s: the error estimated from the runs of the levels
+   * below it (runProblem's ladder, scenario/accuracy.ts estimatedErrorS); null when none was estimated or the estimate
+   * is unbounded (an event reached on one grid only).
    */
   readonly numerics: {
     readonly event_accuracy_s: number | null; readonly level: number; readonly grid_refine: number; readonly tolerance_divisor: number;
     readonly tolerance_K: number; readonly liquid_fraction_tolerance: number; readonly melt_ramp_K: number; readonly expected_error_s: number | null;
+    readonly estimated_error_s: number | null;
   };
   /** Every coefficient the solver used, with its source (an addition; observe/coefficients.ts). */
   readonly coefficients: readonly Coefficient[];
@@ -68,6 +71,7 @@ function numericsKeys(problem: Problem): ResultDocument['numerics'] {
     event_accuracy_s: accuracy?.eventAccuracyS ?? null, level: accuracy?.level ?? 0, grid_refine: accuracy?.gridRefine ?? 1,
     tolerance_divisor: accuracy?.toleranceDivisor ?? 1, tolerance_K: toleranceK, liquid_fraction_tolerance: liquidFractionTolerance,
     melt_ramp_K: accuracy?.meltRampK ?? 0, expected_error_s: accuracy?.expectedErrorS ?? null,
+    estimated_error_s: accuracy?.estimatedErrorS !== undefined && Number.isFinite(accuracy.estimatedErrorS) ? accuracy.estimatedErrorS : null,
   };
 }
 

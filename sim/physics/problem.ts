@@ -130,6 +130,13 @@ export interface AccuracyPlan {
   /** The file set its own grid / its own tolerances (expert keys win: used as given). */
   readonly ownGrid: boolean;
   readonly ownTolerances: boolean;
+  /**
+   * runProblem() climbs the ladder of levels below this plan, (0, 0), (1, 1), … (scenario/accuracy.ts ladderPlans),
+   * and stops at the first whose estimated event-time error is within the accuracy asked; this plan is the top rung.
+   */
+  readonly confirm?: boolean | undefined;
+  /** The event-time error estimated from the ladder's runs, s (scenario/accuracy.ts estimatedErrorS); absent: none. */
+  readonly estimatedErrorS?: number | undefined;
 }
 
 export interface Problem {
