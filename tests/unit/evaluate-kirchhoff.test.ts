@@ -1,0 +1,109 @@
+// evaluate() (grid/discretization.ts) reads each cell's k once per evaluation and lets the two half cells that meet
+// inside a layer share one Kirchhoff mean. Its conductances, their slopes and the net rates must be what the
+// definition gives half cell by half cell: halfCellConductivity() of grid/kirchhoff.ts (held against the closed-form
+// integral of a linear k and hand-computed trapezoids in kirchhoff.test.ts) in the series sum of the file's header
+// (Patankar, Numerical Heat Transfer and Fluid Flow, 1980, §4.2), to the bit, on random steep tables, across
+// solid, two-phase and liquid cells, layer boundaries and contact resistances.
+
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import type { StepConditions } from '../../sim/grid/discretization.ts';
+import { createWorkspace, evaluate } from '../../sim/grid/discretization.ts';
+import { halfCellConductivity, splitsConductivity } from '../../sim/grid/kirchhoff.ts';
+import type { Grid } from '../../sim/grid/mesh.ts';
+import type { Material } from '../../sim/physics/material.ts';
+import { buildMaterial, enthalpyAt } from '../../sim/physics/material.ts';
+
+const rows = fc.array(fc.tuple(fc.double({ min: 1, max: 40, noNaN: true }), fc.double({ min: 0.05, max: 400, noNaN: true })), { minLength: 1, maxLength: 6 });
+
+/** A material from random rows: temperatures 300 K upwards by the given gaps, k and c_p as drawn (c_p × 10). */
+function material(name: string, k: [number, number][], cp: number, melt: { solidusK: number; liquidusK: number; latentJPerKg: number } | undefined): Material {
+  let t = 300;
+  const tK = Float64Array.from(k, (r) => (t += r[0]));
+  return buildMaterial({
+    name, title: name, density: 2000, limits: [], sources: {},
+    conductivity: { tK, y: Float64Array.from(k, (r) => r[1]) },
+    specificHeat: { tK: Float64Array.of(300), y: Float64Array.of(cp) },
+    melt,
+  });
+}
+
+/** The series conductances and slopes as the definition reads them, half cell by half cell. */
+function reference(grid: Grid, U: Float64Array, T: Float64Array, tau: Float64Array) {
+  const n = grid.n;
+  const G = new Float64Array(n + 1);
+  const dRa = new Float64Array(n + 1);
+  const dRb = new Float64Array(n + 1);
+  const s = new Float64Array(2);
+  let halfBelow = 0;
+  let belowOwn = 0;
+  let belowNb = 0;
+  for (let i = 0; i < n; i++) {
+    const j = i + 1;
+    const m = grid.materials[i]!;
+    const melt = m.melt;
+    const dx = grid.dx[i]!;
+    let mush = 0;
+    if (melt !== undefined && U[j]! > melt.hSolidus && U[j]! < melt.hLiquidus && splitsConductivity(m)) {
+      const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus) : tau[j]! / (melt.liquidusK - melt.solidusK);
+      mush = 0.5 * dx * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
+    }
+    const kLo = halfCellConductivity(m, U[j]!, T[j]!, T[j - 1]!, s);
+    const cLo = (-0.5 * dx) / (kLo * kLo);
+    const loOwn = cLo * s[0]! * tau[j]! + mush;
+    const loNb = cLo * s[1]! * tau[j - 1]!;
+    const kUp = halfCellConductivity(m, U[j]!, T[j]!, T[j + 1]!, s);
+    const cUp = (-0.5 * dx) / (kUp * kUp);
+    G[i] = 1 / (halfBelow + (i === 0 ? 0 : grid.contactAbove[i - 1]!) + (0.5 * dx) / kLo);
+    dRa[i] = belowOwn + loNb;
+    dRb[i] = belowNb + loOwn;
+    halfBelow = (0.5 * dx) / kUp;
+    belowOwn = cUp * s[0]! * tau[j]! + mush;
+    belowNb = cUp * s[1]! * tau[j + 1]!;
+  }
+  G[n] = 1 / halfBelow;
+  dRa[n] = belowOwn;
+  dRb[n] = belowNb;
+  return { G, dRa, dRb };
+}
+
+describe('evaluate() against halfCellConductivity() per half cell', () => {
+  it('gives the same conductances and slopes to the bit on random steep tables and phases', () => {
+    fc.assert(fc.property(rows, rows, fc.boolean(), fc.array(fc.double({ min: 250, max: 700, noNaN: true }), { minLength: 9, maxLength: 9 }),
+      fc.array(fc.double({ min: 250, max: 700, noNaN: true }), { minLength: 2, maxLength: 2 }),
+      (k1, k2, isothermal, temps, faces) => {
+        // layer 0: no melt (5 cells); layer 1: a melt whose k follows its phase (4 cells), solidus 420 K
+        const plain = material('plain', k1, 900, undefined);
+        const salt = material('salt', k2, 1200, { solidusK: 420, liquidusK: isothermal ? 420 : 430, latentJPerKg: 2e5 });
+        const n = 9;
+        const materials = Array.from({ length: n }, (_, i) => (i < 5 ? plain : salt));
+        const dx = Float64Array.from({ length: n }, (_, i) => 1e-4 * (1 + (i % 3)));
+        const grid: Grid = {
+          n, dx, xc: new Float64Array(n), totalM: dx.reduce((a, b) => a + b, 0),
+          layerOf: Int32Array.from({ length: n }, (_, i) => (i < 5 ? 0 : 1)), materials,
+          contactAbove: Float64Array.from({ length: n }, (_, i) => (i === 4 ? 1e-4 : 0)),
+          layerStart: Int32Array.of(0, 5), layerEnd: Int32Array.of(5, 9),
+        };
+        const ws = createWorkspace(grid, { facing: 'down', lengthM: 0.01 }, { facing: 'up', lengthM: 0.01 });
+        const U = new Float64Array(n + 2);
+        U[0] = faces[0]!;
+        U[n + 1] = faces[1]!;
+        // cells two by two at one temperature now and then, so same-piece means (and mush cells) occur
+        for (let i = 0; i < n; i++) U[i + 1] = enthalpyAt(materials[i]!.enthalpy, temps[i % 3 === 2 ? i - 1 : i]!);
+        if (!isothermal) U[7] = (salt.melt!.hSolidus + salt.melt!.hLiquidus) / 2;
+        const cond: StepConditions = { bottom: { kind: 'fixed', tK: faces[0]! }, top: { kind: 'fixed', tK: faces[1]! }, source: new Float64Array(n) };
+        // twice, so the second evaluation starts its piece searches from the first one's pieces
+        evaluate(ws, U, cond);
+        for (let i = 1; i <= n; i++) U[i] = U[i]! * (1 + 1e-3 * ((i % 2) - 0.5));
+        evaluate(ws, U, cond);
+        const ref = reference(grid, U, ws.T, ws.tau);
+        expect(Array.from(ws.G)).toEqual(Array.from(ref.G));
+        expect(Array.from(ws.dRa)).toEqual(Array.from(ref.dRa));
+        expect(Array.from(ws.dRb)).toEqual(Array.from(ref.dRb));
+        for (let i = 0; i < n; i++) {
+          const j = i + 1;
+          expect(ws.F[i]).toBe(ref.G[j - 1]! * (ws.T[j - 1]! - ws.T[j]!) - ref.G[j]! * (ws.T[j]! - ws.T[j + 1]!) + 0);
+        }
+      }), { numRuns: 300, seed: 20261202 });
+  });
+});
