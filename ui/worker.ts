@@ -40,7 +40,7 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
     if (outcome.status === 'ok') {
       const { wire, transfer } = toWire(outcome.record);
       post({ type: 'done', job, record: wire, summary: outcome.summary, solveMs: performance.now() - started,
-        accuracy: accuracyLine(parsed.problem.numerics.accuracy) }, transfer);
+        accuracy: accuracyLine(outcome.problem.numerics.accuracy) }, transfer);
     } else if (outcome.status === 'failed') {
       post({ type: 'failed', job, message: `the solver stopped at t = ${formatNumber(outcome.tS)} s: ${outcome.message}` });
     }
