@@ -2,7 +2,8 @@
  * `npm run fuzz [-- --count N --seed S --timeout-s T --threads J --save DIR]`: runs N random valid scenarios
  * (tests/fuzz/arbitrary.ts) through the fuzz properties (tests/fuzz/check.ts) on worker threads, each with a time and
  * a heap limit, and prints the count by outcome, the slowest case and its time, and the peak memory. Every scenario
- * that breaks a property, times out or runs out of memory is written to DIR as JSON, with the property it broke.
+ * that breaks a property, stops at the run-time ceiling, times out or runs out of memory is written to DIR as JSON, with
+ * the property it broke.
  * Bundled by esbuild before it runs (package.json), like the benchmark. Figures only: it asserts nothing.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
@@ -62,6 +63,12 @@ const save = (index: number, why: string) => {
   saved++;
 };
 
+/**
+ * The stop at the run-time ceiling (budgetMessage, step-guards.ts): bounded, so not a timeout, but not a finish either
+ * (check.ts counts it a violation), so it is counted apart and saved.
+ */
+const WORK_BUDGET = /^the run reached its work budget/;
+
 /** A message without its numbers, so failures group by kind. */
 const kindOf = (message: string) => message.replace(/-?\d[\d.e+-]*/g, '#').slice(0, 90);
 
@@ -76,6 +83,7 @@ async function runOne(index: number): Promise<void> {
     if (o.kind === 'finished') bump('finished');
     else if (o.kind === 'stopped') bump(`stopped: ${kindOf(o.message)}`);
     else if (o.kind === 'refused') bump(`refused: ${kindOf(o.message)}`);
+    else if (WORK_BUDGET.test(o.message)) { bump('WORK BUDGET: stopped at the run-time ceiling (step-guards.ts)'); save(index, o.message); }
     else { bump(`VIOLATION: ${kindOf(o.message)}`); save(index, o.message); }
   } catch (e) {
     const message = (e as Error).message;

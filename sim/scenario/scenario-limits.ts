@@ -12,6 +12,7 @@ import { cellsInLayer } from '../grid/mesh.ts';
 import type { Numerics } from '../physics/problem.ts';
 import type { ScenarioFile } from './scenario-schema.ts';
 import { mmToM } from '../physics/units.ts';
+import { accuracyDefaults } from './accuracy.ts';
 
 export const scenarioLimitDefaults = {
   /** Characters of scenario text: a scenario within every other limit is well under 1 MB; this bounds the reader's memory. */
@@ -47,10 +48,20 @@ export const scenarioLimitDefaults = {
   /** Steps forced by max_step_s (duration_s / max_step_s): at ~0.25 ms a step on the demo, half a minute of work. */
   maxForcedSteps: 100_000,
   /**
-   * Cells × forced steps: the solver's own work budget (stepGuardDefaults.maxCellSteps, step-guards.ts), so a run
-   * that max_step_s alone would push past it is refused here instead of stopped mid-way.
+   * Cells × forced steps: the solver's run-time ceiling (stepGuardDefaults.maxCellSweeps, 4e7 cells × Newton sweeps,
+   * step-guards.ts) over the fewest sweeps a step can take (2, one per TR-BDF2 stage), so a run that max_step_s alone
+   * would push past the ceiling is refused here instead of stopped mid-way. (scenario/ may not import time/; a unit
+   * test holds the three numbers together.)
    */
-  maxForcedCellSteps: 5e7,
+  maxForcedCellSteps: 2e7,
+  /**
+   * Cells × the steps the tolerances need as accuracy.ts models them (1500 steps at the default tolerances, × 1.5 per
+   * division of a tolerance by 3): the budget accuracy.ts plans against (accuracyDefaults.workBudgetCellSteps), so a
+   * file's own tolerances are held to what a planned run may ask. The model is calibrated on examples/; a front that
+   * crosses a thick melting layer cell by cell costs more than it says (DEVELOPERS.md "Robustness"), which the
+   * run-time ceiling then stops.
+   */
+  maxModelledCellSteps: 5e7,
   /**
    * Smallest temperature tolerance, K. The Newton iterations stop at 1 % of it; below ~1e-6 K that meets the rounding
    * of the enthalpy (ε·ρc·T ≈ 2e-16 × 4e9 J/m³ ≈ 1e-6 J/m³, stiffly amplified), and the steps (∝ tol^−1/3) already
@@ -125,25 +136,54 @@ function cellKnob(s: ScenarioFile, i: number, count: number): string {
   return `layers[${i}].thickness_mm`;
 }
 
-/**
- * Work a valid scenario would ask for beyond the limits: total cells, and steps forced by `max_step_s`. `numerics`
- * are the scenario's own settings with the defaults filled in.
- */
-export function workErrors(s: ScenarioFile, numerics: Numerics): FieldError[] {
-  const counts = s.layers.map((l) => cellsInLayer(mmToM(l.thickness_mm), l.cells,
+/** Cells of the stack as the run will build it: each layer's count, times the accuracy plan's grid factor. */
+function cellCounts(s: ScenarioFile, numerics: Numerics): number[] {
+  const refine = numerics.accuracy?.gridRefine ?? 1;
+  return s.layers.map((l) => refine * cellsInLayer(mmToM(l.thickness_mm), l.cells,
     l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
     l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer));
-  const total = counts.reduce((a, b) => a + b, 0);
-  if (total > L.maxCells) {
+}
+
+/** The default tolerances (scenarioDefaults, scenario.ts, which imports this module). */
+export interface DefaultTolerances { readonly toleranceK: number; readonly liquidFractionTolerance: number }
+
+/**
+ * The steps the tolerances need as accuracy.ts models them, and the tolerance that sets them: 1500 at the defaults,
+ * × 1.5 per division by 3 of the tighter of the two (accuracyDefaults: trialsAtDefaults, trialsPerToleranceLevel,
+ * tolerancePerLevel, read at call time; accuracy.ts imports this module's limits).
+ */
+function modelledSteps(numerics: Numerics, defaults: DefaultTolerances): { steps: number; path: string; value: number } {
+  const a = accuracyDefaults;
+  const levelOf = (value: number, atDefault: number) => Math.max(0, Math.log(atDefault / value) / Math.log(a.tolerancePerLevel));
+  const kT = levelOf(numerics.toleranceK, defaults.toleranceK);
+  const kF = levelOf(numerics.liquidFractionTolerance, defaults.liquidFractionTolerance);
+  const [k, path, value] = kT >= kF
+    ? [kT, 'numerics.tolerance_K', numerics.toleranceK] as const
+    : [kF, 'numerics.liquid_fraction_tolerance', numerics.liquidFractionTolerance] as const;
+  return { steps: a.trialsAtDefaults * a.trialsPerToleranceLevel ** k, path, value };
+}
+
+/**
+ * Work a valid scenario would ask for beyond the limits: total cells, steps forced by `max_step_s`, and cells × the
+ * steps its tolerances need as modelled (against `defaults`, the default tolerances). `numerics` are the scenario's own settings with the defaults filled in and
+ * the accuracy plan applied (its grid factor multiplies the cells, its divisor is in the tolerances).
+ */
+export function workErrors(s: ScenarioFile, numerics: Numerics, defaults: DefaultTolerances): FieldError[] {
+  const base = s.layers.map((l) => cellsInLayer(mmToM(l.thickness_mm), l.cells,
+    l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
+    l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer));
+  const baseTotal = base.reduce((a, b) => a + b, 0);
+  if (baseTotal > L.maxCells) {
     // the schema has passed, so the id is at most maxIdChars long and is echoed whole
-    const worst = counts.indexOf(Math.max(...counts));
+    const worst = base.indexOf(Math.max(...base));
     const layer = s.layers[worst]!;
     return [{
-      path: cellKnob(s, worst, counts[worst]!),
-      message: `the stack would hold ${total} cells, ${counts[worst]} of them in layer ${JSON.stringify(layer.id)}; ` +
+      path: cellKnob(s, worst, base[worst]!),
+      message: `the stack would hold ${baseTotal} cells, ${base[worst]} of them in layer ${JSON.stringify(layer.id)}; ` +
         `the limit is ${L.maxCells} cells in all (scenarioLimitDefaults.maxCells)`,
     }];
   }
+  const total = cellCounts(s, numerics).reduce((a, b) => a + b, 0);
   const steps = s.duration_s / numerics.maxStepS;
   if (steps > L.maxForcedSteps) {
     return [{
@@ -156,7 +196,17 @@ export function workErrors(s: ScenarioFile, numerics: Numerics): FieldError[] {
     return [{
       path: 'numerics.max_step_s',
       message: `${total} cells × ${Math.ceil(steps)} forced steps = ${(steps * total).toPrecision(3)} cell-steps; the limit is ` +
-        `${L.maxForcedCellSteps} (scenarioLimitDefaults.maxForcedCellSteps): raise max_step_s or use fewer cells, got ${numerics.maxStepS}`,
+        `${L.maxForcedCellSteps.toExponential(0)} (scenarioLimitDefaults.maxForcedCellSteps, the run-time ceiling of about 15 s): ` +
+        `raise max_step_s to ≥ ${((s.duration_s * total) / L.maxForcedCellSteps).toPrecision(3)} s or use fewer cells, got ${numerics.maxStepS}`,
+    }];
+  }
+  const modelled = modelledSteps(numerics, defaults);
+  if (modelled.steps * total > L.maxModelledCellSteps) {
+    return [{
+      path: modelled.path,
+      message: `${total} cells × ${Math.round(modelled.steps)} steps (as modelled for this tolerance) = ${(modelled.steps * total).toPrecision(3)} ` +
+        `cell-steps; the limit is ${L.maxModelledCellSteps.toExponential(0)} (scenarioLimitDefaults.maxModelledCellSteps): loosen it or use fewer cells, ` +
+        `got ${modelled.value}`,
     }];
   }
   return [];

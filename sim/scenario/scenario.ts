@@ -253,7 +253,7 @@ function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefine
   if ('path' in planned) { errors.push(planned); return undefined; }
   const numerics = planned;
   // cells and forced steps beyond the limits are refused alone: the rest of the file may be fine
-  const work = workErrors(s, numerics);
+  const work = workErrors(s, numerics, scenarioDefaults);
   if (work.length > 0) { errors.push(...work); return undefined; }
   const materials = resolveMaterials(s, errors);
   const layers = buildLayers(s, materials, errors);

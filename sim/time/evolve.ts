@@ -25,7 +25,7 @@ import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
 import { growthFactor, retryStepS } from './step-control.ts';
-import { belowAbsoluteZeroMessage, budgetMessage, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
+import { belowAbsoluteZeroMessage, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
   /**
@@ -200,7 +200,6 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   let h = fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
   const adaptive = stepping.kind === 'adaptive';
-  const maxSteps = stepGuardDefaults.maxCellSteps / grid.n;
   while (t < durationS) {
     while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
     const target = breaks[nextBreak] ?? durationS;
@@ -210,8 +209,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     let landing = false;
     if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
     else if (adaptive && t + 2 * step > target) step = Math.max(0.5 * (target - t), Math.min(floor, target - t));
-    if (stats.steps + stats.rejected >= maxSteps) {
-      return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, t, durationS, step), tS: t, stats };
+    if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations)) {
+      return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS), tS: t, stats };
     }
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
     // (a floored step stretched by rounding to land on a breakpoint is still at the floor)

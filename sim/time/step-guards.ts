@@ -29,10 +29,24 @@ export const stepGuardDefaults = {
    */
   floorRelative: 1e-14,
   /**
-   * Work budget, cells × steps (accepted and rejected): about half a minute at the measured 4–8 M cell-updates/s with
-   * 4–8 Newton sweeps a step. A run needing more ends with a message saying what to change.
+   * Work budget, cells × steps tried (accepted and rejected). sim/scenario/accuracy.ts plans the grid and tolerances
+   * against this number (a unit test holds the two equal); at 2–9 Newton sweeps a step it allows more than
+   * maxCellSweeps, which is the ceiling that binds.
    */
   maxCellSteps: 5e7,
+  /**
+   * The run-time ceiling, cells × Newton sweeps (every sweep of every trial: accepted, rejected, or locating a state
+   * event): a sweep of one cell (evaluate, assemble, one tridiagonal solve) costs 0.2–0.4 µs on one core of this
+   * 2-core machine (measured on the seed 12 fuzz timeouts, DEVELOPERS.md "Robustness"), so a run at the ceiling ends
+   * within about 8–16 s. Per simulated second: a run of n cells over D s may average 4e7/(n·D) cell-sweeps per second
+   * of simulated time. A run needing more ends with a message naming the ceiling and what to change.
+   */
+  maxCellSweeps: 4e7,
+  /**
+   * Fewest Newton sweeps a TR-BDF2 step can take (one per stage): what turns a step count that max_step_s forces into
+   * sweeps when the ceiling is checked at validation (scenario-limits.ts).
+   */
+  minSweepsPerStep: 2,
 } as const;
 
 /** The smallest cell relaxation time C·Δx/(G₋ + G₊), s, at the state last evaluated into ws. */
@@ -90,9 +104,20 @@ export function faceBelowAbsoluteZero(ws: Workspace, cond: StepConditions, side:
   return faceHeatIn(c, side === 0 ? ws.bottomContext : ws.topContext, 0, scratch) + g * cellK < 0;
 }
 
-/** The message for a run that would need more work than the budget allows. */
-export function budgetMessage(cells: number, steps: number, tS: number, durationS: number, hS: number): string {
-  return `the run would exceed its step budget (${stepGuardDefaults.maxCellSteps.toExponential(0)} cells × steps: ${steps} steps of ${cells} cells reached t = ${formatTime(tS)} of ${formatTime(durationS)} s, the step near ${hS.toPrecision(2)} s); shorten duration_s, use fewer cells, or loosen numerics.tolerance_K`;
+/** Whether a run of `cells` cells that has tried `trials` steps and made `sweeps` Newton sweeps has used its budget. */
+export function budgetSpent(cells: number, trials: number, sweeps: number): boolean {
+  return cells * trials >= stepGuardDefaults.maxCellSteps || cells * sweeps >= stepGuardDefaults.maxCellSweeps;
+}
+
+/** The message for a run that has used its work budget (budgetSpent), naming the ceiling that bound. */
+export function budgetMessage(cells: number, trials: number, sweeps: number, tS: number, durationS: number): string {
+  const g = stepGuardDefaults;
+  const sweepsBind = cells * sweeps >= g.maxCellSweeps;
+  const spent = sweepsBind
+    ? `${cells} cells × ${sweeps} Newton sweeps; the limit is ${g.maxCellSweeps.toExponential(0)} cell-sweeps (stepGuardDefaults.maxCellSweeps, about 15 s)`
+    : `${cells} cells × ${trials} steps tried; the limit is ${g.maxCellSteps.toExponential(0)} cell-steps (stepGuardDefaults.maxCellSteps)`;
+  return `the run reached its work budget at t = ${formatTime(tS)} of ${formatTime(durationS)} s: ${spent}. ` +
+    'Use fewer cells, loosen numerics.tolerance_K or numerics.liquid_fraction_tolerance, or shorten duration_s';
 }
 
 const formatTime = (t: number): string => (t >= 1e5 || (t > 0 && t < 1e-3) ? t.toPrecision(4) : String(Number(t.toPrecision(6))));

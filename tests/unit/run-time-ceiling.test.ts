@@ -1,0 +1,102 @@
+// The run-time ceiling (issue 9, "Run time has a stated ceiling per cell and simulated second"): work that can be
+// bounded before a run (cells × the steps max_step_s forces, cells × the steps the tolerances need as accuracy.ts
+// models them, with the accuracy plan's grid factor counted) is refused at validation naming the field, the value and
+// the limit; a run that meets the ceiling mid-way ends with a message naming it. The limits are ours
+// (scenario-limits.ts, step-guards.ts); what the tests hold is that the three numbers agree with each other and that
+// each refusal and stop states the limit in force and the value given. No wall time is measured here.
+
+import { describe, expect, it } from 'vitest';
+import { accuracyDefaults } from '../../sim/scenario/accuracy.ts';
+import { parseScenario, scenarioDefaults } from '../../sim/scenario/scenario.ts';
+import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario/scenario-limits.ts';
+import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
+import { budgetMessage, budgetSpent, stepGuardDefaults as GUARD } from '../../sim/time/step-guards.ts';
+import { PLAIN, scenario } from '../support/scenarios.ts';
+
+/** One 10 mm layer of an invented material (40 cells at the default 4 cells/mm), held hot below, cooled above. */
+const plate = (numerics: ScenarioFile['numerics'] = {}): ScenarioFile => scenario({
+  duration_s: 1000, materials: { m: PLAIN },
+  layers: [{ id: 'slab', material: 'm', thickness_mm: 10 }],
+  bottom: [{ from_s: 0, fixed_C: 200 }], top: [{ from_s: 0, convection_W_m2K: 10 }],
+  numerics,
+});
+
+function onlyError(s: ScenarioFile): { path: string; message: string } {
+  const parsed = parseScenario(s);
+  expect(parsed.ok, 'the scenario was accepted').toBe(false);
+  const errors = parsed.ok ? [] : parsed.errors;
+  expect(errors, JSON.stringify(errors)).toHaveLength(1);
+  return errors[0]!;
+}
+
+describe('run-time ceiling: the limits agree', () => {
+  it('max_step_s may not force more cell-steps than the ceiling in cell-sweeps allows at the fewest sweeps a step takes', () => {
+    expect(LIMIT.maxForcedCellSteps * GUARD.minSweepsPerStep).toBeLessThanOrEqual(GUARD.maxCellSweeps);
+    expect(LIMIT.maxForcedCellSteps).toBeLessThanOrEqual(GUARD.maxCellSteps);
+  });
+
+  it('the modelled-steps limit is the budget accuracy.ts plans against', () => {
+    expect(LIMIT.maxModelledCellSteps).toBe(accuracyDefaults.workBudgetCellSteps);
+  });
+});
+
+describe('parseScenario() refuses work beyond the ceiling', () => {
+  it('accepts the plate at its defaults and at max_step_s that forces 1e5 steps of its 40 cells', () => {
+    expect(parseScenario(plate()).ok).toBe(true);
+    // 40 cells × 1e5 steps = 4e6 cell-steps, within 2e7
+    expect(parseScenario(plate({ max_step_s: 0.01 })).ok).toBe(true);
+  });
+
+  it('counts the cells of the accuracy plan\'s refined grid in cells × forced steps, naming max_step_s and the step that fits', () => {
+    const planned = parseScenario(plate({ event_accuracy_s: 0.2 }));
+    expect(planned.ok).toBe(true);
+    const refine = planned.ok ? planned.problem.numerics.accuracy!.gridRefine : 0;
+    const cells = 40 * refine;
+    // 1e5 forced steps: the level-0 grid (40 cells, 4e6 cell-steps) fits; the refined one must not
+    expect(40 * 1e5).toBeLessThan(LIMIT.maxForcedCellSteps);
+    expect(cells * 1e5).toBeGreaterThan(LIMIT.maxForcedCellSteps);
+    const e = onlyError(plate({ event_accuracy_s: 0.2, max_step_s: 0.01 }));
+    expect(e.path).toBe('numerics.max_step_s');
+    expect(e.message).toContain(`${cells} cells × 100000 forced steps`);
+    expect(e.message).toContain('the limit is 2e+7 (scenarioLimitDefaults.maxForcedCellSteps');
+    // the smallest max_step_s that fits: duration × cells / limit
+    expect(e.message).toContain(`raise max_step_s to ≥ ${((1000 * cells) / LIMIT.maxForcedCellSteps).toPrecision(3)} s`);
+    expect(e.message).toMatch(/got 0\.01$/);
+  });
+
+  it('refuses a file\'s own tolerance whose modelled steps times the cells pass the budget, naming the tolerance that sets them', () => {
+    // 1e-6 K is 2e5× tighter than the default 0.2 K: 11.1 levels of ÷3, 1500 × 1.5^11.1 ≈ 1.35e5 steps modelled;
+    // × 400 cells (cells: 400) = 5.4e7 cell-steps, past 5e7
+    const tightK = plate({ tolerance_K: 1e-6 });
+    tightK.layers[0]!.cells = 400;
+    const levels = Math.log(scenarioDefaults.toleranceK / 1e-6) / Math.log(3);
+    const steps = accuracyDefaults.trialsAtDefaults * accuracyDefaults.trialsPerToleranceLevel ** levels;
+    expect(400 * steps).toBeGreaterThan(LIMIT.maxModelledCellSteps);
+    const e = onlyError(tightK);
+    expect(e.path).toBe('numerics.tolerance_K');
+    expect(e.message).toBe(`400 cells × ${Math.round(steps)} steps (as modelled for this tolerance) = ${(400 * steps).toPrecision(3)} cell-steps; ` +
+      'the limit is 5e+7 (scenarioLimitDefaults.maxModelledCellSteps): loosen it or use fewer cells, got 0.000001');
+    // the same tolerance on 40 cells fits
+    expect(parseScenario(plate({ tolerance_K: 1e-6 })).ok).toBe(true);
+    // the liquid-fraction tolerance is named when it is the tighter of the two (1e-8 is 4e5× the default 0.004)
+    const tightF = plate({ liquid_fraction_tolerance: 1e-8 });
+    tightF.layers[0]!.cells = 400;
+    expect(onlyError(tightF).path).toBe('numerics.liquid_fraction_tolerance');
+  });
+});
+
+describe('the ceiling mid-run', () => {
+  it('budgetSpent() binds at cells × sweeps = maxCellSweeps, or at cells × steps tried = maxCellSteps', () => {
+    const cells = 1000;
+    expect(budgetSpent(cells, 10, GUARD.maxCellSweeps / cells - 1)).toBe(false);
+    expect(budgetSpent(cells, 10, GUARD.maxCellSweeps / cells)).toBe(true);
+    expect(budgetSpent(cells, GUARD.maxCellSteps / cells, 0)).toBe(true);
+  });
+
+  it('budgetMessage() names the time reached, the work spent, the limit and what to change', () => {
+    expect(budgetMessage(2000, 4000, 20_000, 8.75, 78)).toBe('the run reached its work budget at t = 8.75 of 78 s: 2000 cells × 20000 Newton ' +
+      'sweeps; the limit is 4e+7 cell-sweeps (stepGuardDefaults.maxCellSweeps, about 15 s). Use fewer cells, loosen numerics.tolerance_K ' +
+      'or numerics.liquid_fraction_tolerance, or shorten duration_s');
+    expect(budgetMessage(10, 5e6, 1e6, 1e6, 3e6)).toContain('10 cells × 5000000 steps tried; the limit is 5e+7 cell-steps (stepGuardDefaults.maxCellSteps)');
+  });
+});
