@@ -232,10 +232,30 @@ function classifyConductivity(ws: Workspace, U: Float64Array): void {
     kRegion[i] = K_TABLE;
     kFloor[i] = lo;
     kCeiling[i] = hi;
-    const piece = pieceAt(ws, i, i + 1);
+    // pieceAt() and valueAt() written out here, the loop's hot path (calls the JIT leaves out of line cost more than
+    // their bodies)
+    const xs = table.tK;
+    const last = xs.length - 1;
+    const t = T[i + 1]!;
+    let piece: number;
+    if (t <= lo || t <= xs[0]!) piece = -1;
+    else if (t >= hi || t >= xs[last]!) piece = last;
+    else {
+      const hint = kPiece[i]!;
+      piece = hint < 0 ? 0 : hint >= last ? last - 1 : hint;
+      while (piece > 0 && xs[piece]! > t) piece--;
+      while (piece + 1 < last && xs[piece + 1]! <= t) piece++;
+    }
     kPiece[i] = piece;
-    valueAt(ws, i, i + 1, piece);
-    kValue[i] = kOut[3]!;
+    if (piece < 0 || piece >= last) {
+      valueAt(ws, i, i + 1, piece);
+      kValue[i] = kOut[3]!;
+    } else {
+      const y = table.y;
+      const x0 = xs[piece]!;
+      const y0 = y[piece]!;
+      kValue[i] = y0 + ((y[piece + 1]! - y0) * (t - x0)) / (xs[piece + 1]! - x0);
+    }
   }
 }
 
@@ -341,7 +361,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above). Two cells of one
   // layer that read k on the same clamped table share the mean of their common face (one evaluation, slopes swapped)
   classifyConductivity(ws, U);
-  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSplits, kTableId, hSolidus, hLiquidus, kOut } = ws;
+  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSplits, kTableId, hSolidus, hLiquidus, kOut, kSlopes } = ws;
   const { mushResistivity, meltWidthK, jumpDfdH } = ws;
   const contactAbove = grid.contactAbove;
   let halfBelow = 0;
@@ -386,8 +406,18 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     const next = i + 1;
     if (next < n && kRegion[i] === K_TABLE && kRegion[next] === K_TABLE && kTableId[next] === kTableId[i]
       && kFloor[i] === kFloor[next] && kCeiling[i] === kCeiling[next]) {
-      kOut[3] = kValue[next]!;
-      meanOf(ws, i, j, j + 1, kPiece[next]!);
+      const piece = kPiece[i]!;
+      if (piece === kPiece[next]!) {
+        // meanOf()'s same-piece case written out (the common one: the two temperatures on one piece of the table)
+        const slopes = kSlopes[i]!;
+        const half = 0.5 * (piece >= 0 && piece < slopes.length ? slopes[piece]! : 0);
+        kOut[0] = half;
+        kOut[1] = half;
+        kOut[2] = 0.5 * (kValue[i]! + kValue[next]!);
+      } else {
+        kOut[3] = kValue[next]!;
+        meanOf(ws, i, j, j + 1, kPiece[next]!);
+      }
       shared = true;
     } else {
       halfTowards(ws, i, j + 1);
