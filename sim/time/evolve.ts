@@ -162,6 +162,11 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     return c;
   };
 
+  // time is kept as the last instant landed on (a breakpoint or a state event, exact) plus the time stepped since: right
+  // after a face switches at t = 1e7 s a step of 1e-12 s then still advances (t + h = t in one double below 2.2e-9 s),
+  // so the smallest step follows the cell relaxation time alone, not a share of t (step-guards.ts)
+  let base = 0;
+  let offset = 0;
   let t = 0;
   let nextBreak = 0;
   for (const node of ws.plates) node.tK = problem.initialK;
@@ -203,12 +208,13 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   while (t < durationS) {
     while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
     const target = breaks[nextBreak] ?? durationS;
-    const floor = Math.max(floorS, stepGuardDefaults.floorRelative * t);
+    const floor = Math.max(floorS, stepGuardDefaults.floorRelative * offset);
+    const remaining = target - base - offset;
     const floored = adaptive && h <= floor;
     let step = Math.min(fixedStepS ?? Math.max(h, floor), numerics.maxStepS);
     let landing = false;
-    if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
-    else if (adaptive && t + 2 * step > target) step = Math.max(0.5 * (target - t), Math.min(floor, target - t));
+    if (step * (1 + d.landShare) >= remaining) { step = remaining; landing = true; }
+    else if (adaptive && 2 * step > remaining) step = Math.max(0.5 * remaining, Math.min(floor, remaining));
     if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations)) {
       return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS), tS: t, stats };
     }
@@ -241,18 +247,18 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     if (atFloor) stats.forced++;
     plates.afterTrial();
     const armed = watch.armed();
-    const gEnd = armed < 0 ? watch.highest(ws, t + step) : -Infinity;
+    const gEnd = armed < 0 ? watch.highest(ws, base + (offset + step)) : -Infinity;
     const switched = gEnd >= 0;
     if (switched) {
       // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
-      const from = t;
+      const fromOffset = offset;
       const trial = (s: number): number | undefined => {
         takeStep(line, buf, s, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
         stats.newtonIterations += outcome.newtonIterations;
         stats.eventTrials++;
         if (outcome.status !== 'ok') return undefined;
         plates.afterTrial();
-        return watch.highest(ws, from + s);
+        return watch.highest(ws, base + (fromOffset + s));
       };
       const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials);
       if (found.lastS !== found.s) trial(found.s);
@@ -260,7 +266,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       landing = false;
       stats.events++;
     }
-    const t1 = landing ? target : t + step;
+    const t1 = landing ? target : base + (offset + step);
     if (coldestK(ws.T) < 0) {
       // where the coldest node crossed 0 K, by linear interpolation over the step
       const before = coldestK(line.T0);
@@ -274,7 +280,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     const faceJ = (side: 0 | 1): number => ((side === 0 ? cond.bottom : cond.top).kind === 'heater'
       ? -plateSteps[side].lossJ : stepFaceEnergy(buf, side, step, euler));
     yield {
-      t0: t, tg: t + (euler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
+      t0: t, tg: base + (offset + (euler ? step : step * STAGE_FRACTION)), t1, buf, ws, cond,
       bottomJ: faceJ(0),
       topJ: faceJ(1),
       plates: plateSteps,
@@ -292,6 +298,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       rejectedLast = false;
     }
     t = t1;
+    if (landing || switched) { base = t1; offset = 0; } else offset += step;
     if (landing && t < durationS) {
       const before = cond;
       cond = readConditions(t, before);

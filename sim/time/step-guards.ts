@@ -22,10 +22,12 @@ export const stepGuardDefaults = {
    */
   floorShare: 1e-3,
   /**
-   * …and never below this share of the time reached, so that t + h differs from t in double precision (ε ≈ 2.2e-16:
-   * 45 ulps; the step the integrator takes is exact, t drifts by at most half an ulp per floored step). 1e-12 was
-   * 4500 ulps and, after a held face switched at t = 1e6 s, a floor of 1e-6 s, far above a thin cell's relaxation time:
-   * a whole melting layer crossed its melt in one floored step and Newton failed (fuzz seed 11 cases 1615, 1492).
+   * …and never below this share of the time stepped since the last instant landed on (a breakpoint or a state event:
+   * evolve.ts keeps time as that instant plus an offset), so that offset + h differs from the offset in double
+   * precision (ε ≈ 2.2e-16: 45 ulps). A share of t itself was 1e-7 s at t = 1e7 s, far above a thin cell's relaxation
+   * time: right after a held face switched there a whole melting layer crossed its melt within one floored step and
+   * Newton failed (fuzz seed 11 cases 1615, 1492 at 1e-12·t; seed 12 cases 338, 1048, 2893, 3009, 3678, 3895, 4734,
+   * 6555 at 1e-14·t). Right after a landing the offset is 0 and the floor is the cell's own.
    */
   floorRelative: 1e-14,
   /**
