@@ -87,6 +87,11 @@ export const accuracyDefaults = {
    * order of the event times in the refinement of one rung, 1 (the enthalpy method resolves a front to a cell; the
    * time part falls about as fast per rung, see above), the most the observed order may claim.
    */
+  /**
+   * A rung of the ladder is tried only when its modelled work is at most this share of the plan's (ladderPlans): a rung
+   * costs the run its own work besides the plan's when the climb goes on, so a rung about as dear as the plan saves little.
+   */
+  ladderWorthShare: 0.5,
   safetyTwoRuns: 3,
   safetyThreeRuns: 1.25,
   formalOrder: 1,
@@ -134,7 +139,7 @@ export function accuracyPlan(ask: AccuracyAsk): AccuracyPlan | { readonly error:
   if ('error' in best) return best;
   const { level, tolLevel } = best;
   const ramp = level === 0 && tolLevel === 0 ? 0 : d.meltRampK * Math.min(1, asked / d.eventAccuracyS);
-  return {
+  return withConfirm({
     eventAccuracyS: asked,
     level,
     gridRefine: ask.ownGrid ? 1 : d.gridPerLevel ** level,
@@ -143,9 +148,12 @@ export function accuracyPlan(ask: AccuracyAsk): AccuracyPlan | { readonly error:
     expectedErrorS: modelledErrorS(D, level, tolLevel),
     ownGrid: ask.ownGrid,
     ownTolerances: ask.ownTolerances,
-    // an accuracy asked whose plan refines: runProblem() tries the rungs below it first (ladderPlans)
-    confirm: free && (level > 0 || tolLevel > 0),
-  };
+  }, free, D);
+}
+
+/** The plan of accuracyPlan(), with whether runProblem() is to climb to it: an accuracy asked, and a rung below worth trying. */
+function withConfirm(plan: AccuracyPlan, free: boolean, durationS: number): AccuracyPlan {
+  return { ...plan, confirm: free && ladderPlans(plan, durationS).length > 1 };
 }
 
 /**
@@ -153,14 +161,21 @@ export function accuracyPlan(ask: AccuracyAsk): AccuracyPlan | { readonly error:
  * level min(i, k) of the plan's (ℓ, k), so each rung halves both modelled parts of the one below until it reaches the
  * plan, the last rung. Rung 0 is the defaults (the curve as written), the others carry the plan's melt ramp. Each rung
  * states its own modelled error and does not confirm again. `durationS`: the run's duration (the rule's scale).
+ * A rung between 0 and the plan whose modelled work is above ladderWorthShare of the plan's is left out (it would
+ * cost about as much as the plan and save little: measured on the benchmark's scenario at 0.3 s, plan (1, 2), the
+ * rungs (0, 0) and (1, 1) before it doubled the time), and rung 0 too when no rung is left between it and the plan:
+ * then the plan is the only rung, solved as it is.
  */
 export function ladderPlans(plan: AccuracyPlan, durationS: number): AccuracyPlan[] {
   const d = accuracyDefaults;
-  const top = Math.max(plan.level, toleranceLevelOf(plan));
+  const K = toleranceLevelOf(plan);
+  const top = Math.max(plan.level, K);
+  const work = (l: number, k: number) => (d.gridPerLevel * d.trialsPerGridLevel) ** l * d.trialsPerToleranceLevel ** k;
   const rungs: AccuracyPlan[] = [];
   for (let i = 0; i <= top; i++) {
     const level = Math.min(i, plan.level);
-    const tolLevel = Math.min(i, toleranceLevelOf(plan));
+    const tolLevel = Math.min(i, K);
+    if (i > 0 && i < top && work(level, tolLevel) > d.ladderWorthShare * work(plan.level, K)) continue;
     rungs.push({
       ...plan,
       level,
@@ -171,7 +186,8 @@ export function ladderPlans(plan: AccuracyPlan, durationS: number): AccuracyPlan
       confirm: false,
     });
   }
-  return rungs;
+  // rung 0 alone below the plan cannot be returned (a rung needs one below it for its estimate): solve the plan only
+  return rungs.length === 2 ? rungs.slice(1) : rungs;
 }
 
 /** The tolerance level of a plan (its divisor is tolerancePerLevel to that power; 0 with the file's own tolerances). */

@@ -106,9 +106,14 @@ describe('the ladder runProblem() climbs for an accuracy asked', () => {
     expect(rungs.map((r) => [r.level, r.gridRefine, r.toleranceDivisor, r.confirm])).toEqual([[0, 1, 1, false], [1, 2, 3, false], [2, 4, 9, false], [3, 8, 27, false]]);
     expect(rungs.map((r) => r.meltRampK)).toEqual([0, plan.meltRampK, plan.meltRampK, plan.meltRampK]);
     rungs.forEach((r, i) => assertClose(r.expectedErrorS, 0.63 / 2 ** i, { rel: 1e-12 }, `rung ${i} modelled error`));
-    // a plan whose levels differ: (1, 2) climbs (0, 0), (1, 1), (1, 2)
+    // modelled work 6^l × 1.5^k (cells × 2 and steps × 1.5 per grid level, steps × 1.5 per tolerance level) against
+    // the plan's: (3, 3) 91, rung 2 20.25 and rung 1 4.5 are within half of it, kept. (1, 2): 6.75; its rung (1, 1),
+    // 4.5, is above half, left out, and rung 0 alone below the plan cannot be returned: the plan is the only rung
     const uneven = ladderPlans({ ...plan, level: 1, gridRefine: 2, toleranceDivisor: 9 }, 600);
-    expect(uneven.map((r) => [r.level, r.toleranceDivisor])).toEqual([[0, 1], [1, 3], [1, 9]]);
+    expect(uneven.map((r) => [r.level, r.toleranceDivisor])).toEqual([[1, 9]]);
+    // (3, 1): 216 × 1.5 = 324; rung 1 (1, 1) 9, rung 2 (2, 1) 54 are kept, and rung 3 is the plan
+    const grid = ladderPlans({ ...plan, level: 3, gridRefine: 8, toleranceDivisor: 3 }, 600);
+    expect(grid.map((r) => [r.level, r.toleranceDivisor])).toEqual([[0, 1], [1, 3], [2, 3], [3, 3]]);
   });
 
   it('accuracyPlan() asks for a confirmation only when an accuracy is asked and the plan refines', () => {
@@ -120,7 +125,9 @@ describe('the ladder runProblem() climbs for an accuracy asked', () => {
     };
     expect(confirm({ eventAccuracyS: undefined })).toBe(false); // the default: level 0, as before the key
     expect(confirm({ eventAccuracyS: 1 })).toBe(false); // 0.63 s at level 0 is within 1 s
-    expect(confirm({ eventAccuracyS: 0.1 })).toBe(true);
+    expect(confirm({ eventAccuracyS: 0.1 })).toBe(true); // (3, 3): the ladder (0, 0) … (3, 3)
+    // 0.3 s: (1, 2) (0.225 + 0.045 = 0.27 s; (1, 1) misses at 0.315 s, (2, 1) costs 13.5 against 6.75): no rung worth it
+    expect(confirm({ eventAccuracyS: 0.3 })).toBe(false);
     expect(confirm({ eventAccuracyS: 0.1, ownGrid: true, ownTolerances: true })).toBe(false);
   });
 
