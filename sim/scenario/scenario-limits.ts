@@ -23,8 +23,9 @@ export const scenarioLimitDefaults = {
   maxLayers: 200,
   /**
    * Cells in all: eight 100 mm separators at the default 16 cells/mm (12 800), or 5 µm across 100 mm; a guard against
-   * memory, not a promise of speed. Measured: the demo at 18 900 cells peaked at 174 MB and met the solver's work
-   * budget (5e7 cell-steps, step-guards.ts) after 2646 steps, t = 43 s of 3600 s, which stopped it with a message.
+   * memory, not a promise of speed. Measured: the demo at 18 900 cells peaked at 174 MB and met the solver's old work
+   * budget (5e7 cell-steps) after 2646 steps, t = 43 s of 3600 s, which stopped it with a message; the run-time ceiling
+   * (4e7 cell-sweeps, step-guards.ts) now stops it after 4e7 / 18 900 ≈ 2100 Newton sweeps (computed, not measured).
    */
   maxCells: 20_000,
   /** Requested output times: each one keeps a full temperature profile and a column of every probe in the result. */
@@ -45,7 +46,10 @@ export const scenarioLimitDefaults = {
   maxNameChars: 200,
   /** Longest run, s (about three years): a stack of millimetres reaches steady state within hours. */
   maxDurationS: 1e8,
-  /** Steps forced by max_step_s (duration_s / max_step_s): at ~0.25 ms a step on the demo, half a minute of work. */
+  /**
+   * Steps forced by max_step_s (duration_s / max_step_s): at ~0.25 ms a step on the demo, half a minute of work; with
+   * more than 100 cells maxForcedCellSteps binds first.
+   */
   maxForcedSteps: 100_000,
   /**
    * Cells × forced steps: the solver's run-time ceiling (stepGuardDefaults.maxCellSweeps, 4e7 cells × Newton sweeps,
