@@ -48,7 +48,7 @@ export const scenarioLimitDefaults = {
   maxDurationS: 1e8,
   /**
    * Steps forced by max_step_s (duration_s / max_step_s): at ~0.25 ms a step on the demo, half a minute of work; with
-   * more than 100 cells maxForcedCellSteps binds first.
+   * more than 200 cells maxForcedCellSteps (2e7) binds first.
    */
   maxForcedSteps: 100_000,
   /**
