@@ -58,11 +58,15 @@ export function plumeRisesFromFace(facing: Facing, tK: number, fluidK: number): 
   return (facing === 'up') === (tK > fluidK);
 }
 
-/** A Nusselt number and its elasticity d ln Nu / d ln Ra. */
-interface NuSlope { nu: number; e: number }
+/**
+ * Where the correlations below leave a Nusselt number and its elasticity d ln Nu / d ln Ra: [Nu, e]. They write
+ * here and return nothing, since an object or a double returned from a call the JIT does not inline is allocated on
+ * the heap (this ran once per face and Newton sweep).
+ */
+const nuSlope = new Float64Array(2);
 
-/** Raithby & Hollands, hot face up (thick-layer laminar blended with turbulent), with its elasticity. */
-function raithbyHollandsUpWithSlope(ra: number, pr: number): NuSlope {
+/** Raithby & Hollands, hot face up (thick-layer laminar blended with turbulent), with its elasticity, to nuSlope. */
+function raithbyHollandsUpWithSlope(ra: number, pr: number): void {
   const cl = 0.671 / (1 + (0.492 / pr) ** (9 / 16)) ** (4 / 9);
   const nuT = 0.835 * cl * ra ** 0.25;
   const nuL = 1.4 / Math.log(1 + 1.4 / nuT);
@@ -71,47 +75,83 @@ function raithbyHollandsUpWithSlope(ra: number, pr: number): NuSlope {
   const a = nuL ** 10;
   const b = nuTurb ** 10;
   const nu = (a + b) ** 0.1;
-  if (nu < naturalConvectionDefaults.conductionFloorNu) return { nu: naturalConvectionDefaults.conductionFloorNu, e: 0 };
-  return { nu, e: (a * eL + (b * 1) / 3) / (a + b) };
+  if (nu < naturalConvectionDefaults.conductionFloorNu) {
+    nuSlope[0] = naturalConvectionDefaults.conductionFloorNu;
+    nuSlope[1] = 0;
+    return;
+  }
+  nuSlope[0] = nu;
+  nuSlope[1] = (a * eL + (b * 1) / 3) / (a + b);
 }
 
 /** Raithby & Hollands, hot face down (thick-layer form), capped at the up-facing value, with its elasticity. */
-function raithbyHollandsDownWithSlope(ra: number, pr: number): NuSlope {
+function raithbyHollandsDownWithSlope(ra: number, pr: number): void {
   const nuT = (0.527 * ra ** 0.2) / (1 + (1.9 / pr) ** 0.9) ** (2 / 9);
   const nu = 2.5 / Math.log(1 + 2.5 / nuT);
-  const up = raithbyHollandsUpWithSlope(ra, pr);
-  return nu > up.nu ? up : { nu, e: (0.2 * nu) / (nuT + 2.5) };
+  raithbyHollandsUpWithSlope(ra, pr);
+  if (nu > nuSlope[0]!) return; // the up-facing value and its elasticity stand
+  nuSlope[0] = nu;
+  nuSlope[1] = (0.2 * nu) / (nuT + 2.5);
 }
 
 /** Raithby & Hollands (1998), hot face up or cold face down. */
-export const raithbyHollandsUp = (ra: number, pr: number): number => raithbyHollandsUpWithSlope(ra, pr).nu;
+export const raithbyHollandsUp = (ra: number, pr: number): number => {
+  raithbyHollandsUpWithSlope(ra, pr);
+  return nuSlope[0]!;
+};
 /** Raithby & Hollands (1998), hot face down or cold face up, capped at the up-facing value. */
-export const raithbyHollandsDown = (ra: number, pr: number): number => raithbyHollandsDownWithSlope(ra, pr).nu;
+export const raithbyHollandsDown = (ra: number, pr: number): number => {
+  raithbyHollandsDownWithSlope(ra, pr);
+  return nuSlope[0]!;
+};
 
-/** The textbook power laws (Incropera eqs. 9.30–9.32) with their exponents. */
-function textbookWithSlope(ra: number, plumeRises: boolean): NuSlope {
-  if (!plumeRises) return { nu: 0.52 * ra ** 0.2, e: 0.2 };
-  return ra <= naturalConvectionRanges.upperFacing.switch ? { nu: 0.54 * ra ** 0.25, e: 0.25 } : { nu: 0.15 * Math.cbrt(ra), e: 1 / 3 };
+/** The textbook power laws (Incropera eqs. 9.30–9.32) with their exponents, to nuSlope. */
+function textbookWithSlope(ra: number, plumeRises: boolean): void {
+  if (!plumeRises) {
+    nuSlope[0] = 0.52 * ra ** 0.2;
+    nuSlope[1] = 0.2;
+  } else if (ra <= naturalConvectionRanges.upperFacing.switch) {
+    nuSlope[0] = 0.54 * ra ** 0.25;
+    nuSlope[1] = 0.25;
+  } else {
+    nuSlope[0] = 0.15 * Math.cbrt(ra);
+    nuSlope[1] = 1 / 3;
+  }
 }
 
 const LN10 = Math.log(10);
 
-/** Nusselt number in force and its elasticity: Raithby–Hollands below the blend band, textbook above, smooth between. */
-function nusseltWithSlope(ra: number, pr: number, plumeRises: boolean): NuSlope {
+/**
+ * Nusselt number in force and its elasticity, to nuSlope: Raithby–Hollands below the blend band, textbook above,
+ * smooth between.
+ */
+function nusseltWithSlope(ra: number, pr: number, plumeRises: boolean): void {
   const { blendLowRa, blendHighRa } = naturalConvectionDefaults;
-  if (ra >= blendHighRa) return textbookWithSlope(ra, plumeRises);
-  const low = plumeRises ? raithbyHollandsUpWithSlope(ra, pr) : raithbyHollandsDownWithSlope(ra, pr);
-  if (ra <= blendLowRa) return low;
-  const high = textbookWithSlope(ra, plumeRises);
+  if (ra >= blendHighRa) {
+    textbookWithSlope(ra, plumeRises);
+    return;
+  }
+  if (plumeRises) raithbyHollandsUpWithSlope(ra, pr);
+  else raithbyHollandsDownWithSlope(ra, pr);
+  if (ra <= blendLowRa) return;
+  const lowNu = nuSlope[0]!;
+  const lowE = nuSlope[1]!;
+  textbookWithSlope(ra, plumeRises);
+  const highNu = nuSlope[0]!;
+  const highE = nuSlope[1]!;
   const s = Math.log(ra / blendLowRa) / Math.log(blendHighRa / blendLowRa);
   const w = s * s * (3 - 2 * s);
   const dwdLnRa = (6 * s * (1 - s)) / (LN10 * Math.log10(blendHighRa / blendLowRa));
-  const nu = (1 - w) * low.nu + w * high.nu;
-  return { nu, e: ((1 - w) * low.nu * low.e + w * high.nu * high.e + (high.nu - low.nu) * dwdLnRa) / nu };
+  const nu = (1 - w) * lowNu + w * highNu;
+  nuSlope[0] = nu;
+  nuSlope[1] = ((1 - w) * lowNu * lowE + w * highNu * highE + (highNu - lowNu) * dwdLnRa) / nu;
 }
 
 /** Nusselt number of the correlation in force at Rayleigh number ra and Prandtl number pr. */
-export const nusselt = (ra: number, pr: number, plumeRises: boolean): number => nusseltWithSlope(ra, pr, plumeRises).nu;
+export const nusselt = (ra: number, pr: number, plumeRises: boolean): number => {
+  nusseltWithSlope(ra, pr, plumeRises);
+  return nuSlope[0]!;
+};
 
 const slopeScratch = new Float64Array(1);
 
@@ -146,7 +186,9 @@ export function naturalConvectionIn(facing: Facing, tK: number, fluidK: number, 
   const dT = tK - fluidK;
   // the same expression as rayleigh() and airPrandtl(), from the same table values
   const ra = (STANDARD_GRAVITY_M_S2 * Math.abs(dT) * lengthM ** 3) / (film * nuAir * alpha);
-  const { nu, e } = nusseltWithSlope(ra, nuAir / alpha, plumeRisesFromFace(facing, tK, fluidK));
+  nusseltWithSlope(ra, nuAir / alpha, plumeRisesFromFace(facing, tK, fluidK));
+  const nu = nuSlope[0]!;
+  const e = nuSlope[1]!;
   const h = (nu * k) / lengthM;
   const dLnRa = 1 / dT - 0.5 * (1 / film + dNuAir / nuAir + dAlpha / alpha);
   const dLnH = e * dLnRa + (0.5 * dK) / k;
