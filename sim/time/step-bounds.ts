@@ -1,0 +1,51 @@
+/**
+ * The discrete maximum principle on one step: with no heat put in over the step (no imposed flux or heater power, no
+ * volumetric source, no cell terms, no heater or bench face), every temperature at its end lies between the least and
+ * the greatest of the temperatures at its start and of the temperatures the faces exchange heat with (a held value, a
+ * fluid, the surroundings, a plate). Backward Euler keeps that bound for any step (its stage matrix is an M-matrix,
+ * Patankar 1980 §4.3); TR-BDF2 does not: its stability function R(z) = (A·(1 + d·z)/(1 − d·z) − Bb)/(1 − d·z) dips to
+ * 1/2 − 1/√2 ≈ −0.207 at z = h·λ ≈ −8.2 on the negative real axis (computed from the method's coefficients,
+ * tr-bdf2.ts; Hosea & Shampine 1996, §2, note that it is negative there), so a cell whose relaxation time is about an
+ * eighth of the step undershoots by up to a fifth of a jump it sees, which the error estimate accepts while it is below
+ * tolerance_K (fuzz seed 12 case 8911: 2.3 K below a plate at −60 °C with tolerance_K 5). evolve.ts redoes such a step
+ * by backward Euler.
+ */
+import type { StepConditions } from '../grid/discretization.ts';
+import type { FaceCondition } from '../physics/problem.ts';
+
+/** The range of temperatures a face condition exchanges heat with, widened into [lohi[0], lohi[1]]; false if it puts heat in. */
+function faceRange(c: FaceCondition, lohi: Float64Array): boolean {
+  const add = (tK: number) => { if (tK < lohi[0]!) lohi[0] = tK; if (tK > lohi[1]!) lohi[1] = tK; };
+  if (c.kind === 'fixed') { add(c.tK); return true; }
+  if (c.kind !== 'terms' || c.fluxWPerM2 !== 0) return false;
+  add(c.fluidK);
+  add(c.surroundingsK);
+  if (c.plate) add(c.plate.tK);
+  return true;
+}
+
+/**
+ * Writes into lohi the bounds a step from the node temperatures T0 must keep under the conditions cond (see above), and
+ * returns true; returns false (lohi undefined) when heat is put in over the step or the layers have cell terms, where
+ * no such bound holds.
+ */
+export function stepBounds(T0: Float64Array, cond: StepConditions, hasCellTerms: boolean, lohi: Float64Array): boolean {
+  if (hasCellTerms) return false;
+  for (let i = 0; i < cond.source.length; i++) if (cond.source[i] !== 0) return false;
+  lohi[0] = Infinity;
+  lohi[1] = -Infinity;
+  for (let j = 0; j < T0.length; j++) {
+    const t = T0[j]!;
+    if (t < lohi[0]!) lohi[0] = t;
+    if (t > lohi[1]!) lohi[1] = t;
+  }
+  return faceRange(cond.bottom, lohi) && faceRange(cond.top, lohi);
+}
+
+/** Whether the temperatures T leave [lohi[0] − slack, lohi[1] + slack]. */
+export function leavesBounds(T: Float64Array, lohi: Float64Array, slack: number): boolean {
+  const lo = lohi[0]! - slack;
+  const hi = lohi[1]! + slack;
+  for (let j = 0; j < T.length; j++) if (!(T[j]! >= lo && T[j]! <= hi)) return true;
+  return false;
+}
