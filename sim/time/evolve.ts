@@ -25,7 +25,6 @@ import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
 import { growthFactor, retryStepS } from './step-control.ts';
-import { leavesBounds, stepBounds } from './step-bounds.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
@@ -80,6 +79,11 @@ export interface EvolveOptions {
    * the conditions the schedule gives.
    */
   readonly switches?: readonly (StateSwitch & { readonly adjust?: (cond: StepConditions) => StepConditions })[];
+  /**
+   * The run-time ceiling in cells × Newton sweeps (default stepGuardDefaults.maxCellSweeps, about 15 s): a benchmark
+   * that means to time long runs may raise it, a test may lower it.
+   */
+  readonly maxCellSweeps?: number;
 }
 
 /** What each accepted step exposes. Buffers are the loop's own and valid until the generator resumes. */
@@ -154,8 +158,6 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const plates = createPlateControl(problem, grid, ws);
   const watch = createEventWatch([...plates.switches, ...(options.switches ?? [])]);
   const plateSteps = plates.steps;
-  const hasCellTerms = problem.layers.some((l) => (l.terms?.length ?? 0) > 0);
-  const lohi = new Float64Array(2);
   const eulerWeights = [0, 0, 1] as const;
   /** The conditions at tS: the schedules, then each caller's switch's adjustment; the plates follow them. */
   const readConditions = (tS: number, before: StepConditions | undefined): StepConditions => {
@@ -165,22 +167,12 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     return c;
   };
 
-  // the smallest step follows the cell relaxation time, and a share of the time stepped since the last landing (a
-  // breakpoint or a state event), not of t (step-guards.ts): right after a face switches at t = 1e7 s a step of 1e-12 s
-  // must still advance time, although t + h = t in one double for h below 1e-9 s. A step shorter than floorRelative·t
-  // (45 ulps of t) therefore adds to t with its rounding error carried in lo (time is t + lo, Knuth's TwoSum), up to the
-  // next landing; longer steps add as they always did, so the runs that never take such a step keep every bit
+  // time is kept as the last instant landed on (a breakpoint or a state event, exact) plus the time stepped since: right
+  // after a face switches at t = 1e7 s a step of 1e-12 s then still advances (t + h = t in one double below 2.2e-9 s),
+  // so the smallest step follows the cell relaxation time alone, not a share of t (step-guards.ts)
+  let base = 0;
+  let offset = 0;
   let t = 0;
-  let lo = 0;
-  let sinceLanding = 0;
-  /** t + lo + s as a sum t' + lo' (TwoSum: t' the rounded sum, lo' its exact error). */
-  const advance = (s: number): void => {
-    const y = lo + s;
-    const sum = t + y;
-    const back = sum - y;
-    lo = (t - back) + (y - (sum - back));
-    t = sum;
-  };
   let nextBreak = 0;
   for (const node of ws.plates) node.tK = problem.initialK;
   let cond = readConditions(t, undefined);
@@ -218,24 +210,19 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   let h = fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
   const adaptive = stepping.kind === 'adaptive';
+  const ceiling = options.maxCellSweeps ?? stepGuardDefaults.maxCellSweeps;
   while (t < durationS) {
     while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
     const target = breaks[nextBreak] ?? durationS;
-    const floor = Math.max(floorS, stepGuardDefaults.floorRelative * sinceLanding);
+    const floor = Math.max(floorS, stepGuardDefaults.floorRelative * offset);
+    const remaining = target - base - offset;
     const floored = adaptive && h <= floor;
     let step = Math.min(fixedStepS ?? Math.max(h, floor), numerics.maxStepS);
     let landing = false;
-    const fine = lo !== 0 || step < stepGuardDefaults.floorRelative * t;
-    if (fine) {
-      const remaining = (target - t) - lo;
-      if (step * (1 + d.landShare) >= remaining) { step = remaining; landing = true; }
-      else if (adaptive && 2 * step > remaining) step = Math.max(0.5 * remaining, Math.min(floor, remaining));
-    } else if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
-    else if (adaptive && t + 2 * step > target) step = Math.max(0.5 * (target - t), Math.min(floor, target - t));
-    /** The time s into this step. */
-    const timeInto = (s: number): number => (fine ? t + (lo + s) : t + s);
-    if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations)) {
-      return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS), tS: t, stats };
+    if (step * (1 + d.landShare) >= remaining) { step = remaining; landing = true; }
+    else if (adaptive && 2 * step > remaining) step = Math.max(0.5 * remaining, Math.min(floor, remaining));
+    if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations, ceiling)) {
+      return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling), tS: t, stats };
     }
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
     // (a floored step stretched by rounding to land on a breakpoint is still at the floor)
@@ -243,7 +230,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     // a step at the floor is taken by backward Euler, L-stable and monotone for an M-matrix (Patankar 1980 §4.3):
     // TR-BDF2's stability function dips below 0 for large hλ, and a floored step, accepted whatever its error, then
     // overshot (a 1 µm layer under a face switched from 273 °C to −60 °C reached −102 °C: fuzz seed 9 case 179)
-    let euler = backwardEuler || atFloor;
+    const euler = backwardEuler || atFloor;
     line.cond = cond;
     takeStep(line, buf, step, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
@@ -263,36 +250,21 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       h = retryStepS(step, outcome, d);
       continue;
     }
-    if (adaptive && !euler && stepBounds(line.T0, cond, hasCellTerms, lohi) && leavesBounds(ws.T, lohi, newton.toleranceK)) {
-      // with no heat put in, the step left the range of its start state and of what the faces see by more than the
-      // Newton tolerance: TR-BDF2 undershot a jump (its stability function dips to −0.21, step-bounds.ts); the same step
-      // again by backward Euler, which keeps the range; the controller goes on from TR-BDF2's error estimate
-      const errorNorm = outcome.errorNorm;
-      takeStep(line, buf, step, newtonAtFloor, true, outcome);
-      stats.newtonIterations += outcome.newtonIterations;
-      if (outcome.status !== 'ok') {
-        stats.rejected++;
-        rejectedLast = true;
-        h = retryStepS(step, outcome, d);
-        continue;
-      }
-      outcome.errorNorm = errorNorm;
-      euler = true;
-    }
     if (atFloor) stats.forced++;
     plates.afterTrial();
     const armed = watch.armed();
-    const gEnd = armed < 0 ? watch.highest(ws, timeInto(step)) : -Infinity;
+    const gEnd = armed < 0 ? watch.highest(ws, base + (offset + step)) : -Infinity;
     const switched = gEnd >= 0;
     if (switched) {
       // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
+      const fromOffset = offset;
       const trial = (s: number): number | undefined => {
         takeStep(line, buf, s, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
         stats.newtonIterations += outcome.newtonIterations;
         stats.eventTrials++;
         if (outcome.status !== 'ok') return undefined;
         plates.afterTrial();
-        return watch.highest(ws, timeInto(s));
+        return watch.highest(ws, base + (fromOffset + s));
       };
       const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials);
       if (found.lastS !== found.s) trial(found.s);
@@ -300,7 +272,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       landing = false;
       stats.events++;
     }
-    const t1 = landing ? target : timeInto(step);
+    const t1 = landing ? target : base + (offset + step);
     if (coldestK(ws.T) < 0) {
       // where the coldest node crossed 0 K, by linear interpolation over the step
       const before = coldestK(line.T0);
@@ -314,7 +286,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     const faceJ = (side: 0 | 1): number => ((side === 0 ? cond.bottom : cond.top).kind === 'heater'
       ? -plateSteps[side].lossJ : stepFaceEnergy(buf, side, step, euler));
     yield {
-      t0: t, tg: timeInto(euler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
+      t0: t, tg: base + (offset + (euler ? step : step * STAGE_FRACTION)), t1, buf, ws, cond,
       bottomJ: faceJ(0),
       topJ: faceJ(1),
       plates: plateSteps,
@@ -331,8 +303,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
       rejectedLast = false;
     }
-    if (landing) { t = target; lo = 0; } else if (fine) advance(step); else t = t1;
-    sinceLanding = landing || switched ? 0 : sinceLanding + step;
+    t = t1;
+    if (landing || switched) { base = t1; offset = 0; } else offset += step;
     if (landing && t < durationS) {
       const before = cond;
       cond = readConditions(t, before);

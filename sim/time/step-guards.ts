@@ -106,17 +106,22 @@ export function faceBelowAbsoluteZero(ws: Workspace, cond: StepConditions, side:
   return faceHeatIn(c, side === 0 ? ws.bottomContext : ws.topContext, 0, scratch) + g * cellK < 0;
 }
 
-/** Whether a run of `cells` cells that has tried `trials` steps and made `sweeps` Newton sweeps has used its budget. */
-export function budgetSpent(cells: number, trials: number, sweeps: number): boolean {
-  return cells * trials >= stepGuardDefaults.maxCellSteps || cells * sweeps >= stepGuardDefaults.maxCellSweeps;
+/**
+ * Whether a run of `cells` cells that has tried `trials` steps and made `sweeps` Newton sweeps has used its budget;
+ * `maxCellSweeps` is the ceiling in force (a benchmark that means to run long may raise it: EvolveOptions).
+ */
+export function budgetSpent(cells: number, trials: number, sweeps: number, maxCellSweeps: number = stepGuardDefaults.maxCellSweeps): boolean {
+  return cells * trials >= stepGuardDefaults.maxCellSteps || cells * sweeps >= maxCellSweeps;
 }
 
 /** The message for a run that has used its work budget (budgetSpent), naming the ceiling that bound. */
-export function budgetMessage(cells: number, trials: number, sweeps: number, tS: number, durationS: number): string {
+export function budgetMessage(cells: number, trials: number, sweeps: number, tS: number, durationS: number,
+  maxCellSweeps: number = stepGuardDefaults.maxCellSweeps): string {
   const g = stepGuardDefaults;
-  const sweepsBind = cells * sweeps >= g.maxCellSweeps;
+  const sweepsBind = cells * sweeps >= maxCellSweeps;
+  const whose = maxCellSweeps === g.maxCellSweeps ? 'stepGuardDefaults.maxCellSweeps, about 15 s' : 'set by the caller';
   const spent = sweepsBind
-    ? `${cells} cells × ${sweeps} Newton sweeps; the limit is ${g.maxCellSweeps.toExponential(0)} cell-sweeps (stepGuardDefaults.maxCellSweeps, about 15 s)`
+    ? `${cells} cells × ${sweeps} Newton sweeps; the limit is ${maxCellSweeps.toExponential(0)} cell-sweeps (${whose})`
     : `${cells} cells × ${trials} steps tried; the limit is ${g.maxCellSteps.toExponential(0)} cell-steps (stepGuardDefaults.maxCellSteps)`;
   return `the run reached its work budget at t = ${formatTime(tS)} of ${formatTime(durationS)} s: ${spent}. ` +
     'Use fewer cells, loosen numerics.tolerance_K or numerics.liquid_fraction_tolerance, or shorten duration_s';

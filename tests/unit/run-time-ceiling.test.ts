@@ -10,6 +10,8 @@ import { accuracyDefaults } from '../../sim/scenario/accuracy.ts';
 import { parseScenario, scenarioDefaults } from '../../sim/scenario/scenario.ts';
 import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario/scenario-limits.ts';
 import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
+import { runProblem } from '../../sim/run.ts';
+import { evolveDefaults } from '../../sim/time/evolve.ts';
 import { budgetMessage, budgetSpent, stepGuardDefaults as GUARD } from '../../sim/time/step-guards.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
 
@@ -98,5 +100,23 @@ describe('the ceiling mid-run', () => {
       'sweeps; the limit is 4e+7 cell-sweeps (stepGuardDefaults.maxCellSweeps, about 15 s). Use fewer cells, loosen numerics.tolerance_K ' +
       'or numerics.liquid_fraction_tolerance, or shorten duration_s');
     expect(budgetMessage(10, 5e6, 1e6, 1e6, 3e6)).toContain('10 cells × 5000000 steps tried; the limit is 5e+7 cell-steps (stepGuardDefaults.maxCellSteps)');
+  });
+});
+
+describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)', () => {
+  it('runProblem() stops a run at the ceiling it is given, naming it, with cells × sweeps within one step of it', () => {
+    const parsed = parseScenario(plate());
+    expect(parsed.ok).toBe(true);
+    if (!parsed.ok) return;
+    // the plate's 40 cells at a ceiling of 4000 cell-sweeps: 100 sweeps, a few tens of steps of a 1000 s run
+    const out = runProblem(parsed.problem, { maxCellSweeps: 4000 });
+    expect(out.status).toBe('failed');
+    if (out.status !== 'failed') return;
+    expect(out.message).toMatch(/^the run reached its work budget at t = [0-9.e+]+ of 1000 s: 40 cells × \d+ Newton sweeps; the limit is 4e\+3 cell-sweeps \(set by the caller\)\. /);
+    expect(40 * out.stats.newtonIterations).toBeGreaterThanOrEqual(4000);
+    // the check is made before each trial; one TR-BDF2 trial takes at most 2 × maxNewtonIterations sweeps
+    expect(out.stats.newtonIterations).toBeLessThanOrEqual(100 + 2 * evolveDefaults.maxNewtonIterations);
+    // the same run without the lowered ceiling finishes
+    expect(runProblem(parsed.problem).status).toBe('ok');
   });
 });
