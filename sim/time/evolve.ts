@@ -25,6 +25,7 @@ import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
 import { growthFactor, retryStepS } from './step-control.ts';
+import { leavesBounds, stepBounds } from './step-bounds.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
@@ -158,6 +159,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const plates = createPlateControl(problem, grid, ws);
   const watch = createEventWatch([...plates.switches, ...(options.switches ?? [])]);
   const plateSteps = plates.steps;
+  const hasCellTerms = problem.layers.some((l) => (l.terms?.length ?? 0) > 0);
+  const lohi = new Float64Array(2);
   const eulerWeights = [0, 0, 1] as const;
   /** The conditions at tS: the schedules, then each caller's switch's adjustment; the plates follow them. */
   const readConditions = (tS: number, before: StepConditions | undefined): StepConditions => {
@@ -167,12 +170,22 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     return c;
   };
 
-  // time is kept as the last instant landed on (a breakpoint or a state event, exact) plus the time stepped since: right
-  // after a face switches at t = 1e7 s a step of 1e-12 s then still advances (t + h = t in one double below 2.2e-9 s),
-  // so the smallest step follows the cell relaxation time alone, not a share of t (step-guards.ts)
-  let base = 0;
-  let offset = 0;
+  // the smallest step follows the cell relaxation time, and a share of the time stepped since the last landing (a
+  // breakpoint or a state event), not of t (step-guards.ts): right after a face switches at t = 1e7 s a step of 1e-12 s
+  // must still advance time, although t + h = t in one double for h below 1e-9 s. A step shorter than floorRelative·t
+  // (45 ulps of t) therefore adds to t with its rounding error carried in lo (time is t + lo, Knuth's TwoSum), up to the
+  // next landing; longer steps add as they always did, so the runs that never take such a step keep every bit
   let t = 0;
+  let lo = 0;
+  let sinceLanding = 0;
+  /** t + lo + s as a sum t' + lo' (TwoSum: t' the rounded sum, lo' its exact error). */
+  const advance = (s: number): void => {
+    const y = lo + s;
+    const sum = t + y;
+    const back = sum - y;
+    lo = (t - back) + (y - (sum - back));
+    t = sum;
+  };
   let nextBreak = 0;
   for (const node of ws.plates) node.tK = problem.initialK;
   let cond = readConditions(t, undefined);
@@ -214,13 +227,19 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   while (t < durationS) {
     while (nextBreak < breaks.length && breaks[nextBreak]! <= t) nextBreak++;
     const target = breaks[nextBreak] ?? durationS;
-    const floor = Math.max(floorS, stepGuardDefaults.floorRelative * offset);
-    const remaining = target - base - offset;
+    const floor = Math.max(floorS, stepGuardDefaults.floorRelative * sinceLanding);
     const floored = adaptive && h <= floor;
     let step = Math.min(fixedStepS ?? Math.max(h, floor), numerics.maxStepS);
     let landing = false;
-    if (step * (1 + d.landShare) >= remaining) { step = remaining; landing = true; }
-    else if (adaptive && 2 * step > remaining) step = Math.max(0.5 * remaining, Math.min(floor, remaining));
+    const fine = lo !== 0 || step < stepGuardDefaults.floorRelative * t;
+    if (fine) {
+      const remaining = (target - t) - lo;
+      if (step * (1 + d.landShare) >= remaining) { step = remaining; landing = true; }
+      else if (adaptive && 2 * step > remaining) step = Math.max(0.5 * remaining, Math.min(floor, remaining));
+    } else if (t + step * (1 + d.landShare) >= target) { step = target - t; landing = true; }
+    else if (adaptive && t + 2 * step > target) step = Math.max(0.5 * (target - t), Math.min(floor, target - t));
+    /** The time s into this step. */
+    const timeInto = (s: number): number => (fine ? t + (lo + s) : t + s);
     if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations, ceiling)) {
       return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling), tS: t, stats };
     }
@@ -230,7 +249,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     // a step at the floor is taken by backward Euler, L-stable and monotone for an M-matrix (Patankar 1980 §4.3):
     // TR-BDF2's stability function dips below 0 for large hλ, and a floored step, accepted whatever its error, then
     // overshot (a 1 µm layer under a face switched from 273 °C to −60 °C reached −102 °C: fuzz seed 9 case 179)
-    const euler = backwardEuler || atFloor;
+    let euler = backwardEuler || atFloor;
     line.cond = cond;
     takeStep(line, buf, step, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
@@ -250,21 +269,36 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       h = retryStepS(step, outcome, d);
       continue;
     }
+    if (adaptive && !euler && stepBounds(line.T0, cond, hasCellTerms, lohi) && leavesBounds(ws.T, lohi, newton.toleranceK)) {
+      // with no heat put in, the step left the range of its start state and of what the faces see by more than the
+      // Newton tolerance: TR-BDF2 undershot a jump (its stability function dips to −0.21, step-bounds.ts); the same step
+      // again by backward Euler, which keeps the range; the controller goes on from TR-BDF2's error estimate
+      const errorNorm = outcome.errorNorm;
+      takeStep(line, buf, step, newtonAtFloor, true, outcome);
+      stats.newtonIterations += outcome.newtonIterations;
+      if (outcome.status !== 'ok') {
+        stats.rejected++;
+        rejectedLast = true;
+        h = retryStepS(step, outcome, d);
+        continue;
+      }
+      outcome.errorNorm = errorNorm;
+      euler = true;
+    }
     if (atFloor) stats.forced++;
     plates.afterTrial();
     const armed = watch.armed();
-    const gEnd = armed < 0 ? watch.highest(ws, base + (offset + step)) : -Infinity;
+    const gEnd = armed < 0 ? watch.highest(ws, timeInto(step)) : -Infinity;
     const switched = gEnd >= 0;
     if (switched) {
       // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
-      const fromOffset = offset;
       const trial = (s: number): number | undefined => {
         takeStep(line, buf, s, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
         stats.newtonIterations += outcome.newtonIterations;
         stats.eventTrials++;
         if (outcome.status !== 'ok') return undefined;
         plates.afterTrial();
-        return watch.highest(ws, base + (fromOffset + s));
+        return watch.highest(ws, timeInto(s));
       };
       const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials);
       if (found.lastS !== found.s) trial(found.s);
@@ -272,7 +306,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       landing = false;
       stats.events++;
     }
-    const t1 = landing ? target : base + (offset + step);
+    const t1 = landing ? target : timeInto(step);
     if (coldestK(ws.T) < 0) {
       // where the coldest node crossed 0 K, by linear interpolation over the step
       const before = coldestK(line.T0);
@@ -286,7 +320,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     const faceJ = (side: 0 | 1): number => ((side === 0 ? cond.bottom : cond.top).kind === 'heater'
       ? -plateSteps[side].lossJ : stepFaceEnergy(buf, side, step, euler));
     yield {
-      t0: t, tg: base + (offset + (euler ? step : step * STAGE_FRACTION)), t1, buf, ws, cond,
+      t0: t, tg: timeInto(euler ? step : step * STAGE_FRACTION), t1, buf, ws, cond,
       bottomJ: faceJ(0),
       topJ: faceJ(1),
       plates: plateSteps,
@@ -303,8 +337,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
       rejectedLast = false;
     }
-    t = t1;
-    if (landing || switched) { base = t1; offset = 0; } else offset += step;
+    if (landing) { t = target; lo = 0; } else if (fine) advance(step); else t = t1;
+    sinceLanding = landing || switched ? 0 : sinceLanding + step;
     if (landing && t < durationS) {
       const before = cond;
       cond = readConditions(t, before);
