@@ -34,3 +34,49 @@ export const AIR_TABLE_RANGE_K = { low: 250, high: 1000 } as const;
 export const airConductivity: Table = column(1);
 export const airKinematicViscosity: Table = column(2);
 export const airDiffusivity: Table = column(3);
+
+const AIR_T = airConductivity.tK;
+const AIR_K = airConductivity.y;
+const AIR_NU = airKinematicViscosity.y;
+const AIR_ALPHA = airDiffusivity.y;
+
+/**
+ * The three air properties at the film temperature io[0] (K), with their slopes, in one row search: writes
+ * io[0..5] = [k, dk/dT, ν, dν/dT, α, dα/dT]. The same arithmetic as evalTable()/evalTableWithSlope() in table.ts
+ * (linear between rows, held flat with a zero slope outside), so the values are the same to the bit. The temperature
+ * comes in and the values go out through io, since a double passed to or returned from a call the JIT does not
+ * inline is allocated on the heap; allocates nothing.
+ */
+export function airPropertiesAt(io: Float64Array): void {
+  const tK = io[0]!;
+  const n = AIR_T.length;
+  if (tK <= AIR_T[0]! || tK >= AIR_T[n - 1]!) {
+    const r = tK <= AIR_T[0]! ? 0 : n - 1;
+    io[0] = AIR_K[r]!;
+    io[1] = 0;
+    io[2] = AIR_NU[r]!;
+    io[3] = 0;
+    io[4] = AIR_ALPHA[r]!;
+    io[5] = 0;
+    return;
+  }
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (AIR_T[mid]! <= tK) lo = mid;
+    else hi = mid;
+  }
+  const x0 = AIR_T[lo]!;
+  const dx = AIR_T[lo + 1]! - x0;
+  const t = tK - x0;
+  const k0 = AIR_K[lo]!;
+  const nu0 = AIR_NU[lo]!;
+  const a0 = AIR_ALPHA[lo]!;
+  io[0] = k0 + ((AIR_K[lo + 1]! - k0) * t) / dx;
+  io[1] = (AIR_K[lo + 1]! - k0) / dx;
+  io[2] = nu0 + ((AIR_NU[lo + 1]! - nu0) * t) / dx;
+  io[3] = (AIR_NU[lo + 1]! - nu0) / dx;
+  io[4] = a0 + ((AIR_ALPHA[lo + 1]! - a0) * t) / dx;
+  io[5] = (AIR_ALPHA[lo + 1]! - a0) / dx;
+}

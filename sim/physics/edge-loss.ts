@@ -25,7 +25,7 @@ import type { Table } from './table.ts';
 import { evalTableWithSlope } from './table.ts';
 import type { FootprintMm } from './problem.ts';
 import { mmToM, STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
-import { verticalPlateLoss } from './vertical-plate.ts';
+import { verticalPlateAt } from './vertical-plate.ts';
 
 export const edgeLossDefaults = {
   /**
@@ -72,7 +72,8 @@ export function sleeveGeometry(footprint: FootprintMm, thicknessM: number): { re
   return { resistanceTimesK: thicknessM, areaRatio: (perimeter + 8 * thicknessM) / perimeter };
 }
 
-const inner = new Float64Array(1);
+/** [T, T∞, L] in and [q, dq/dT] out of verticalPlateAt(), and room for the air properties it reads. */
+const plateIo = new Float64Array(6);
 
 /** Heat leaving a bare side surface at tK, W/m² (convection + radiation), with its slope in out[0]. */
 function surfaceLoss(loss: EdgeLoss, tK: number, out: Float64Array): number {
@@ -83,8 +84,12 @@ function surfaceLoss(loss: EdgeLoss, tK: number, out: Float64Array): number {
     q = c.coefficient * (tK - loss.ambientK);
     dq = c.coefficient;
   } else {
-    q = verticalPlateLoss(tK, loss.ambientK, loss.heightM, inner);
-    dq = inner[0]!;
+    plateIo[0] = tK;
+    plateIo[1] = loss.ambientK;
+    plateIo[2] = loss.heightM;
+    verticalPlateAt(plateIo);
+    q = plateIo[0]!;
+    dq = plateIo[1]!;
   }
   if (loss.emissivity > 0) {
     const es = loss.emissivity * STEFAN_BOLTZMANN_W_M2K4;

@@ -4,7 +4,7 @@
  * (grey surface in large isothermal surroundings, Incropera eq. 1.7; a held plate through a contact conductance).
  * A face held at a fixed temperature is not a flux: the solver imposes T_face directly.
  */
-import { naturalConvectionIn } from './natural-convection.ts';
+import { naturalConvectionAt } from './natural-convection.ts';
 import type { FaceCondition, Facing } from './problem.ts';
 import { STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
 
@@ -16,6 +16,9 @@ export interface FaceContext {
 
 type Terms = Extract<FaceCondition, { kind: 'terms' }>;
 
+/** [T, T∞, L] in and [q, dq/dT] out of naturalConvectionAt(), and room for the air properties it reads. */
+const convectionIo = new Float64Array(6);
+
 /** Heat into the face at tK, W/m²; writes dq/dT (W·m⁻²·K⁻¹) to out[0]. Allocates nothing. */
 export function faceHeatIn(c: Terms, ctx: FaceContext, tK: number, out: Float64Array): number {
   let q = c.fluxWPerM2;
@@ -25,8 +28,12 @@ export function faceHeatIn(c: Terms, ctx: FaceContext, tK: number, out: Float64A
     q += conv.coefficient * (c.fluidK - tK);
     dq -= conv.coefficient;
   } else if (conv.kind === 'natural') {
-    q += naturalConvectionIn(ctx.facing, tK, c.fluidK, ctx.lengthM, out);
-    dq += out[0]!;
+    convectionIo[0] = tK;
+    convectionIo[1] = c.fluidK;
+    convectionIo[2] = ctx.lengthM;
+    naturalConvectionAt(ctx.facing, convectionIo);
+    q += convectionIo[0]!;
+    dq += convectionIo[1]!;
   }
   if (c.emissivity > 0) {
     const es = c.emissivity * STEFAN_BOLTZMANN_W_M2K4;

@@ -17,8 +17,8 @@
  * Between Ra = 10³ and 10⁴ the two families are blended smoothly in log Ra (a cubic smoothstep; our own choice, no
  * source), so h(T) has no jump that Newton could cycle across: they differ by 3 % at 10³ and 9 % at 10⁴ (up face).
  */
-import { airConductivity, airDiffusivity, airKinematicViscosity } from './air.ts';
-import { evalTable, evalTableWithSlope } from './table.ts';
+import { airDiffusivity, airKinematicViscosity, airPropertiesAt } from './air.ts';
+import { evalTable } from './table.ts';
 import type { Facing } from './problem.ts';
 import { STANDARD_GRAVITY_M_S2 } from './units.ts';
 
@@ -161,7 +161,7 @@ export function naturalConvectionCoefficient(facing: Facing, tK: number, fluidK:
   return naturalConvectionIn(facing, tK, fluidK, lengthM, slopeScratch) / (fluidK - tK);
 }
 
-const propertySlope = new Float64Array(1);
+const io = new Float64Array(6);
 
 /**
  * Heat into a horizontal face at tK from air at fluidK, W/m², with its slope dq/dT in out[0]. Overwrites out[0].
@@ -172,28 +172,49 @@ const propertySlope = new Float64Array(1);
  * their slopes: one correlation evaluation per face and Newton iteration.
  */
 export function naturalConvectionIn(facing: Facing, tK: number, fluidK: number, lengthM: number, out: Float64Array): number {
+  io[0] = tK;
+  io[1] = fluidK;
+  io[2] = lengthM;
+  naturalConvectionAt(facing, io);
+  out[0] = io[1]!;
+  return io[0]!;
+}
+
+/**
+ * naturalConvectionIn() for the solver's hot path, with its numbers passed through `io` (a double passed to or
+ * returned from a call the JIT does not inline is allocated on the heap): reads T = io[0], T∞ = io[1] (K) and
+ * L = io[2] (m), writes q = io[0] (W/m²) and dq/dT = io[1] (W·m⁻²·K⁻¹). io needs 6 entries (it holds the air
+ * properties on the way). Allocates nothing.
+ */
+export function naturalConvectionAt(facing: Facing, io: Float64Array): void {
+  const tK = io[0]!;
+  const fluidK = io[1]!;
+  const lengthM = io[2]!;
   if (tK === fluidK) {
-    out[0] = 0;
-    return 0;
+    io[0] = 0;
+    io[1] = 0;
+    return;
   }
-  const film = filmTemperature(tK, fluidK);
-  const nuAir = evalTableWithSlope(airKinematicViscosity, film, propertySlope);
-  const dNuAir = propertySlope[0]!;
-  const alpha = evalTableWithSlope(airDiffusivity, film, propertySlope);
-  const dAlpha = propertySlope[0]!;
-  const k = evalTableWithSlope(airConductivity, film, propertySlope);
-  const dK = propertySlope[0]!;
+  const film = 0.5 * (tK + fluidK); // filmTemperature()
+  io[0] = film;
+  airPropertiesAt(io);
+  const k = io[0]!;
+  const dK = io[1]!;
+  const nuAir = io[2]!;
+  const dNuAir = io[3]!;
+  const alpha = io[4]!;
+  const dAlpha = io[5]!;
   const dT = tK - fluidK;
   // the same expression as rayleigh() and airPrandtl(), from the same table values
   const ra = (STANDARD_GRAVITY_M_S2 * Math.abs(dT) * lengthM ** 3) / (film * nuAir * alpha);
-  nusseltWithSlope(ra, nuAir / alpha, plumeRisesFromFace(facing, tK, fluidK));
+  nusseltWithSlope(ra, nuAir / alpha, (facing === 'up') === (tK > fluidK)); // plumeRisesFromFace()
   const nu = nuSlope[0]!;
   const e = nuSlope[1]!;
   const h = (nu * k) / lengthM;
   const dLnRa = 1 / dT - 0.5 * (1 / film + dNuAir / nuAir + dAlpha / alpha);
   const dLnH = e * dLnRa + (0.5 * dK) / k;
-  out[0] = h * dLnH * (fluidK - tK) - h;
-  return h * (fluidK - tK);
+  io[1] = h * dLnH * (fluidK - tK) - h;
+  io[0] = h * (fluidK - tK);
 }
 
 /** Whether a Rayleigh number lies inside the published range of a correlation in use for that face. */

@@ -8,9 +8,9 @@
  * Ra_L ~ 1–10³, inside that span. At Ra_L → 0 it tends to Nu = 0.825² ≈ 0.68, a conduction-like floor, so h does not
  * vanish as T → T∞ and q(T) is smooth there (no kink for Newton).
  */
-import { airConductivity, airDiffusivity, airKinematicViscosity } from './air.ts';
+import { airConductivity, airDiffusivity, airKinematicViscosity, airPropertiesAt } from './air.ts';
 import { filmTemperature } from './natural-convection.ts';
-import { evalTable, evalTableWithSlope } from './table.ts';
+import { evalTable } from './table.ts';
 import { STANDARD_GRAVITY_M_S2 } from './units.ts';
 
 /** The Rayleigh span of the data Churchill & Chu correlated (from memory); outside it the formula is extrapolated. */
@@ -33,7 +33,7 @@ export function verticalPlateRayleigh(tK: number, fluidK: number, heightM: numbe
   return (STANDARD_GRAVITY_M_S2 * Math.abs(tK - fluidK) * heightM ** 3) / (film * nu * alpha);
 }
 
-const slope = new Float64Array(1);
+const io = new Float64Array(6);
 
 /**
  * Heat lost by convection from a vertical plate at tK to air at fluidK, W/m² (positive when the plate is hotter),
@@ -43,13 +43,32 @@ const slope = new Float64Array(1);
  * cent over the air table). Overwrites out[0]; allocates nothing.
  */
 export function verticalPlateLoss(tK: number, fluidK: number, heightM: number, out: Float64Array): number {
-  const film = filmTemperature(tK, fluidK);
-  const nuAir = evalTableWithSlope(airKinematicViscosity, film, slope);
-  const dNuAir = slope[0]!;
-  const alpha = evalTableWithSlope(airDiffusivity, film, slope);
-  const dAlpha = slope[0]!;
-  const k = evalTableWithSlope(airConductivity, film, slope);
-  const dK = slope[0]!;
+  io[0] = tK;
+  io[1] = fluidK;
+  io[2] = heightM;
+  verticalPlateAt(io);
+  out[0] = io[1]!;
+  return io[0]!;
+}
+
+/**
+ * verticalPlateLoss() for the solver's hot path, with its numbers passed through `io` (a double passed to or returned
+ * from a call the JIT does not inline is allocated on the heap): reads T = io[0], T∞ = io[1] (K) and L = io[2] (m),
+ * writes q = io[0] (W/m²) and dq/dT = io[1] (W·m⁻²·K⁻¹). io needs 6 entries. Allocates nothing.
+ */
+export function verticalPlateAt(io: Float64Array): void {
+  const tK = io[0]!;
+  const fluidK = io[1]!;
+  const heightM = io[2]!;
+  const film = 0.5 * (tK + fluidK); // filmTemperature()
+  io[0] = film;
+  airPropertiesAt(io);
+  const k = io[0]!;
+  const dK = io[1]!;
+  const nuAir = io[2]!;
+  const dNuAir = io[3]!;
+  const alpha = io[4]!;
+  const dAlpha = io[5]!;
   const dT = tK - fluidK;
   const ra = (STANDARD_GRAVITY_M_S2 * Math.abs(dT) * heightM ** 3) / (film * nuAir * alpha);
   const rising = (CC.lead * Math.cbrt(Math.sqrt(ra))) / (1 + (CC.prRef / (nuAir / alpha)) ** CC.prPower) ** CC.outerPower;
@@ -57,8 +76,8 @@ export function verticalPlateLoss(tK: number, fluidK: number, heightM: number, o
   const h = (x * x * k) / heightM;
   // Nu = x², x = 0.825 + c·Ra^(1/6): d ln Nu/d ln Ra = 2·(rising/6)/x
   const e = rising / (3 * x);
-  out[0] = h + h * e * (1 - dT * 0.5 * (1 / film + dNuAir / nuAir + dAlpha / alpha)) + h * dT * 0.5 * (dK / k);
-  return h * dT;
+  io[1] = h + h * e * (1 - dT * 0.5 * (1 / film + dNuAir / nuAir + dAlpha / alpha)) + h * dT * 0.5 * (dK / k);
+  io[0] = h * dT;
 }
 
 /** Heat-transfer coefficient h, W·m⁻²·K⁻¹, of a vertical plate of height heightM at tK in air at fluidK. */
