@@ -156,16 +156,25 @@ export function createRecorder(problem: Problem, layout: ObservationLayout, opti
     return s;
   };
 
-  /** Highest sample temperature of each layer, K, into maxK (a layer's faces count as its samples). */
-  const layerMaxima = (obs: StepObservation): void => {
+  /**
+   * storedOf() and each layer's highest sample temperature (K, into maxK; a layer's faces count as its samples) in one
+   * pass over the samples, for a summary, which needs both on every step. The stored sum adds the same terms in the
+   * same order as storedOf(), so it is the same number.
+   */
+  const storedAndMaxima = (obs: StepObservation): number => {
+    let s = 0;
     for (let li = 0; li < layerCount; li++) {
-      const T = obs.layers[li]!.temperatureK;
+      const { temperatureK: T, enthalpy, widthM } = obs.layers[li]!;
       let hi = -Infinity;
-      for (let j = 0; j < T.length; j++) if (T[j]! > hi) hi = T[j]!;
+      for (let j = 0; j < T.length; j++) {
+        s += enthalpy[j]! * widthM[j]!;
+        if (T[j]! > hi) hi = T[j]!;
+      }
       maxK[li] = hi;
     }
     maxK[0] = Math.max(maxK[0]!, obs.bottom.temperatureK);
     maxK[layerCount - 1] = Math.max(maxK[layerCount - 1]!, obs.top.temperatureK);
+    return s;
   };
 
   /** Writes the row for the observed state at its end time. */
@@ -253,11 +262,11 @@ export function createRecorder(problem: Problem, layout: ObservationLayout, opti
       trace?.add(obs, 'end');
     }
     heater?.onStep(obs);
-    storedEnd = storedOf(obs);
     // a summary keeps only the first, the last and each layer's peak row: find out cheaply whether this is one
     let wanted = full || first || obs.t1 >= problem.durationS;
-    if (!wanted) {
-      layerMaxima(obs);
+    if (wanted) storedEnd = storedOf(obs);
+    else {
+      storedEnd = storedAndMaxima(obs);
       for (let li = 0; li < layerCount && !wanted; li++) if (kToC(maxK[li]!) > peakC[li]!) wanted = true;
     }
     if (wanted) {
