@@ -34,10 +34,22 @@ export interface Grid {
   readonly layerEnd: Int32Array;
 }
 
-/** Cells in a layer: its own count if given, else proportional to thickness with a floor. */
-export function cellsInLayer(thicknessM: number, own: number | undefined, cellsPerMm: number, minCells: number): number {
+/** Cells in a layer: its own count if given, else proportional to thickness, at most `cap`, with a floor. */
+export function cellsInLayer(thicknessM: number, own: number | undefined, cellsPerMm: number, minCells: number,
+  cap = Number.POSITIVE_INFINITY): number {
   if (own !== undefined) return own;
-  return Math.max(minCells, Math.ceil((thicknessM / METRES_PER_MM) * cellsPerMm));
+  return Math.max(minCells, Math.min(cap, Math.ceil((thicknessM / METRES_PER_MM) * cellsPerMm)));
+}
+
+/** The numerics that set a layer's cells (Numerics, physics/problem.ts). */
+export type CellRule = Pick<Problem['numerics'], 'cellsPerMm' | 'minCellsPerLayer' | 'separatorCellsPerMm' | 'minSeparatorCells' |
+  'maxCellsPerLayer' | 'maxSeparatorCells'>;
+
+/** Cells in a layer of the stack at level 0: its own count, else the separator's or the other layers' rule. */
+export function cellsOfLayer(thicknessM: number, own: number | undefined, separator: boolean, n: CellRule): number {
+  return separator
+    ? cellsInLayer(thicknessM, own, n.separatorCellsPerMm, n.minSeparatorCells, n.maxSeparatorCells)
+    : cellsInLayer(thicknessM, own, n.cellsPerMm, n.minCellsPerLayer, n.maxCellsPerLayer);
 }
 
 /** Face positions of `n` cells across [0, 1], finer at both ends. */
@@ -53,9 +65,7 @@ export function gradedFaces(n: number, cosineShare: number = meshDefaults.cosine
 export function buildGrid(problem: Problem, refine = 1): Grid {
   const { layers, numerics } = problem;
   // refinement multiplies each layer's count exactly, so refined grids are comparable cell for cell
-  const counts = layers.map((l) => refine * cellsInLayer(l.thicknessM, l.cells,
-    l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
-    l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer));
+  const counts = layers.map((l) => refine * cellsOfLayer(l.thicknessM, l.cells, l.separator, numerics));
   const n = counts.reduce((a, b) => a + b, 0);
   const dx = new Float64Array(n);
   const xc = new Float64Array(n);

@@ -104,6 +104,12 @@ export interface Numerics {
   /** Separator layers get their own, finer count: their melt and freeze times are the verdict. */
   readonly separatorCellsPerMm: number;
   readonly minSeparatorCells: number;
+  /**
+   * Most cells the per-millimetre rule gives one layer, and one separator layer (mesh.ts, cellsOfLayer); absent: no
+   * cap. A layer's own `cells` and a minimum above the cap win over it.
+   */
+  readonly maxCellsPerLayer?: number | undefined;
+  readonly maxSeparatorCells?: number | undefined;
   readonly maxStepS: number;
   /**
    * The accuracy the run is solved to (scenario/accuracy.ts: numerics.event_accuracy_s → grid and tolerances). The

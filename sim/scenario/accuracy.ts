@@ -26,7 +26,7 @@
  * a grid given in the file (cells_per_mm, min_cells_per_layer, separator_cells_per_mm, min_separator_cells, or any
  * layer's `cells`) is used as given (not refined), and with both given the accuracy is stated but not pursued.
  */
-import { cellsInLayer } from '../grid/mesh.ts';
+import { cellsOfLayer } from '../grid/mesh.ts';
 import type { AccuracyPlan, Numerics } from '../physics/problem.ts';
 import { mmToM } from '../physics/units.ts';
 import type { FieldError } from './field-errors.ts';
@@ -302,9 +302,7 @@ export function applyAccuracy(s: ScenarioFile, numerics: Numerics): Numerics | F
   const ownGrid = num.cells_per_mm !== undefined || num.min_cells_per_layer !== undefined ||
     num.separator_cells_per_mm !== undefined || num.min_separator_cells !== undefined || s.layers.some((l) => l.cells !== undefined);
   const ownTolerances = num.tolerance_K !== undefined || num.liquid_fraction_tolerance !== undefined;
-  const baseCells = s.layers.reduce((sum, l) => sum + cellsInLayer(mmToM(l.thickness_mm), l.cells,
-    l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
-    l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer), 0);
+  const baseCells = s.layers.reduce((sum, l) => sum + cellsOfLayer(mmToM(l.thickness_mm), l.cells, l.separator === true, numerics), 0);
   const plan = accuracyPlan({
     eventAccuracyS: num.event_accuracy_s, durationS: s.duration_s, ownGrid, ownTolerances,
     baseCells, maxCells: scenarioLimitDefaults.maxCells,

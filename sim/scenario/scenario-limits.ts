@@ -8,7 +8,7 @@
  * demo refined to 1800 cells: 4.5 M cell-updates/s, 1995 steps in 9.5 s (one core of the 2-core CI machine).
  */
 import type { FieldError } from './field-errors.ts';
-import { cellsInLayer } from '../grid/mesh.ts';
+import { cellsOfLayer } from '../grid/mesh.ts';
 import type { Numerics } from '../physics/problem.ts';
 import type { ScenarioFile } from './scenario-schema.ts';
 import { mmToM } from '../physics/units.ts';
@@ -143,9 +143,7 @@ function cellKnob(s: ScenarioFile, i: number, count: number): string {
 /** Cells of the stack as the run will build it: each layer's count, times the accuracy plan's grid factor. */
 function cellCounts(s: ScenarioFile, numerics: Numerics): number[] {
   const refine = numerics.accuracy?.gridRefine ?? 1;
-  return s.layers.map((l) => refine * cellsInLayer(mmToM(l.thickness_mm), l.cells,
-    l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
-    l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer));
+  return s.layers.map((l) => refine * cellsOfLayer(mmToM(l.thickness_mm), l.cells, l.separator === true, numerics));
 }
 
 /** The default tolerances (scenarioDefaults, scenario.ts, which imports this module). */
@@ -173,9 +171,7 @@ function modelledSteps(numerics: Numerics, defaults: DefaultTolerances): { steps
  * the accuracy plan applied (its grid factor multiplies the cells, its divisor is in the tolerances).
  */
 export function workErrors(s: ScenarioFile, numerics: Numerics, defaults: DefaultTolerances): FieldError[] {
-  const base = s.layers.map((l) => cellsInLayer(mmToM(l.thickness_mm), l.cells,
-    l.separator ? numerics.separatorCellsPerMm : numerics.cellsPerMm,
-    l.separator ? numerics.minSeparatorCells : numerics.minCellsPerLayer));
+  const base = s.layers.map((l) => cellsOfLayer(mmToM(l.thickness_mm), l.cells, l.separator === true, numerics));
   const baseTotal = base.reduce((a, b) => a + b, 0);
   if (baseTotal > L.maxCells) {
     // the schema has passed, so the id is at most maxIdChars long and is echoed whole

@@ -32,6 +32,28 @@ describe('buildGrid()', () => {
     }
   });
 
+  it('buildGrid() caps the default per-millimetre counts of thick layers (256 separator cells, 128 others) unless the file gives its own per-millimetre counts', () => {
+    const thick = (numerics?: object) => parseOk(scenario({
+      duration_s: 10,
+      materials: { a: PLAIN, salt: { ...PLAIN, melt: { solidus_C: 300, liquidus_C: 300, latent_J_kg: 1e5 } } },
+      layers: [
+        { id: 'plate', material: 'a', thickness_mm: 100 },
+        { id: 'sep', material: 'salt', thickness_mm: 100, separator: true },
+        { id: 'thin', material: 'a', thickness_mm: 1 },
+        { id: 'own', material: 'a', thickness_mm: 100, cells: 300 },
+      ],
+      ...(numerics ? { numerics } : {}),
+    }));
+    const counts = (numerics?: object) => { const g = buildGrid(thick(numerics)); return [0, 1, 2, 3].map((li) => g.layerEnd[li]! - g.layerStart[li]!); };
+    // by hand: 100 mm × 4/mm = 400 → 128; 100 mm × 16/mm = 1600 → 256; 1 mm → max(8, 4) = 8; own count as given
+    expect(counts()).toEqual([128, 256, 8, 300]);
+    // a file's own per-millimetre count lifts the cap of the layers it sets: 100 × 2 = 200, 100 × 3 = 300
+    expect(counts({ cells_per_mm: 2 })).toEqual([200, 256, 8, 300]);
+    expect(counts({ separator_cells_per_mm: 3 })).toEqual([128, 300, 8, 300]);
+    // a minimum above the cap wins over it
+    expect(counts({ min_separator_cells: 400 })).toEqual([128, 400, 8, 300]);
+  });
+
   it('buildGrid() cell widths sum to each layer thickness and the centres lie in order inside their layers', () => {
     const grid = buildGrid(stack(), 2);
     let base = 0;
