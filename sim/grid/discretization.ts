@@ -18,7 +18,7 @@ import { faceHeatIn } from '../physics/faces.ts';
 import type { PlateNode } from '../physics/heater.ts';
 import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
-import { curveSlopes, liquidFractionOf, mushConductivity, temperaturesOf } from '../physics/material.ts';
+import { curveSlopes, liquidFractionOf, temperaturesOf } from '../physics/material.ts';
 import { evalTable, type Table } from '../physics/table.ts';
 import { clampedIntegral, clampedValue, splitsConductivity, tableSlopes } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
@@ -105,21 +105,23 @@ export interface Workspace {
   /**
    * Per cell at the last evaluation, how its half cells read k (kirchhoff.ts halfCellConductivity): K_CONSTANT (one
    * row), K_TABLE (the table clamped to [kFloor, kCeiling]: its phase's range) or K_MUSH (a two-phase cell); kValue: k
-   * at the cell's own temperature as so read (the mush value for K_MUSH); kPiece: the table's piece holding it (also
-   * the next search's start).
+   * at the cell's own temperature as so read; kPiece: the table's piece holding it (also the next search's start);
+   * kFraction: a K_MUSH cell's liquid fraction. A K_MUSH cell's kFloor, kCeiling, kValue and kPiece are its solid's
+   * or its liquid's reading, whichever mushHalf() read last.
    */
   readonly kRegion: Uint8Array;
   readonly kFloor: Float64Array;
   readonly kCeiling: Float64Array;
   readonly kValue: Float64Array;
   readonly kPiece: Int32Array;
+  readonly kFraction: Float64Array;
   /**
    * Per cell, fixed for the run, read by the kernels instead of the material records (whose shapes differ between
    * materials, which made every read polymorphic): its k table (one record of one shape per distinct table) and that
    * table's index (equal indices: the same table); its melt's enthalpies at the solidus and liquidus, J/m³ (+∞ and −∞
-   * without a melt); the table rows the solid and liquid read k up to (physics/material.ts Melt); for a cell whose k
-   * follows its phase, 1/k_l − 1/k_s (m·K/W), the melt's width liquidus − solidus (K) and, on an isothermal melt,
-   * df/dH = 1/(H_l − H_s) (m³/J).
+   * without a melt); the table rows the solid and liquid read k up to and k there (physics/material.ts Melt: solidTableK,
+   * liquidTableK, kSolid, kLiquid); for a cell whose k follows its phase, the melt's width liquidus − solidus (K) and,
+   * on an isothermal melt, df/dH = 1/(H_l − H_s) (m³/J).
    */
   readonly kTable: readonly Table[];
   readonly kTableId: Int32Array;
@@ -127,10 +129,11 @@ export interface Workspace {
   readonly hLiquidus: Float64Array;
   readonly solidTableK: Float64Array;
   readonly liquidTableK: Float64Array;
-  readonly mushResistivity: Float64Array;
+  readonly kSolid: Float64Array;
+  readonly kLiquid: Float64Array;
   readonly meltWidthK: Float64Array;
   readonly jumpDfdH: Float64Array;
-  /** The half-cell readings' scratch: [∂k̄/∂T_own, ∂k̄/∂T_nb, k̄, a node's clamped k] (see meanOf). */
+  /** The half-cell readings' scratch: [∂k̄/∂T_own, ∂k̄/∂T_nb, k̄, a node's clamped k, ∂(1/k̄)/∂f] (meanOf, mushHalf). */
   readonly kOut: Float64Array;
 }
 
@@ -164,8 +167,8 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     scratch2: new Float64Array(2),
     kSplits: Uint8Array.from(grid.materials, (mat) => (splitsConductivity(mat) ? 1 : 0)),
     kRegion: new Uint8Array(n), kFloor: new Float64Array(n), kCeiling: new Float64Array(n), kValue: new Float64Array(n),
-    kPiece: new Int32Array(n),
-    kOut: new Float64Array(4),
+    kPiece: new Int32Array(n), kFraction: new Float64Array(n),
+    kOut: new Float64Array(5),
     ...cellConstants(grid),
   };
 }
@@ -181,7 +184,8 @@ function cellConstants(grid: Grid) {
   const hLiquidus = new Float64Array(n).fill(-Infinity);
   const solidTableK = new Float64Array(n);
   const liquidTableK = new Float64Array(n);
-  const mushResistivity = new Float64Array(n);
+  const kSolid = new Float64Array(n);
+  const kLiquid = new Float64Array(n);
   const meltWidthK = new Float64Array(n);
   const jumpDfdH = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -200,11 +204,12 @@ function cellConstants(grid: Grid) {
     hLiquidus[i] = melt.hLiquidus;
     solidTableK[i] = melt.solidTableK;
     liquidTableK[i] = melt.liquidTableK;
-    mushResistivity[i] = 1 / melt.kLiquid - 1 / melt.kSolid;
+    kSolid[i] = melt.kSolid;
+    kLiquid[i] = melt.kLiquid;
     meltWidthK[i] = melt.liquidusK - melt.solidusK;
     jumpDfdH[i] = 1 / (melt.hLiquidus - melt.hSolidus);
   }
-  return { kTable, kSlopes, kTableId, hSolidus, hLiquidus, solidTableK, liquidTableK, mushResistivity, meltWidthK, jumpDfdH };
+  return { kTable, kSlopes, kTableId, hSolidus, hLiquidus, solidTableK, liquidTableK, kSolid, kLiquid, meltWidthK, jumpDfdH };
 }
 
 /**
@@ -212,7 +217,7 @@ function cellConstants(grid: Grid) {
  * temperature so read. Overwrites ws.kRegion, ws.kFloor, ws.kCeiling, ws.kValue, ws.kPiece. Reads ws.T.
  */
 function classifyConductivity(ws: Workspace, U: Float64Array): void {
-  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, hSolidus, hLiquidus, kOut } = ws;
+  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, hSolidus, hLiquidus, kOut, kFraction } = ws;
   for (let i = 0; i < n; i++) {
     const table = kTable[i]!;
     if (table.y.length === 1) { kRegion[i] = K_CONSTANT; kValue[i] = table.y[0]!; continue; }
@@ -225,7 +230,7 @@ function classifyConductivity(ws: Workspace, U: Float64Array): void {
       else {
         const material = ws.grid.materials[i]!;
         kRegion[i] = K_MUSH;
-        kValue[i] = mushConductivity(material.melt!, liquidFractionOf(material, h, T[i + 1]!));
+        kFraction[i] = liquidFractionOf(material, h, T[i + 1]!);
         continue;
       }
     }
@@ -332,14 +337,80 @@ function meanOf(ws: Workspace, i: number, ownNode: number, nbNode: number, pNb: 
 /**
  * halfCellConductivity(cell i, its temperature, T at nbNode) (kirchhoff.ts) from the cell's classification: its half
  * toward a node whose reading is not shared (a face node, a cell of another layer or phase). Writes ws.kOut[0..2] as
- * meanOf() does (0, 0 and the cell's k when its k does not follow T).
+ * meanOf() does (0, 0 and the cell's k when its k does not follow T), and for a two-phase cell ws.kOut[4] (mushHalf).
  */
 function halfTowards(ws: Workspace, i: number, nbNode: number): void {
   const out = ws.kOut;
-  if (ws.kRegion[i] !== K_TABLE) { out[0] = 0; out[1] = 0; out[2] = ws.kValue[i]!; return; }
+  const region = ws.kRegion[i]!;
+  if (region === K_MUSH) { mushHalf(ws, i, nbNode); return; }
+  if (region !== K_TABLE) { out[0] = 0; out[1] = 0; out[2] = ws.kValue[i]!; return; }
   const piece = pieceAt(ws, i, nbNode);
   valueAt(ws, i, nbNode, piece);
   meanOf(ws, i, i + 1, nbNode, piece);
+}
+
+/**
+ * Cell i's own reading under the clamp in ws.kFloor[i], ws.kCeiling[i]: its piece and value (as classifyConductivity()
+ * reads a K_TABLE cell). Overwrites ws.kPiece[i], ws.kValue[i], ws.kOut[3].
+ */
+function ownReading(ws: Workspace, i: number): void {
+  const piece = pieceAt(ws, i, i + 1);
+  ws.kPiece[i] = piece;
+  valueAt(ws, i, i + 1, piece);
+  ws.kValue[i] = ws.kOut[3]!;
+}
+
+/**
+ * halfCellConductivity()'s two-phase case (kirchhoff.ts) for cell i toward node nbNode: the Kirchhoff means of its
+ * solid reading (the table held flat above its solid row) and of its liquid reading (held flat below its liquid row)
+ * toward the neighbour, in series by liquid fraction, 1/k̄ = (1 − f)/k̄_s + f/k̄_l, with the same arithmetic in the same
+ * order. Writes ws.kOut[0..2] as meanOf() does (at f held) and ws.kOut[4] = ∂(1/k̄)/∂f = 1/k̄_l − 1/k̄_s; overwrites
+ * the cell's kFloor, kCeiling, kPiece, kValue and ws.kOut[3].
+ */
+function mushHalf(ws: Workspace, i: number, nbNode: number): void {
+  const out = ws.kOut;
+  const own = ws.T[i + 1]!;
+  const nb = ws.T[nbNode]!;
+  // a part whose reading is flat at both ends (the neighbour between the solid and liquid rows) has its end value
+  let kS = ws.kSolid[i]!;
+  let sOwn = 0;
+  let sNb = 0;
+  const solidRow = ws.solidTableK[i]!;
+  if (own < solidRow || nb < solidRow) {
+    ws.kFloor[i] = -Infinity;
+    ws.kCeiling[i] = solidRow;
+    ownReading(ws, i);
+    const piece = pieceAt(ws, i, nbNode);
+    valueAt(ws, i, nbNode, piece);
+    meanOf(ws, i, i + 1, nbNode, piece);
+    kS = out[2]!;
+    sOwn = out[0]!;
+    sNb = out[1]!;
+  }
+  let kL = ws.kLiquid[i]!;
+  let lOwn = 0;
+  let lNb = 0;
+  const liquidRow = ws.liquidTableK[i]!;
+  if (own > liquidRow || nb > liquidRow) {
+    ws.kFloor[i] = liquidRow;
+    ws.kCeiling[i] = Infinity;
+    ownReading(ws, i);
+    const piece = pieceAt(ws, i, nbNode);
+    valueAt(ws, i, nbNode, piece);
+    meanOf(ws, i, i + 1, nbNode, piece);
+    kL = out[2]!;
+    lOwn = out[0]!;
+    lNb = out[1]!;
+  }
+  const f = ws.kFraction[i]!;
+  const rS = (1 - f) / kS;
+  const rL = f / kL;
+  const k = 1 / (rS + rL);
+  const kk = k * k;
+  out[0] = kk * ((rS * sOwn) / kS + (rL * lOwn) / kL);
+  out[1] = kk * ((rS * sNb) / kS + (rL * lNb) / kL);
+  out[2] = k;
+  out[4] = 1 / kL - 1 / kS;
 }
 
 /**
@@ -361,8 +432,8 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above). Two cells of one
   // layer that read k on the same clamped table share the mean of their common face (one evaluation, slopes swapped)
   classifyConductivity(ws, U);
-  const { kRegion, kFloor, kCeiling, kValue, kPiece, kSplits, kTableId, hSolidus, hLiquidus, kOut, kSlopes } = ws;
-  const { mushResistivity, meltWidthK, jumpDfdH } = ws;
+  const { kRegion, kFloor, kCeiling, kValue, kPiece, kTableId, kOut, kSlopes } = ws;
+  const { meltWidthK, jumpDfdH } = ws;
   const contactAbove = grid.contactAbove;
   let halfBelow = 0;
   let belowOwn = 0;
@@ -377,14 +448,13 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   let generated = 0;
   for (let i = 0; i < n; i++) {
     const j = i + 1;
-    const h = U[j]!;
     const dxi = dx[i]!;
+    // a two-phase cell: half = Δx/(2k̄) with 1/k̄ linear in f: d(half)/dH gains (Δx/2)·(1/k̄_l − 1/k̄_s)·df/dH, per half
     let mush = 0;
-    if (kSplits[i] === 1 && h > hSolidus[i]! && h < hLiquidus[i]!) {
-      // half = Δx/(2k) with 1/k linear in f: d(half)/dH = (Δx/2)·(1/k_l − 1/k_s)·df/dH
+    const inMush = kRegion[i] === K_MUSH;
+    if (inMush) {
       const width = meltWidthK[i]!;
-      const dfdH = width === 0 ? jumpDfdH[i]! : tau[j]! / width;
-      mush = 0.5 * dxi * mushResistivity[i]! * dfdH;
+      mush = 0.5 * dxi * (width === 0 ? jumpDfdH[i]! : tau[j]! / width);
     }
     // half = Δx/(2k̄(T_own, T_nb)): d(half)/dT = −Δx/(2k̄²)·dk̄/dT
     let kLo: number;
@@ -401,7 +471,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
       sLoNb = kOut[1]!;
     }
     const cLo = (-0.5 * dxi) / (kLo * kLo);
-    const loOwn = cLo * sLoOwn * tau[j]! + mush;
+    const loOwn = cLo * sLoOwn * tau[j]! + (inMush ? mush * kOut[4]! : 0);
     const loNb = cLo * sLoNb * tau[j - 1]!;
     const next = i + 1;
     if (next < n && kRegion[i] === K_TABLE && kRegion[next] === K_TABLE && kTableId[next] === kTableId[i]
@@ -434,7 +504,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     dRa[i] = belowOwn + loNb;
     dRb[i] = belowNb + loOwn;
     halfBelow = (0.5 * dxi) / kUp;
-    belowOwn = cUp * upOwn * tau[j]! + mush;
+    belowOwn = cUp * upOwn * tau[j]! + (inMush ? mush * kOut[4]! : 0);
     belowNb = cUp * upNb * tau[j + 1]!;
     if (noTerms && i > 0) {
       const c = i - 1;

@@ -10,15 +10,25 @@
  * with T_i and falls with T_{i+1} whatever the table: the monotone flux of the Kirchhoff transform. Within one material
  * it is the exact Kirchhoff flux (Φ(T_i) − Φ(T_{i+1}))/((Δx_i + Δx_{i+1})/2); for a constant k it is the usual one.
  *
- * A melting material is read as conductivityAt() reads it (physics/material.ts): a solid cell on the table held flat
- * above its solid row, a liquid cell on the table held flat below its liquid row, a two-phase cell at its mush value
- * (which follows the liquid fraction, not T: the caller handles that slope). Except when its latent heat is below what
- * c_p·(1 K) holds (splitsConductivity): then k would jump from k_s to k_l across an enthalpy interval ρL too narrow for
+ * A melting material is read by phase: a solid cell on the table held flat above its solid row (g_s), a liquid cell
+ * on the table held flat below its liquid row (g_l), as conductivityAt() reads them (physics/material.ts). A
+ * two-phase cell with liquid fraction f puts its solid and liquid parts in series as mushConductivity() does, each
+ * part with its own Kirchhoff mean toward the neighbour:  1/k̄ = (1 − f)/k̄_s + f/k̄_l,  k̄_s, k̄_l the means of g_s
+ * and g_l between T_own and T_nb. So k̄ equals the solid cell's at f → 0 and the liquid cell's at f → 1 (continuous
+ * at the solidus and the liquidus), and equals the point mush value whenever both temperatures lie between the solid
+ * and liquid rows.
+ * Why: with the point mush value a cell just past its solidus beside a much colder neighbour conducted with k_s
+ * while the same cell just below it conducted with the mean of g_s down to the neighbour; the stage equations had no
+ * root at that jump and Newton cycled between the two values at the smallest step (fuzz seed 12, nine cases: e.g.
+ * 83.6 ↔ 91.4 kW/m²K). The half flux (2/Δx)·ΔT·k̄ is the harmonic mix of (2/Δx)·ΔΦ_s and (2/Δx)·ΔΦ_l, each monotone
+ * in either temperature, so at a given f the series flux stays monotone; its change with f (through the caller's
+ * df/dH) is ∂(1/k̄)/∂f = 1/k̄_l − 1/k̄_s, in out[2]. A melt whose latent heat is below what c_p·(1 K) holds is not
+ * read by phase (splitsConductivity): its k would jump from k_s to k_l across an enthalpy interval ρL too narrow for
  * any step to resolve (with L = 0, a true jump, and the stage equations have no root: fuzz seed 9 case 275, Newton
  * failed at 1.8e-9 s), so the table is read at T straight through the melt, continuous and Kirchhoff-monotone.
  */
 import type { Material } from '../physics/material.ts';
-import { liquidFractionOf, mushConductivity } from '../physics/material.ts';
+import { liquidFractionOf } from '../physics/material.ts';
 import type { Table } from '../physics/table.ts';
 import { evalTable } from '../physics/table.ts';
 
@@ -105,18 +115,48 @@ export function tableSlopes(table: Table): Float64Array {
 /**
  * The conductivity (W·m⁻¹·K⁻¹) of the half of a cell (enthalpy hJ, temperature ownK) that faces a node at nbK: the
  * Kirchhoff mean of its material's k between the two, read by phase as above; out[0] = ∂k̄/∂T_own, out[1] = ∂k̄/∂T_nb
- * (both 0 in a two-phase cell, whose k follows the liquid fraction). Overwrites out[0], out[1].
+ * (in a two-phase cell at its liquid fraction held), out[2] = ∂(1/k̄)/∂f (m·K/W; 0 outside the two-phase range).
+ * Overwrites out[0..2]: out needs three entries.
  */
 export function halfCellConductivity(material: Material, hJ: number, ownK: number, nbK: number, out: Float64Array): number {
   const melt = material.melt;
   const table = material.conductivity;
   out[0] = 0;
   out[1] = 0;
+  out[2] = 0;
   if (table.y.length === 1) return table.y[0]!;
   if (melt === undefined || !splitsConductivity(material)) return clampedTableMean(table, -Infinity, Infinity, ownK, nbK, out);
   if (hJ <= melt.hSolidus) return clampedTableMean(table, -Infinity, melt.solidTableK, ownK, nbK, out);
   if (hJ >= melt.hLiquidus) return clampedTableMean(table, melt.liquidTableK, Infinity, ownK, nbK, out);
-  return mushConductivity(melt, liquidFractionOf(material, hJ, ownK));
+  const f = liquidFractionOf(material, hJ, ownK);
+  // both ends on a flat stretch of a part's reading (the common case: the neighbour between the solid and liquid
+  // rows): that part's mean is its end value k_s or k_l, exactly, with zero slopes
+  let kS = melt.kSolid;
+  let sOwn = 0;
+  let sNb = 0;
+  if (ownK < melt.solidTableK || nbK < melt.solidTableK) {
+    kS = clampedTableMean(table, -Infinity, melt.solidTableK, ownK, nbK, out);
+    sOwn = out[0]!;
+    sNb = out[1]!;
+  }
+  let kL = melt.kLiquid;
+  let lOwn = 0;
+  let lNb = 0;
+  if (ownK > melt.liquidTableK || nbK > melt.liquidTableK) {
+    kL = clampedTableMean(table, melt.liquidTableK, Infinity, ownK, nbK, out);
+    lOwn = out[0]!;
+    lNb = out[1]!;
+  }
+  // the arithmetic of discretization.ts mushHalf(), in the same order (the same bits); with both parts flat, that of
+  // mushConductivity()
+  const rS = (1 - f) / kS;
+  const rL = f / kL;
+  const k = 1 / (rS + rL);
+  const kk = k * k;
+  out[0] = kk * ((rS * sOwn) / kS + (rL * lOwn) / kL);
+  out[1] = kk * ((rS * sNb) / kS + (rL * lNb) / kL);
+  out[2] = 1 / kL - 1 / kS;
+  return k;
 }
 
 /**

@@ -34,7 +34,7 @@ function reference(grid: Grid, U: Float64Array, T: Float64Array, tau: Float64Arr
   const G = new Float64Array(n + 1);
   const dRa = new Float64Array(n + 1);
   const dRb = new Float64Array(n + 1);
-  const s = new Float64Array(2);
+  const s = new Float64Array(3);
   let halfBelow = 0;
   let belowOwn = 0;
   let belowNb = 0;
@@ -46,11 +46,12 @@ function reference(grid: Grid, U: Float64Array, T: Float64Array, tau: Float64Arr
     let mush = 0;
     if (melt !== undefined && U[j]! > melt.hSolidus && U[j]! < melt.hLiquidus && splitsConductivity(m)) {
       const dfdH = melt.liquidusK === melt.solidusK ? 1 / (melt.hLiquidus - melt.hSolidus) : tau[j]! / (melt.liquidusK - melt.solidusK);
-      mush = 0.5 * dx * (1 / melt.kLiquid - 1 / melt.kSolid) * dfdH;
+      mush = 0.5 * dx * dfdH;
     }
+    // a two-phase cell's half: d(Δx/(2k̄))/dH gains (Δx/2)·∂(1/k̄)/∂f·df/dH, ∂(1/k̄)/∂f in s[2] (0 otherwise)
     const kLo = halfCellConductivity(m, U[j]!, T[j]!, T[j - 1]!, s);
     const cLo = (-0.5 * dx) / (kLo * kLo);
-    const loOwn = cLo * s[0]! * tau[j]! + mush;
+    const loOwn = cLo * s[0]! * tau[j]! + (mush === 0 ? 0 : mush * s[2]!);
     const loNb = cLo * s[1]! * tau[j - 1]!;
     const kUp = halfCellConductivity(m, U[j]!, T[j]!, T[j + 1]!, s);
     const cUp = (-0.5 * dx) / (kUp * kUp);
@@ -58,7 +59,7 @@ function reference(grid: Grid, U: Float64Array, T: Float64Array, tau: Float64Arr
     dRa[i] = belowOwn + loNb;
     dRb[i] = belowNb + loOwn;
     halfBelow = (0.5 * dx) / kUp;
-    belowOwn = cUp * s[0]! * tau[j]! + mush;
+    belowOwn = cUp * s[0]! * tau[j]! + (mush === 0 ? 0 : mush * s[2]!);
     belowNb = cUp * s[1]! * tau[j + 1]!;
   }
   G[n] = 1 / halfBelow;
@@ -105,5 +106,55 @@ describe('evaluate() against halfCellConductivity() per half cell', () => {
           expect(ws.F[i]).toBe(ref.G[j - 1]! * (ws.T[j - 1]! - ws.T[j]!) - ref.G[j]! * (ws.T[j]! - ws.T[j + 1]!) + 0);
         }
       }), { numRuns: 300, seed: 20261202 });
+  });
+});
+
+describe('evaluate() slopes of the series resistances beside two-phase cells', () => {
+  it('match central differences of 1/G in every node (the Jacobian terms dRa, dRb)', () => {
+    // the exact derivative of the two-phase half cell (kirchhoff.ts): through each Kirchhoff mean at the liquid
+    // fraction held, and through the fraction by (Δx/2)·(1/k̄_l − 1/k̄_s)·df/dH. A central difference is exact to
+    // O(e²) on the piecewise-linear pieces; draws with a node within 1 mK of a table row or the melt's ends are skipped
+    fc.assert(fc.property(rows, fc.boolean(), fc.array(fc.double({ min: 250, max: 700, noNaN: true }), { minLength: 4, maxLength: 4 }),
+      fc.array(fc.double({ min: 0.02, max: 0.98, noNaN: true }), { minLength: 2, maxLength: 2 }), (k, isothermal, temps, fracs) => {
+        const salt = material('salt', k, 1200, { solidusK: 420, liquidusK: isothermal ? 420 : 430, latentJPerKg: 2e5 });
+        const melt = salt.melt!;
+        const n = 4;
+        const dx = Float64Array.of(1e-4, 2e-4, 1.5e-4, 1e-4);
+        const grid: Grid = {
+          n, dx, xc: new Float64Array(n), totalM: 5.5e-4, layerOf: new Int32Array(n), materials: Array.from({ length: n }, () => salt),
+          contactAbove: new Float64Array(n), layerStart: Int32Array.of(0), layerEnd: Int32Array.of(n),
+        };
+        const ws = createWorkspace(grid, { facing: 'down', lengthM: 0.01 }, { facing: 'up', lengthM: 0.01 });
+        const U = new Float64Array(n + 2);
+        U[0] = temps[0]!;
+        U[1] = enthalpyAt(salt.enthalpy, temps[1]!);
+        // cells 2 and 3 two-phase; cell 1 and the faces anywhere
+        U[2] = melt.hSolidus + fracs[0]! * (melt.hLiquidus - melt.hSolidus);
+        U[3] = melt.hSolidus + fracs[1]! * (melt.hLiquidus - melt.hSolidus);
+        U[4] = enthalpyAt(salt.enthalpy, temps[2]!);
+        U[5] = temps[3]!;
+        const cond: StepConditions = { bottom: { kind: 'fixed', tK: U[0] }, top: { kind: 'fixed', tK: U[5] }, source: new Float64Array(n) };
+        evaluate(ws, U, cond);
+        const T = Array.from(ws.T);
+        const near = (t: number) => [...Array.from(salt.conductivity.tK), melt.solidusK, melt.liquidusK].some((x) => Math.abs(x - t) < 1e-3);
+        if (T.some(near)) return true;
+        const dRa = Array.from(ws.dRa);
+        const dRb = Array.from(ws.dRb);
+        const G = Array.from(ws.G);
+        for (let node = 0; node <= n + 1; node++) {
+          const e = node === 0 || node === n + 1 ? 1e-5 : 1e-5 * 2000 * 1200;
+          const inv = (v: number) => { const W = U.slice(); W[node] = v; evaluate(ws, W, cond); return Array.from(ws.G, (g) => 1 / g); };
+          const up = inv(U[node]! + e);
+          const down = inv(U[node]! - e);
+          for (const face of [node - 1, node]) {
+            if (face < 0 || face > n) continue;
+            const fd = (up[face]! - down[face]!) / (2 * e);
+            const exact = face === node ? dRa[face]! : dRb[face]!;
+            const scale = Math.abs(fd) + 1e-9 / (G[face]! * Math.abs(e));
+            if (!(Math.abs(exact - fd) <= 1e-5 * scale)) throw new Error(`face ${face}, node ${node}: ${exact} vs ${fd}`);
+          }
+        }
+        return true;
+      }), { numRuns: 300, seed: 20261203 });
   });
 });
