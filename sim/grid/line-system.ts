@@ -230,34 +230,59 @@ export class LineSystem implements StageSystem {
 
 /**
  * Brings the face nodes of U into balance with the cells under `cond` (after a schedule change the face temperature
- * jumps; a zero-volume node has no memory). Scalar Newton per face. Leaves ws evaluated at U. Overwrites U[0], U[n+1].
+ * jumps; a zero-volume node has no memory). Leaves ws evaluated at U. Overwrites U[0], U[n+1].
+ *
+ * Each face's residual G·(T_face − T_cell) − q(T_face) rises with T_face for every physical term (faceBelowAbsoluteZero
+ * below), so its root is bracketed: a point with a positive residual bounds it above, one with a negative residual
+ * below, and 0 K is the floor. Scalar Newton per face, safeguarded by bisection of that bracket (Press et al.,
+ * Numerical Recipes, 3rd ed. 2007, §9.4, "rtsafe"): a Newton step that leaves the bracket is replaced by its midpoint,
+ * and one that would go below the bracket's floor of 0 K tries 0 K itself. Unguarded, a face drawing 1 MW/m² out of a
+ * layer whose k rises ×60 over 3 K above its own temperature stepped up to 2278 K, where that k made the face look
+ * fed, and never came back (fuzz seed 13 cases 1770, 5577). Where Newton stays inside the bracket, or moves by less than
+ * the tolerance, its steps are the plain ones. Returns false if a face has no root at or above 0 K, or has not
+ * converged.
  */
 export function settleFaces(ws: Workspace, U: Float64Array, cond: StepConditions, toleranceK: number): boolean {
   const { n } = ws;
   if (cond.bottom.kind === 'fixed') U[0] = cond.bottom.tK;
   if (cond.top.kind === 'fixed') U[n + 1] = cond.top.tK;
-  const maxIterations = 60;
+  const free = [cond.bottom.kind !== 'fixed', cond.top.kind !== 'fixed'];
+  const node = [0, n + 1];
+  const below = [0, 0];
+  const above = [Infinity, Infinity];
+  const maxIterations = 100;
   for (let iter = 0; iter < maxIterations; iter++) {
     evaluate(ws, U, cond);
     let worst = 0;
-    if (cond.bottom.kind !== 'fixed') {
-      const r = ws.G[0]! * (ws.T[0]! - ws.T[1]!) - ws.faceQ[0]!;
-      const step = r / (ws.G[0]! * (1 - ws.G[0]! * (ws.T[0]! - ws.T[1]!) * ws.dRa[0]!) - ws.faceDq[0]!);
-      U[0] = U[0]! - step;
-      worst = Math.max(worst, Math.abs(step));
-    }
-    if (cond.top.kind !== 'fixed') {
-      const r = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!) - ws.faceQ[1]!;
-      const step = r / (ws.G[n]! * (1 - ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!) * ws.dRb[n]!) - ws.faceDq[1]!);
-      U[n + 1] = U[n + 1]! - step;
-      worst = Math.max(worst, Math.abs(step));
+    for (let side = 0; side < 2; side++) {
+      if (!free[side]) continue;
+      const j = node[side]!;
+      const g = side === 0 ? ws.G[0]! : ws.G[n]!;
+      const dT = side === 0 ? ws.T[0]! - ws.T[1]! : ws.T[n + 1]! - ws.T[n]!;
+      const dR = side === 0 ? ws.dRa[0]! : ws.dRb[n]!;
+      const r = g * dT - ws.faceQ[side]!;
+      const x = U[j]!;
+      if (r > 0) above[side] = Math.min(above[side]!, x);
+      else below[side] = Math.max(below[side]!, x);
+      // the root lies below 0 K (0 K itself was tried and still loses heat)
+      if (above[side]! <= below[side]! && r > 0) return false;
+      let next = x - r / (g * (1 - g * dT * dR) - ws.faceDq[side]!);
+      // a step within the tolerance is taken as Newton gives it, in or out of the bracket (at the root r may be ±0 or
+      // round off to either side; the last step of a converged face stays the plain Newton step it always was)
+      if (!(next > below[side]! && next < above[side]!) && !(Math.abs(next - x) <= toleranceK)) {
+        next = below[side] === 0 && next <= 0 && x !== 0 ? 0
+          : Number.isFinite(above[side]!) ? 0.5 * (below[side]! + above[side]!)
+          : 2 * Math.max(x, 1);
+      }
+      worst = Math.max(worst, Math.abs(next - x));
+      U[j] = next;
     }
     if (worst <= toleranceK) {
       evaluate(ws, U, cond);
       // book as the face's heat input exactly what its half cell conducts inwards: the Newton remainder of the face
       // balance (up to tolerance × (G + |dq/dT|), large beside a stiff plate) then stays out of the energy ledger
-      if (cond.bottom.kind !== 'fixed') ws.faceQ[0] = ws.G[0]! * (ws.T[0]! - ws.T[1]!);
-      if (cond.top.kind !== 'fixed') ws.faceQ[1] = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!);
+      if (free[0]) ws.faceQ[0] = ws.G[0]! * (ws.T[0]! - ws.T[1]!);
+      if (free[1]) ws.faceQ[1] = ws.G[n]! * (ws.T[n + 1]! - ws.T[n]!);
       return true;
     }
     if (!Number.isFinite(worst)) return false;

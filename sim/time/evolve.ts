@@ -203,13 +203,16 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     return true;
   };
   const unsettled = (tS: number): EvolveEnd => {
-    const bottom = faceBelowAbsoluteZero(ws, cond, 0);
-    const top = faceBelowAbsoluteZero(ws, cond, 1);
+    const faceQ = Float64Array.of(ws.faceQ[0]!, ws.faceQ[1]!);
+    const cold = coldestK(ws.T) < 0;
+    const bottom = faceBelowAbsoluteZero(ws, buf.U0, cond, 0);
+    const top = faceBelowAbsoluteZero(ws, buf.U0, cond, 1);
     // a face whose balance needs T < 0 K is the cause: it outranks whatever the unconverged iterate holds
-    const faceQ = Float64Array.of(bottom ? -Infinity : ws.faceQ[0]!, top ? -Infinity : ws.faceQ[1]!);
+    if (bottom) faceQ[0] = -Infinity;
+    if (top) faceQ[1] = -Infinity;
     return {
       status: 'failed', tS, stats,
-      message: bottom || top || coldestK(ws.T) < 0 ? belowAbsoluteZeroMessage(problem, ws, cond, faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
+      message: bottom || top || cold ? belowAbsoluteZeroMessage(problem, ws, cond, faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
     };
   };
   /** Fires the switches due at tS, re-reading the conditions and settling the faces (false if they did not settle). */

@@ -12,6 +12,7 @@
  * §2), so a step accepted whatever its error could overshoot a held face's jump (evolve.ts).
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
+import { evaluate } from '../grid/discretization.ts';
 import { faceHeatIn } from '../physics/faces.ts';
 import type { Problem } from '../physics/problem.ts';
 
@@ -97,9 +98,13 @@ export function belowAbsoluteZeroMessage(problem: Problem, ws: Workspace, cond: 
  * q(0 K) plus what its half cell conducts to it) than it gets, so its temperature would have to fall below absolute
  * zero. The balance G·(T_face − T_cell) − q(T_face) rises with T_face for every physical term, so this decides it.
  */
-export function faceBelowAbsoluteZero(ws: Workspace, cond: StepConditions, side: 0 | 1): boolean {
+export function faceBelowAbsoluteZero(ws: Workspace, U: Float64Array, cond: StepConditions, side: 0 | 1): boolean {
   const c = side === 0 ? cond.bottom : cond.top;
   if (c.kind !== 'terms') return false;
+  // G is the Kirchhoff mean between the face at 0 K and its cell (not the one at whatever iterate the face last held)
+  const at = Float64Array.from(U);
+  at[side === 0 ? 0 : ws.n + 1] = 0;
+  evaluate(ws, at, cond);
   const g = side === 0 ? ws.G[0]! : ws.G[ws.n]!;
   const cellK = side === 0 ? ws.T[1]! : ws.T[ws.n]!;
   const scratch = new Float64Array(1);
