@@ -16,6 +16,7 @@
  * a disc on an adiabatic plane, S = 2D (Incropera Table 4.1, from memory) → Nu_L* = 2/π; this bites only at Ra < 0.03.
  * Between Ra = 10³ and 10⁴ the two families are blended smoothly in log Ra (a cubic smoothstep; our own choice, no
  * source), so h(T) has no jump that Newton could cycle across: they differ by 3 % at 10³ and 9 % at 10⁴ (up face).
+ * The two up-facing textbook laws are blended the same way across their switch at 10⁷, from 10^6.75 to 10^7.25.
  */
 import { airDiffusivity, airKinematicViscosity, airPropertiesAt } from './air.ts';
 import { evalTable } from './table.ts';
@@ -32,6 +33,12 @@ export const naturalConvectionDefaults = {
   /** Blend band, Ra: from pure Raithby–Hollands at its low end to the textbook power laws at its high end. */
   blendLowRa: 1e3,
   blendHighRa: 1e4,
+  /**
+   * Band, Ra, over which the up-facing laws 0.54·Ra^¼ and 0.15·Ra^⅓ (Incropera eqs. 9.30, 9.31) are blended around
+   * their switch at 10⁷: a quarter decade either side (they differ by 1.5 % at its low end and 12 % at its high end).
+   */
+  switchLowRa: 1e7 / 10 ** 0.25,
+  switchHighRa: 1e7 * 10 ** 0.25,
   /** Conduction floor of an up-facing disc on an adiabatic plane, Nu_L* = 2/π (S = 2D, Incropera Table 4.1). */
   conductionFloorNu: 2 / Math.PI,
 } as const;
@@ -105,17 +112,34 @@ export const raithbyHollandsDown = (ra: number, pr: number): number => {
   return nuSlope[0]!;
 };
 
-/** The textbook power laws (Incropera eqs. 9.30–9.32) with their exponents, to nuSlope. */
+/**
+ * The textbook power laws (Incropera eqs. 9.30–9.32) with their exponents, to nuSlope. The two up-facing laws meet
+ * at Ra = 10⁷ with a 6 % jump (0.54·Ra^¼ = 30.4, 0.15·Ra^⅓ = 32.3); within a quarter decade either side of it they are
+ * blended like the low band (smoothstep in log Ra; our own choice, no source): a jump in h(T) there left a cold face
+ * under hot air with no root of its balance between 23.83 and 24.65 K, and Newton cycled (fuzz seed 13 case 9212).
+ */
 function textbookWithSlope(ra: number, plumeRises: boolean): void {
   if (!plumeRises) {
     nuSlope[0] = 0.52 * ra ** 0.2;
     nuSlope[1] = 0.2;
-  } else if (ra <= naturalConvectionRanges.upperFacing.switch) {
-    nuSlope[0] = 0.54 * ra ** 0.25;
+    return;
+  }
+  const { switchLowRa, switchHighRa } = naturalConvectionDefaults;
+  const laminar = 0.54 * ra ** 0.25;
+  const turbulent = 0.15 * Math.cbrt(ra);
+  if (ra <= switchLowRa) {
+    nuSlope[0] = laminar;
     nuSlope[1] = 0.25;
-  } else {
-    nuSlope[0] = 0.15 * Math.cbrt(ra);
+  } else if (ra >= switchHighRa) {
+    nuSlope[0] = turbulent;
     nuSlope[1] = 1 / 3;
+  } else {
+    const band = Math.log(switchHighRa / switchLowRa);
+    const s = Math.log(ra / switchLowRa) / band;
+    const w = s * s * (3 - 2 * s);
+    const nu = (1 - w) * laminar + w * turbulent;
+    nuSlope[0] = nu;
+    nuSlope[1] = ((1 - w) * laminar * 0.25 + (w * turbulent) / 3 + (turbulent - laminar) * ((6 * s * (1 - s)) / band)) / nu;
   }
 }
 

@@ -70,6 +70,37 @@ describe('Raithby–Hollands correlations at low Rayleigh numbers (hand calculat
     }
   });
 
+  it('nusselt() of an up-facing plume is continuous across the textbook switch at Ra = 10⁷ and lies between 0.54·Ra^¼ and 0.15·Ra^⅓ (Incropera eqs. 9.30, 9.31)', () => {
+    // Tolerance 1e-12 relative outside the band 10^6.75–10^7.25: each law alone, as written in the textbook.
+    assertClose(nusselt(5e6, PR_AIR, true), 0.54 * 5e6 ** 0.25, { rel: 1e-12 }, 'Ra 5e6');
+    assertClose(nusselt(2e7, PR_AIR, true), 0.15 * Math.cbrt(2e7), { rel: 1e-12 }, 'Ra 2e7');
+    let previous = nusselt(10 ** 6.5, PR_AIR, true);
+    for (let k = 1; k <= 400; k++) {
+      const ra = 10 ** (6.5 + k / 400);
+      const nu = nusselt(ra, PR_AIR, true);
+      const laminar = 0.54 * ra ** 0.25;
+      const turbulent = 0.15 * Math.cbrt(ra);
+      expect(nu).toBeGreaterThanOrEqual(Math.min(laminar, turbulent) - 1e-12);
+      expect(nu).toBeLessThanOrEqual(Math.max(laminar, turbulent) + 1e-12);
+      // a step of 1/400 decade moves Nu ∝ Ra^⅓ by 0.2 %; the 6 % jump of the two laws at 10⁷ would show far above 1 %
+      expect(Math.abs(nu / previous - 1)).toBeLessThan(0.01);
+      previous = nu;
+    }
+  });
+
+  it('naturalConvectionIn() of a cold face looking down under hot air has dq/dT within 1 % of a central difference across Ra = 10⁷', () => {
+    // a face at 20–30 K under air at 986 K with L = 0.107 m crosses Ra = 10⁷ near 23.9 K (fuzz seed 13 case 9212)
+    const out = new Float64Array(1);
+    for (let tK = 20; tK <= 30; tK += 0.25) {
+      naturalConvectionIn('down', tK, 986.15, 0.106815578465063, out);
+      const slope = out[0]!;
+      const d = 1e-3;
+      const fd = (naturalConvectionIn('down', tK + d, 986.15, 0.106815578465063, out) - naturalConvectionIn('down', tK - d, 986.15, 0.106815578465063, out)) / (2 * d);
+      // Tolerance 1 %: q(T) is smooth (C¹) through the band, so the two differences agree to O(d²)
+      assertClose(slope, fd, { rel: 0.01 }, `dq/dT at ${tK} K`);
+    }
+  });
+
   it('rayleighInRange(): the up face is in range from Ra = 1, the down face only from 10³ (the stated ranges)', () => {
     expect(rayleighInRange(2, true)).toBe(true);
     expect(rayleighInRange(0.5, true)).toBe(false);
