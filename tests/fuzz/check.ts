@@ -5,6 +5,7 @@
 // Bounded time and memory are measured by the callers (the test tier by its timeout, `npm run fuzz` by its figures).
 
 import { resultDocument } from '../../sim/observe/result.ts';
+import { buildGrid } from '../../sim/grid/mesh.ts';
 import { runProblem } from '../../sim/run.ts';
 import { parseScenario } from '../../sim/scenario/scenario.ts';
 import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
@@ -65,7 +66,8 @@ export function checkScenario(scenario: ScenarioFile): FuzzOutcome {
   if (out.status === 'cancelled') return { kind: 'violation', message: 'cancelled without being asked', ms, cells: 0, steps: 0 };
   if (out.status === 'failed') {
     const physical = PHYSICAL_STOPS.some((re) => re.test(out.message));
-    return { kind: physical ? 'stopped' : 'violation', message: out.message, ms, cells: 0, steps: out.stats.steps };
+    // a stopped run returns no grid: its cells are counted on the plan's grid (a ladder may have stopped on a rung below)
+    return { kind: physical ? 'stopped' : 'violation', message: out.message, ms, cells: buildGrid(parsed.problem, parsed.problem.numerics.accuracy?.gridRefine ?? 1).n, steps: out.stats.steps };
   }
   const { record, summary, grid, stats } = out;
   const base = { ms, cells: grid.n, steps: stats.steps };
