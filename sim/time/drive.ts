@@ -6,7 +6,7 @@
  */
 import type { StageSystem, StepBuffers } from '../grid/stage-system.ts';
 import { evolveDefaults } from './evolve.ts';
-import { growthFactor, retryStepS } from './step-control.ts';
+import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
 import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
 import { acceptStep, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
 
@@ -54,6 +54,7 @@ export function drive(sys: StageSystem, buf: StepBuffers, options: DriveOptions,
   let h = stepping.kind === 'adaptive' ? Math.min(stepping.firstStepS, maxStepS) : stepping.stepS;
   let t = 0;
   let rejectedLast = false;
+  const chain = noRejectedTrial();
   while (t < endS) {
     if (stats.steps + stats.rejected >= options.maxSteps) {
       return { status: 'failed', message: `the step budget of ${options.maxSteps} trial steps ran out at t = ${t} s`, tS: t, stats };
@@ -68,7 +69,7 @@ export function drive(sys: StageSystem, buf: StepBuffers, options: DriveOptions,
       if (!adaptive) return { status: 'failed', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
       stats.rejected++;
       rejectedLast = true;
-      h = retryStepS(step, outcome, d);
+      h = retryStepS(step, outcome, d, chain);
       continue;
     }
     stats.steps++;
@@ -81,6 +82,7 @@ export function drive(sys: StageSystem, buf: StepBuffers, options: DriveOptions,
     if (adaptive) {
       h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
       rejectedLast = false;
+      chain.stepS = 0;
     }
     t = t1;
   }

@@ -24,7 +24,7 @@ import type { StateSwitch } from './events.ts';
 import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
-import { growthFactor, retryStepS } from './step-control.ts';
+import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
 import { leavesBounds, stepBounds } from './step-bounds.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
@@ -225,6 +225,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
 
   let h = fixedStepS ?? Math.min(d.firstStepS, numerics.maxStepS);
   let rejectedLast = false;
+  // the last trial rejected on its error in the current chain of rejections (step-control.ts)
+  const chain = noRejectedTrial();
   const adaptive = stepping.kind === 'adaptive';
   const ceiling = options.maxCellSweeps ?? stepGuardDefaults.maxCellSweeps;
   while (t < durationS) {
@@ -269,7 +271,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       }
       stats.rejected++;
       rejectedLast = true;
-      h = retryStepS(step, outcome, d);
+      h = retryStepS(step, outcome, d, chain);
       continue;
     }
     if (adaptive && !euler && stepBounds(line.T0, cond, hasCellTerms, lohi) && leavesBounds(ws.T, lohi, newton.toleranceK)) {
@@ -282,7 +284,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       if (outcome.status !== 'ok') {
         stats.rejected++;
         rejectedLast = true;
-        h = retryStepS(step, outcome, d);
+        h = retryStepS(step, outcome, d, chain);
         continue;
       }
       outcome.errorNorm = errorNorm;
@@ -339,6 +341,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       // (step-control.ts: no growth right after a rejection)
       h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
       rejectedLast = false;
+      chain.stepS = 0;
     }
     if (landing) { t = target; lo = 0; } else if (fine) advance(step); else t = t1;
     sinceLanding = landing || switched ? 0 : sinceLanding + step;
