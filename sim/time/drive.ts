@@ -6,6 +6,7 @@
  */
 import type { StageSystem, StepBuffers } from '../grid/stage-system.ts';
 import { evolveDefaults } from './evolve.ts';
+import type { FixedStepping } from './step-control.ts';
 import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
 import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
 import { acceptStep, stepFaceEnergy, takeStep } from './tr-bdf2.ts';
@@ -14,8 +15,7 @@ export interface DriveOptions {
   /** End of the run, s (the run starts at 0). */
   readonly endS: number;
   /** Adaptive steps from firstStepS up to maxStepS, or a fixed step. */
-  readonly stepping: { readonly kind: 'adaptive'; readonly firstStepS: number; readonly maxStepS: number }
-    | { readonly kind: 'fixed'; readonly stepS: number; readonly scheme: 'tr-bdf2' | 'backward-euler' };
+  readonly stepping: { readonly kind: 'adaptive'; readonly firstStepS: number; readonly maxStepS: number } | FixedStepping;
   readonly newton: NewtonSettings;
   /** Trial steps allowed (accepted and rejected). */
   readonly maxSteps: number;

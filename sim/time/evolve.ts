@@ -24,6 +24,7 @@ import type { StateSwitch } from './events.ts';
 import { createEventWatch, locateRise } from './events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
+import type { FixedStepping } from './step-control.ts';
 import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
 import { leavesBounds, stepBounds } from './step-bounds.ts';
 import { belowAbsoluteZeroMessage, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
@@ -68,9 +69,7 @@ export const evolveDefaults = {
  * has no error estimate here, so it exists only with a fixed step, for the convergence study. A union, so that no
  * contradictory combination (backward Euler with adaptive steps) can be written.
  */
-export type Stepping =
-  | { readonly kind: 'adaptive' }
-  | { readonly kind: 'fixed'; readonly stepS: number; readonly scheme: 'tr-bdf2' | 'backward-euler' };
+export type Stepping = { readonly kind: 'adaptive' } | FixedStepping;
 
 export interface EvolveOptions {
   /** Default adaptive. A fixed step (s) still lands on every breakpoint. */

@@ -7,6 +7,17 @@
  */
 import type { StepOutcome } from './tr-bdf2.ts';
 
+/**
+ * A fixed step (s), with no control: for convergence studies, where backward Euler, having no error estimate here,
+ * may stand in for TR-BDF2. Both time loops (evolve.ts, drive.ts) take it beside their own adaptive settings, so that
+ * backward Euler with adaptive steps cannot be written.
+ */
+export interface FixedStepping {
+  readonly kind: 'fixed';
+  readonly stepS: number;
+  readonly scheme: 'tr-bdf2' | 'backward-euler';
+}
+
 /** The controller's constants (evolveDefaults has them, each with its reason). */
 export interface ControllerSettings {
   readonly safety: number;
