@@ -141,7 +141,10 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
   const ws = createWorkspace(grid, { facing: facingOf('bottom'), lengthM }, { facing: facingOf('top'), lengthM }, problem.layers.map((l) => l.terms));
-  const scale: ErrorScale = { toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: numerics.accuracy?.gridRefine ?? 1 };
+  const scale: ErrorScale = {
+    toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: numerics.accuracy?.gridRefine ?? 1,
+    separator: problem.layers.map((l) => l.separator),
+  };
   const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
   // a floored step must not fail for want of iterations: each cell crossing a melt kink costs one (its update stops
   // there), and a face held far below a thin melting layer's plateau freezes many cells within one floored step

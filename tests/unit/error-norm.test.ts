@@ -1,0 +1,69 @@
+// LineSystem.errorNorm() (grid/line-system.ts), worked by hand on a six-cell stack: the temperature part of the local
+// error is each cell's |z|·(dT/dH)/tol_K, taken over a layer as its largest cell, except over a separator with a cell
+// in or across its melt in the step, where it is the width-weighted RMS √(Σ Δx·e²/Σ Δx). The numbers are our own.
+
+import { describe, it } from 'vitest';
+import type { StepConditions } from '../../sim/grid/discretization.ts';
+import { createWorkspace, evaluate } from '../../sim/grid/discretization.ts';
+import type { ErrorScale } from '../../sim/grid/line-system.ts';
+import { LineSystem } from '../../sim/grid/line-system.ts';
+import type { Grid } from '../../sim/grid/mesh.ts';
+import { buildMaterial, enthalpyAt } from '../../sim/physics/material.ts';
+import { assertClose } from '../support/assert-close.ts';
+
+// constant ρ = 2000 kg/m³ and c_p = 1000 J/(kg·K): dT/dH = 1/(2e6) K·m³/J in the solid, so z = 2e6·e·tol_K J/m³
+// gives a cell the temperature error e (in tolerances)
+const salt = buildMaterial({
+  name: 'salt', title: 'salt', density: 2000, limits: [], sources: {},
+  conductivity: { tK: Float64Array.of(300), y: Float64Array.of(1) },
+  specificHeat: { tK: Float64Array.of(300), y: Float64Array.of(1000) },
+  melt: { solidusK: 420, liquidusK: 430, latentJPerKg: 2e5 },
+});
+const TOL_K = 0.2;
+const RHO_C = 2e6;
+
+/** Layer 0 (cells 0–1) and layer 1 (cells 2–5), all of the salt, Δx = 0.1 mm; U at 400 K but `mushCell` two-phase. */
+function norm(separator: boolean[] | undefined, mushCell: number, errorCell: number, e: number): number {
+  const n = 6;
+  const dx = new Float64Array(n).fill(1e-4);
+  const grid: Grid = {
+    n, dx, xc: new Float64Array(n), totalM: 6e-4, layerOf: Int32Array.of(0, 0, 1, 1, 1, 1),
+    materials: Array.from({ length: n }, () => salt), contactAbove: new Float64Array(n),
+    layerStart: Int32Array.of(0, 2), layerEnd: Int32Array.of(2, 6),
+  };
+  const ws = createWorkspace(grid, { facing: 'down', lengthM: 0.01 }, { facing: 'up', lengthM: 0.01 });
+  const U = new Float64Array(n + 2);
+  U.fill(400);
+  for (let i = 0; i < n; i++) U[i + 1] = enthalpyAt(salt.enthalpy, 400);
+  U[mushCell + 1] = (salt.melt!.hSolidus + salt.melt!.hLiquidus) / 2;
+  const cond: StepConditions = { bottom: { kind: 'fixed', tK: 400 }, top: { kind: 'fixed', tK: 400 }, source: new Float64Array(n) };
+  evaluate(ws, U, cond);
+  const scale: ErrorScale = { toleranceK: TOL_K, liquidFraction: 4e-3, gridRefine: 1, separator };
+  const line = new LineSystem(ws, scale, () => undefined, cond);
+  line.markStart();
+  const z = new Float64Array(n + 2);
+  z[errorCell + 1] = RHO_C * e * TOL_K;
+  // U1 = U0: the secant falls back to the cell's own dT/dH (1/ρc_p in the solid); the two-phase cell has z = 0, so it
+  // adds nothing to the molten-thickness part, but it marks its layer as melting
+  return line.errorNorm(U, U, z);
+}
+
+describe('LineSystem.errorNorm(): the temperature part, per layer', () => {
+  it('a separator with a two-phase cell counts its cells by width-weighted RMS: one cell at 3 tolerances of four → 1.5', () => {
+    // √(Δx·3²/(4·Δx)) = 3/2
+    assertClose(norm([false, true], 2, 4, 3), 1.5, { rel: 1e-12 }, 'RMS over the separator');
+  });
+
+  it('the same error counts whole in a separator with no cell in its melt, and in any layer not marked separator', () => {
+    // the two-phase cell in the other layer: the separator is not melting, so its largest cell's 3 stands
+    assertClose(norm([false, true], 0, 4, 3), 3, { rel: 1e-12 }, 'separator not melting');
+    // the layer melts but is not a separator (an electrode may melt near its limit): its largest cell's 3
+    assertClose(norm([true, false], 2, 4, 3), 3, { rel: 1e-12 }, 'melting electrode');
+    assertClose(norm(undefined, 2, 4, 3), 3, { rel: 1e-12 }, 'no layer marked');
+  });
+
+  it('the largest layer decides: an electrode cell at 2 beside a melting separator with no error gives 2', () => {
+    // layer 0's largest is 2 (cell 1); layer 1, melting, has RMS 0
+    assertClose(norm([false, true], 2, 1, 2), 2, { rel: 1e-12 }, 'electrode beside a melting separator');
+  });
+});
