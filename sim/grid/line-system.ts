@@ -306,7 +306,7 @@ export function settleFaces(ws: Workspace, U: Float64Array, cond: StepConditions
       if (r > 0) above[side] = Math.min(above[side]!, x);
       else below[side] = Math.max(below[side]!, x);
       // the root lies below 0 K (0 K itself was tried and still loses heat)
-      if (above[side]! <= below[side]! && r > 0) return false;
+      if (x === 0 && r > 0) return false;
       let next = x - r / (g * (1 - g * dT * dR) - ws.faceDq[side]!);
       // a step within the tolerance is taken as Newton gives it, in or out of the bracket (at the root r may be ±0 or
       // round off to either side; the last step of a converged face stays the plain Newton step it always was)
