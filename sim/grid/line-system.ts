@@ -251,6 +251,7 @@ export class LineSystem implements StageSystem {
       const dH = Math.abs(U1[i + 1]! - U0[i + 1]!);
       const secant = dH > ws.capacity[i]! * KINK_NUDGE_K ? Math.abs(T1[i + 1]! - T0[i + 1]!) / dH : ws.tau[i + 1]!;
       const e = (e0 * secant) / scale.toleranceK;
+      const li = grid.layerOf[i]!;
       const latent = ws.latent[i]!;
       if (latent > 0) {
         // the liquid-fraction error counts only for a cell in or across its melt over the step
@@ -258,12 +259,10 @@ export class LineSystem implements StageSystem {
         const a = U0[i + 1]!;
         const b = U1[i + 1]!;
         if (Math.min(a, b) <= melt.hLiquidus + e0 && Math.max(a, b) >= melt.hSolidus - e0) {
-          const li = grid.layerOf[i]!;
           front[li] = front[li]! + (dx[i]! * e0) / Math.max(scale.liquidFraction * latent, scale.toleranceK * ws.capacity[i]!);
           if (scale.separator?.[li]) melting[li] = 1;
         }
       }
-      const li = grid.layerOf[i]!;
       sq[li] = sq[li]! + dx[i]! * e * e;
       if (!(e <= most[li]!)) most[li] = e;
     }

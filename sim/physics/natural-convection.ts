@@ -37,8 +37,8 @@ export const naturalConvectionDefaults = {
    * Band, Ra, over which the up-facing laws 0.54·Ra^¼ and 0.15·Ra^⅓ (Incropera eqs. 9.30, 9.31) are blended around
    * their switch at 10⁷: a quarter decade either side (they differ by 1.5 % at its low end and 12 % at its high end).
    */
-  switchLowRa: 1e7 / 10 ** 0.25,
-  switchHighRa: 1e7 * 10 ** 0.25,
+  switchLowRa: naturalConvectionRanges.upperFacing.switch / 10 ** 0.25,
+  switchHighRa: naturalConvectionRanges.upperFacing.switch * 10 ** 0.25,
   /** Conduction floor of an up-facing disc on an adiabatic plane, Nu_L* = 2/π (S = 2D, Incropera Table 4.1). */
   conductionFloorNu: 2 / Math.PI,
 } as const;
@@ -134,13 +134,22 @@ function textbookWithSlope(ra: number, plumeRises: boolean): void {
     nuSlope[0] = turbulent;
     nuSlope[1] = 1 / 3;
   } else {
-    const band = Math.log(switchHighRa / switchLowRa);
-    const s = Math.log(ra / switchLowRa) / band;
-    const w = s * s * (3 - 2 * s);
-    const nu = (1 - w) * laminar + w * turbulent;
-    nuSlope[0] = nu;
-    nuSlope[1] = ((1 - w) * laminar * 0.25 + (w * turbulent) / 3 + (turbulent - laminar) * ((6 * s * (1 - s)) / band)) / nu;
+    blendWithSlope(ra, switchLowRa, switchHighRa, laminar, 0.25, turbulent, 1 / 3);
   }
+}
+
+/**
+ * Nu and its elasticity, to nuSlope, blended from (lowNu, lowE) at lowRa to (highNu, highE) at highRa by a cubic
+ * smoothstep in log Ra (our own choice, no source), so Nu(Ra) and its slope are continuous across the band. The one
+ * rule for both bands (Raithby–Hollands to textbook, 10³–10⁴; the two up-facing textbook laws around 10⁷).
+ */
+function blendWithSlope(ra: number, lowRa: number, highRa: number, lowNu: number, lowE: number, highNu: number, highE: number): void {
+  const s = Math.log(ra / lowRa) / Math.log(highRa / lowRa);
+  const w = s * s * (3 - 2 * s);
+  const dwdLnRa = (6 * s * (1 - s)) / (LN10 * Math.log10(highRa / lowRa));
+  const nu = (1 - w) * lowNu + w * highNu;
+  nuSlope[0] = nu;
+  nuSlope[1] = ((1 - w) * lowNu * lowE + w * highNu * highE + (highNu - lowNu) * dwdLnRa) / nu;
 }
 
 const LN10 = Math.log(10);
@@ -161,14 +170,7 @@ function nusseltWithSlope(ra: number, pr: number, plumeRises: boolean): void {
   const lowNu = nuSlope[0]!;
   const lowE = nuSlope[1]!;
   textbookWithSlope(ra, plumeRises);
-  const highNu = nuSlope[0]!;
-  const highE = nuSlope[1]!;
-  const s = Math.log(ra / blendLowRa) / Math.log(blendHighRa / blendLowRa);
-  const w = s * s * (3 - 2 * s);
-  const dwdLnRa = (6 * s * (1 - s)) / (LN10 * Math.log10(blendHighRa / blendLowRa));
-  const nu = (1 - w) * lowNu + w * highNu;
-  nuSlope[0] = nu;
-  nuSlope[1] = ((1 - w) * lowNu * lowE + w * highNu * highE + (highNu - lowNu) * dwdLnRa) / nu;
+  blendWithSlope(ra, blendLowRa, blendHighRa, lowNu, lowE, nuSlope[0]!, nuSlope[1]!);
 }
 
 /** Nusselt number of the correlation in force at Rayleigh number ra and Prandtl number pr. */
