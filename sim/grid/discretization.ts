@@ -18,9 +18,9 @@ import { faceHeatIn } from '../physics/faces.ts';
 import type { PlateNode } from '../physics/heater.ts';
 import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
-import { curveSlopes, liquidFractionOf, temperaturesOf } from '../physics/material.ts';
+import { curveSlopes, temperaturesOf } from '../physics/material.ts';
 import { evalTable, type Table } from '../physics/table.ts';
-import { clampedIntegral, clampedValue, splitsConductivity, tableSlopes } from './kirchhoff.ts';
+import { clampedIntegral, clampedValue, meltMean, splitsConductivity, tableSlopes } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import type { CellHeatTerm } from '../physics/heat-terms.ts';
@@ -58,7 +58,7 @@ export interface Workspace {
   readonly G: Float64Array;
   /**
    * Slopes of each face's series resistance 1/G_j in the unknowns of its two nodes, ∂(1/G_j)/∂U_j and ∂(1/G_j)/∂U_{j+1}
-   * (n+1 each): through k̄ of each half cell (kirchhoff.ts) and, in two-phase cells, through the liquid fraction.
+   * (n+1 each): through k̄ of each half cell (kirchhoff.ts), a function of the two temperatures only, so T moving with H by τ.
    */
   readonly dRa: Float64Array;
   readonly dRb: Float64Array;
@@ -104,17 +104,16 @@ export interface Workspace {
   readonly kSlopes: readonly Float64Array[];
   /**
    * Per cell at the last evaluation, how its half cells read k (kirchhoff.ts halfCellConductivity): K_CONSTANT (one
-   * row), K_TABLE (the table clamped to [kFloor, kCeiling]: its phase's range) or K_MUSH (a two-phase cell); kValue: k
-   * at the cell's own temperature as so read; kPiece: the table's piece holding it (also the next search's start);
-   * kFraction: a K_MUSH cell's liquid fraction. A K_MUSH cell's kFloor, kCeiling, kValue and kPiece are its solid's
-   * or its liquid's reading, whichever mushHalf() read last.
+   * row), K_TABLE (the table clamped to [kFloor, kCeiling]: its phase's range; a melting material's cell below its
+   * solidus or above its liquidus) or K_MELT (a melting material's cell at a temperature inside its melt, read by
+   * kirchhoff.ts meltMean()); kValue: k at the cell's own temperature as so read; kPiece: the table's piece holding it
+   * (also the next search's start).
    */
   readonly kRegion: Uint8Array;
   readonly kFloor: Float64Array;
   readonly kCeiling: Float64Array;
   readonly kValue: Float64Array;
   readonly kPiece: Int32Array;
-  readonly kFraction: Float64Array;
   /**
    * Per cell, fixed for the run, read by the kernels instead of the material records (whose shapes differ between
    * materials, which made every read polymorphic): its k table (one record of one shape per distinct table) and that
@@ -131,15 +130,15 @@ export interface Workspace {
   readonly liquidTableK: Float64Array;
   readonly kSolid: Float64Array;
   readonly kLiquid: Float64Array;
-  readonly meltWidthK: Float64Array;
-  readonly jumpDfdH: Float64Array;
-  /** The half-cell readings' scratch: [∂k̄/∂T_own, ∂k̄/∂T_nb, k̄, a node's clamped k, ∂(1/k̄)/∂f] (meanOf, mushHalf). */
+  readonly solidusK: Float64Array;
+  readonly liquidusK: Float64Array;
+  /** The half-cell readings' scratch: [∂k̄/∂T_own, ∂k̄/∂T_nb, k̄, a node's clamped k] (meanOf, meltHalf). */
   readonly kOut: Float64Array;
 }
 
 const K_CONSTANT = 0;
 const K_TABLE = 1;
-const K_MUSH = 2;
+const K_MELT = 2;
 
 /** termsByLayer: each layer's temperature-dependent terms (heat-terms.ts), by layer index; none if omitted. */
 export function createWorkspace(grid: Grid, bottomContext: FaceContext, topContext: FaceContext,
@@ -167,8 +166,8 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     scratch2: new Float64Array(2),
     kSplits: Uint8Array.from(grid.materials, (mat) => (splitsConductivity(mat) ? 1 : 0)),
     kRegion: new Uint8Array(n), kFloor: new Float64Array(n), kCeiling: new Float64Array(n), kValue: new Float64Array(n),
-    kPiece: new Int32Array(n), kFraction: new Float64Array(n),
-    kOut: new Float64Array(5),
+    kPiece: new Int32Array(n),
+    kOut: new Float64Array(4),
     ...cellConstants(grid),
   };
 }
@@ -186,8 +185,8 @@ function cellConstants(grid: Grid) {
   const liquidTableK = new Float64Array(n);
   const kSolid = new Float64Array(n);
   const kLiquid = new Float64Array(n);
-  const meltWidthK = new Float64Array(n);
-  const jumpDfdH = new Float64Array(n);
+  const solidusK = new Float64Array(n).fill(Infinity);
+  const liquidusK = new Float64Array(n).fill(-Infinity);
   for (let i = 0; i < n; i++) {
     const mat = grid.materials[i]!;
     let entry = tables.get(mat.conductivity);
@@ -206,31 +205,29 @@ function cellConstants(grid: Grid) {
     liquidTableK[i] = melt.liquidTableK;
     kSolid[i] = melt.kSolid;
     kLiquid[i] = melt.kLiquid;
-    meltWidthK[i] = melt.liquidusK - melt.solidusK;
-    jumpDfdH[i] = 1 / (melt.hLiquidus - melt.hSolidus);
+    solidusK[i] = melt.solidusK;
+    liquidusK[i] = melt.liquidusK;
   }
-  return { kTable, kSlopes, kTableId, hSolidus, hLiquidus, solidTableK, liquidTableK, kSolid, kLiquid, meltWidthK, jumpDfdH };
+  return { kTable, kSlopes, kTableId, hSolidus, hLiquidus, solidTableK, liquidTableK, kSolid, kLiquid, solidusK, liquidusK };
 }
 
 /**
  * How each cell's half cells read k at its state (halfCellConductivity's cases, kirchhoff.ts), and k at its own
  * temperature so read. Overwrites ws.kRegion, ws.kFloor, ws.kCeiling, ws.kValue, ws.kPiece. Reads ws.T.
  */
-function classifyConductivity(ws: Workspace, U: Float64Array): void {
-  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, hSolidus, hLiquidus, kOut, kFraction } = ws;
+function classifyConductivity(ws: Workspace): void {
+  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, solidusK, liquidusK, kOut } = ws;
   for (let i = 0; i < n; i++) {
     const table = kTable[i]!;
     if (table.y.length === 1) { kRegion[i] = K_CONSTANT; kValue[i] = table.y[0]!; continue; }
     let lo = -Infinity;
     let hi = Infinity;
     if (kSplits[i] === 1) {
-      const h = U[i + 1]!;
-      if (h <= hSolidus[i]!) hi = ws.solidTableK[i]!;
-      else if (h >= hLiquidus[i]!) lo = ws.liquidTableK[i]!;
+      const tOwn = T[i + 1]!;
+      if (tOwn < solidusK[i]!) hi = ws.solidTableK[i]!;
+      else if (tOwn > liquidusK[i]!) lo = ws.liquidTableK[i]!;
       else {
-        const material = ws.grid.materials[i]!;
-        kRegion[i] = K_MUSH;
-        kFraction[i] = liquidFractionOf(material, h, T[i + 1]!);
+        kRegion[i] = K_MELT;
         continue;
       }
     }
@@ -337,80 +334,32 @@ function meanOf(ws: Workspace, i: number, ownNode: number, nbNode: number, pNb: 
 /**
  * halfCellConductivity(cell i, its temperature, T at nbNode) (kirchhoff.ts) from the cell's classification: its half
  * toward a node whose reading is not shared (a face node, a cell of another layer or phase). Writes ws.kOut[0..2] as
- * meanOf() does (0, 0 and the cell's k when its k does not follow T), and for a two-phase cell ws.kOut[4] (mushHalf).
+ * meanOf() does (0, 0 and the cell's k when its k does not follow T). A melting material's cell in its melt, or whose
+ * neighbour's temperature lies in or across it, is read by meltMean() (meltHalf).
  */
 function halfTowards(ws: Workspace, i: number, nbNode: number): void {
   const out = ws.kOut;
   const region = ws.kRegion[i]!;
-  if (region === K_MUSH) { mushHalf(ws, i, nbNode); return; }
+  if (region === K_MELT) { meltHalf(ws, i, nbNode); return; }
   if (region !== K_TABLE) { out[0] = 0; out[1] = 0; out[2] = ws.kValue[i]!; return; }
+  if (ws.kSplits[i] === 1) {
+    // a solid cell (clamped above) toward a node at or above the solidus, a liquid one toward a node at or below the
+    // liquidus: the mean runs through the melt
+    const nb = ws.T[nbNode]!;
+    if (ws.kCeiling[i]! < Infinity ? nb >= ws.solidusK[i]! : nb <= ws.liquidusK[i]!) { meltHalf(ws, i, nbNode); return; }
+  }
   const piece = pieceAt(ws, i, nbNode);
   valueAt(ws, i, nbNode, piece);
   meanOf(ws, i, i + 1, nbNode, piece);
 }
 
 /**
- * Cell i's own reading under the clamp in ws.kFloor[i], ws.kCeiling[i]: its piece and value (as classifyConductivity()
- * reads a K_TABLE cell). Overwrites ws.kPiece[i], ws.kValue[i], ws.kOut[3].
+ * kirchhoff.ts meltMean() for cell i toward node nbNode: the Kirchhoff mean of its melting material's k(T) through the
+ * melt (the cells at and beside a front, a few per layer). Writes ws.kOut[0..2] as meanOf() does.
  */
-function ownReading(ws: Workspace, i: number): void {
-  const piece = pieceAt(ws, i, i + 1);
-  ws.kPiece[i] = piece;
-  valueAt(ws, i, i + 1, piece);
-  ws.kValue[i] = ws.kOut[3]!;
-}
-
-/**
- * halfCellConductivity()'s two-phase case (kirchhoff.ts) for cell i toward node nbNode: the Kirchhoff means of its
- * solid reading (the table held flat above its solid row) and of its liquid reading (held flat below its liquid row)
- * toward the neighbour, in series by liquid fraction, 1/k̄ = (1 − f)/k̄_s + f/k̄_l, with the same arithmetic in the same
- * order. Writes ws.kOut[0..2] as meanOf() does (at f held) and ws.kOut[4] = ∂(1/k̄)/∂f = 1/k̄_l − 1/k̄_s; overwrites
- * the cell's kFloor, kCeiling, kPiece, kValue and ws.kOut[3].
- */
-function mushHalf(ws: Workspace, i: number, nbNode: number): void {
+function meltHalf(ws: Workspace, i: number, nbNode: number): void {
   const out = ws.kOut;
-  const own = ws.T[i + 1]!;
-  const nb = ws.T[nbNode]!;
-  // a part whose reading is flat at both ends (the neighbour between the solid and liquid rows) has its end value
-  let kS = ws.kSolid[i]!;
-  let sOwn = 0;
-  let sNb = 0;
-  const solidRow = ws.solidTableK[i]!;
-  if (own < solidRow || nb < solidRow) {
-    ws.kFloor[i] = -Infinity;
-    ws.kCeiling[i] = solidRow;
-    ownReading(ws, i);
-    const piece = pieceAt(ws, i, nbNode);
-    valueAt(ws, i, nbNode, piece);
-    meanOf(ws, i, i + 1, nbNode, piece);
-    kS = out[2]!;
-    sOwn = out[0]!;
-    sNb = out[1]!;
-  }
-  let kL = ws.kLiquid[i]!;
-  let lOwn = 0;
-  let lNb = 0;
-  const liquidRow = ws.liquidTableK[i]!;
-  if (own > liquidRow || nb > liquidRow) {
-    ws.kFloor[i] = liquidRow;
-    ws.kCeiling[i] = Infinity;
-    ownReading(ws, i);
-    const piece = pieceAt(ws, i, nbNode);
-    valueAt(ws, i, nbNode, piece);
-    meanOf(ws, i, i + 1, nbNode, piece);
-    kL = out[2]!;
-    lOwn = out[0]!;
-    lNb = out[1]!;
-  }
-  const f = ws.kFraction[i]!;
-  const rS = (1 - f) / kS;
-  const rL = f / kL;
-  const k = 1 / (rS + rL);
-  const kk = k * k;
-  out[0] = kk * ((rS * sOwn) / kS + (rL * lOwn) / kL);
-  out[1] = kk * ((rS * sNb) / kS + (rL * lNb) / kL);
-  out[2] = k;
-  out[4] = 1 / kL - 1 / kS;
+  out[2] = meltMean(ws.kTable[i]!, ws.grid.materials[i]!.melt!, ws.T[i + 1]!, ws.T[nbNode]!, out);
 }
 
 /**
@@ -431,9 +380,8 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   // half-cell resistances Δx/(2k̄), k̄ the Kirchhoff mean toward each neighbour (kirchhoff.ts), then series sums on
   // each face with their slopes in the face's two nodes (dRa: the node below, dRb: the node above). Two cells of one
   // layer that read k on the same clamped table share the mean of their common face (one evaluation, slopes swapped)
-  classifyConductivity(ws, U);
+  classifyConductivity(ws);
   const { kRegion, kFloor, kCeiling, kValue, kPiece, kTableId, kOut, kSlopes } = ws;
-  const { meltWidthK, jumpDfdH } = ws;
   const contactAbove = grid.contactAbove;
   let halfBelow = 0;
   let belowOwn = 0;
@@ -449,13 +397,6 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
   for (let i = 0; i < n; i++) {
     const j = i + 1;
     const dxi = dx[i]!;
-    // a two-phase cell: half = Δx/(2k̄) with 1/k̄ linear in f: d(half)/dH gains (Δx/2)·(1/k̄_l − 1/k̄_s)·df/dH, per half
-    let mush = 0;
-    const inMush = kRegion[i] === K_MUSH;
-    if (inMush) {
-      const width = meltWidthK[i]!;
-      mush = 0.5 * dxi * (width === 0 ? jumpDfdH[i]! : tau[j]! / width);
-    }
     // half = Δx/(2k̄(T_own, T_nb)): d(half)/dT = −Δx/(2k̄²)·dk̄/dT
     let kLo: number;
     let sLoOwn: number;
@@ -471,7 +412,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
       sLoNb = kOut[1]!;
     }
     const cLo = (-0.5 * dxi) / (kLo * kLo);
-    const loOwn = cLo * sLoOwn * tau[j]! + (inMush ? mush * kOut[4]! : 0);
+    const loOwn = cLo * sLoOwn * tau[j]!;
     const loNb = cLo * sLoNb * tau[j - 1]!;
     const next = i + 1;
     if (next < n && kRegion[i] === K_TABLE && kRegion[next] === K_TABLE && kTableId[next] === kTableId[i]
@@ -504,7 +445,7 @@ export function evaluate(ws: Workspace, U: Float64Array, cond: StepConditions): 
     dRa[i] = belowOwn + loNb;
     dRb[i] = belowNb + loOwn;
     halfBelow = (0.5 * dxi) / kUp;
-    belowOwn = cUp * upOwn * tau[j]! + (inMush ? mush * kOut[4]! : 0);
+    belowOwn = cUp * upOwn * tau[j]!;
     belowNb = cUp * upNb * tau[j + 1]!;
     if (noTerms && i > 0) {
       const c = i - 1;
@@ -614,8 +555,8 @@ export function stageResidual(ws: Workspace, U: Float64Array, B: Float64Array, h
 /**
  * Jacobian of stageResidual() with respect to U. The flux through face j (node j to j+1), Q_j = G_j·(T_j − T_{j+1}),
  * has slopes a_j = ∂Q_j/∂U_j and b_j = ∂Q_j/∂U_{j+1}, which include the change of G through the half-cell resistances
- * of both its cells (ws.dRa, ws.dRb: two-phase cells through the liquid fraction, single-phase ones through k̄). A cell's own terms
- * add −h·Δx·(∂s/∂T)·τ to its diagonal. Overwrites ws.lower, ws.diag, ws.upper.
+ * of both its cells (ws.dRa, ws.dRb: through k̄ of each half cell, which follows the temperatures alone). A cell's own
+ * terms add −h·Δx·(∂s/∂T)·τ to its diagonal. Overwrites ws.lower, ws.diag, ws.upper.
  */
 export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): void {
   const { n, G, tau, lower, diag, upper, grid, T, dRa, dRb, generatedDs, edgeDs } = ws;

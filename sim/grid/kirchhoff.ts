@@ -10,25 +10,33 @@
  * with T_i and falls with T_{i+1} whatever the table: the monotone flux of the Kirchhoff transform. Within one material
  * it is the exact Kirchhoff flux (Φ(T_i) − Φ(T_{i+1}))/((Δx_i + Δx_{i+1})/2); for a constant k it is the usual one.
  *
- * A melting material is read by phase: a solid cell on the table held flat above its solid row (g_s), a liquid cell
- * on the table held flat below its liquid row (g_l), as conductivityAt() reads them (physics/material.ts). A
- * two-phase cell with liquid fraction f puts its solid and liquid parts in series as mushConductivity() does, each
- * part with its own Kirchhoff mean toward the neighbour:  1/k̄ = (1 − f)/k̄_s + f/k̄_l,  k̄_s, k̄_l the means of g_s
- * and g_l between T_own and T_nb. So k̄ equals the solid cell's at f → 0 and the liquid cell's at f → 1 (continuous
- * at the solidus and the liquidus), and equals the point mush value whenever both temperatures lie between the solid
- * and liquid rows.
- * Why: with the point mush value a cell just past its solidus beside a much colder neighbour conducted with k_s
- * while the same cell just below it conducted with the mean of g_s down to the neighbour; the stage equations had no
- * root at that jump and Newton cycled between the two values at the smallest step (fuzz seed 12, nine cases: e.g.
- * 83.6 ↔ 91.4 kW/m²K). The half flux (2/Δx)·ΔT·k̄ is the harmonic mix of (2/Δx)·ΔΦ_s and (2/Δx)·ΔΦ_l, each monotone
- * in either temperature, so at a given f the series flux stays monotone; its change with f (through the caller's
- * df/dH) is ∂(1/k̄)/∂f = 1/k̄_l − 1/k̄_s, in out[2]. A melt whose latent heat is below what c_p·(1 K) holds is not
- * read by phase (splitsConductivity): its k would jump from k_s to k_l across an enthalpy interval ρL too narrow for
- * any step to resolve (with L = 0, a true jump, and the stage equations have no root: fuzz seed 9 case 275, Newton
- * failed at 1.8e-9 s), so the table is read at T straight through the melt, continuous and Kirchhoff-monotone.
+ * A melting material's k is read by temperature, through its phases: below the solidus the solid's reading, the table
+ * held flat above its last row at or below the solidus (g_s); above the liquidus the liquid's, held flat below its first
+ * row at or above the liquidus (g_l); between them the two in series by the liquid fraction the melt has at T,
+ * 1/k = (1 − f)/k_s + f/k_l (meltConductivity()); at an isothermal melt a jump from k_s to k_l at T_m. Every half cell,
+ * whatever its own phase, takes the Kirchhoff mean of that one k(T) toward its neighbour (meltMean()): a cell on the
+ * plateau at T_m conducts as liquid toward a hotter neighbour and as solid toward a colder one, the two sides of the
+ * front it holds, and a solid cell beside a liquid one reads the liquid's k above T_m. Φ is continuous through the melt,
+ * so the flux is continuous in both temperatures, and monotone: it rises with the cell's temperature and falls with
+ * its neighbour's. Within one material it is the exact steady flux, so a steady front between two nodes leaves every
+ * node on the closed-form profile (tests/validation/melt-conduction.test.ts).
+ * Why by temperature and not by the cell's phase: read by phase, a two-phase cell's conductance followed its liquid
+ * fraction (the two parts in series by f), so the heat a neighbour exchanged with it changed with the cell's own
+ * enthalpy at a fixed temperature. On an isothermal plateau that coupling has the wrong sign for one neighbour (the
+ * hotter one where k_l > k_s, the colder one where k_l < k_s): the discrete equations stop being cooperative (an
+ * off-diagonal of ∂F/∂H below 0), and a front parked in a cell can cycle. Fuzz seed 18 case 9151, default numerics: a
+ * separator with k_l = 2.6 k_s and a plateau worth 8 K of c_p under a held face cycled with a 60 s period, its
+ * neighbours swinging 4 K, in backward Euler at a fixed 0.01 s step too; the run stopped at the work ceiling after 59 000
+ * trial steps. Seed 16 case 4049 (a two-phase cell whose residual fell with its own enthalpy) was the same coupling. A
+ * cooperative system with a stable equilibrium reaches it (Hirsch 1985; Smith, Monotone Dynamical Systems, AMS 1995,
+ * ch. 3), and read by temperature both finish. Before that, read by phase at the cell's point value, the conductance
+ * jumped at the solidus and the stage equations had no root (fuzz seed 12: 83.6 ↔ 91.4 kW/m²K); read by temperature
+ * it is continuous there as everywhere.
+ * A melt whose latent heat is below what c_p·(1 K) holds is not read through its phases (splitsConductivity): its
+ * table is read at T straight through the melt, as a material with no melt is (fuzz seed 9 case 275: with L = 0 and
+ * the point reading by phase, k jumped across an enthalpy interval of width 0).
  */
-import type { Material } from '../physics/material.ts';
-import { liquidFractionOf } from '../physics/material.ts';
+import type { Material, Melt } from '../physics/material.ts';
 import type { Table } from '../physics/table.ts';
 import { evalTable } from '../physics/table.ts';
 
@@ -113,50 +121,95 @@ export function tableSlopes(table: Table): Float64Array {
 }
 
 /**
- * The conductivity (W·m⁻¹·K⁻¹) of the half of a cell (enthalpy hJ, temperature ownK) that faces a node at nbK: the
- * Kirchhoff mean of its material's k between the two, read by phase as above; out[0] = ∂k̄/∂T_own, out[1] = ∂k̄/∂T_nb
- * (in a two-phase cell at its liquid fraction held), out[2] = ∂(1/k̄)/∂f (m·K/W; 0 outside the two-phase range).
- * Overwrites out[0..2]: out needs three entries.
+ * The conductivity (W·m⁻¹·K⁻¹) of the half of a cell at ownK that faces a node at nbK: the Kirchhoff mean of its
+ * material's k between the two, a melting material's k read by temperature as meltConductivity() gives it;
+ * out[0] = ∂k̄/∂T_own, out[1] = ∂k̄/∂T_nb. Overwrites out[0..1]. It does not depend on the cell's enthalpy: see the
+ * header.
  */
-export function halfCellConductivity(material: Material, hJ: number, ownK: number, nbK: number, out: Float64Array): number {
+export function halfCellConductivity(material: Material, ownK: number, nbK: number, out: Float64Array): number {
   const melt = material.melt;
   const table = material.conductivity;
   out[0] = 0;
   out[1] = 0;
-  out[2] = 0;
   if (table.y.length === 1) return table.y[0]!;
   if (melt === undefined || !splitsConductivity(material)) return clampedTableMean(table, -Infinity, Infinity, ownK, nbK, out);
-  if (hJ <= melt.hSolidus) return clampedTableMean(table, -Infinity, melt.solidTableK, ownK, nbK, out);
-  if (hJ >= melt.hLiquidus) return clampedTableMean(table, melt.liquidTableK, Infinity, ownK, nbK, out);
-  const f = liquidFractionOf(material, hJ, ownK);
-  // both ends on a flat stretch of a part's reading (the common case: the neighbour between the solid and liquid
-  // rows): that part's mean is its end value k_s or k_l, exactly, with zero slopes
-  let kS = melt.kSolid;
-  let sOwn = 0;
-  let sNb = 0;
-  if (ownK < melt.solidTableK || nbK < melt.solidTableK) {
-    kS = clampedTableMean(table, -Infinity, melt.solidTableK, ownK, nbK, out);
-    sOwn = out[0]!;
-    sNb = out[1]!;
+  return meltMean(table, melt, ownK, nbK, out);
+}
+
+/**
+ * k (W·m⁻¹·K⁻¹) of a melting material at T (K) as its half cells read it (see the header): the solid's reading below
+ * the solidus, the liquid's above the liquidus, and between them the two in series by the liquid fraction the melt
+ * has at T, 1/k = (1 − f)/k_s + f/k_l with f = (T − T_s)/(T_l − T_s). At an isothermal melt k jumps at T_m, and
+ * `up` picks the side: the liquid's value (true) or the solid's.
+ */
+export function meltConductivity(table: Table, melt: Melt, tK: number, up: boolean): number {
+  if (tK < melt.solidusK || (tK === melt.solidusK && !up)) return clampedValue(table, -Infinity, melt.solidTableK, tK);
+  if (tK > melt.liquidusK || (tK === melt.liquidusK && up)) return clampedValue(table, melt.liquidTableK, Infinity, tK);
+  const f = (tK - melt.solidusK) / (melt.liquidusK - melt.solidusK);
+  return 1 / ((1 - f) / melt.kSolid + f / melt.kLiquid);
+}
+
+/**
+ * ∫_a^b meltConductivity(T) dT (a ≤ b, K): the solid's and the liquid's readings by clampedIntegral(), and across the
+ * melting range the series mix in closed form, ∫ dT/(r_s + f(T)·Δr) = (w/Δr)·ln(r(f_b)/r(f_a)) with r = 1/k, written
+ * as ((T_b − T_a)/r(f_a))·log1p(x)/x, x = (f_b − f_a)·Δr/r(f_a), so that Δr → 0 (k_s = k_l) needs no special case
+ * beyond x = 0.
+ */
+export function meltIntegral(table: Table, melt: Melt, a: number, b: number): number {
+  const ts = melt.solidusK;
+  const tl = melt.liquidusK;
+  let sum = 0;
+  const solidEnd = Math.min(b, ts);
+  if (a < solidEnd) sum += clampedIntegral(table, -Infinity, melt.solidTableK, a, solidEnd);
+  const m0 = Math.max(a, ts);
+  const m1 = Math.min(b, tl);
+  if (m0 < m1) {
+    const w = tl - ts;
+    const rs = 1 / melt.kSolid;
+    const dr = 1 / melt.kLiquid - rs;
+    const r0 = rs + ((m0 - ts) / w) * dr;
+    const x = ((m1 - m0) / w) * (dr / r0);
+    sum += ((m1 - m0) / r0) * (x === 0 ? 1 : Math.log1p(x) / x);
   }
-  let kL = melt.kLiquid;
-  let lOwn = 0;
-  let lNb = 0;
-  if (ownK > melt.liquidTableK || nbK > melt.liquidTableK) {
-    kL = clampedTableMean(table, melt.liquidTableK, Infinity, ownK, nbK, out);
-    lOwn = out[0]!;
-    lNb = out[1]!;
+  const liquidStart = Math.max(a, tl);
+  if (liquidStart < b) sum += clampedIntegral(table, melt.liquidTableK, Infinity, liquidStart, b);
+  return sum;
+}
+
+/**
+ * The Kirchhoff mean of meltConductivity() between own and nb (K), with ∂/∂own in out[0] and ∂/∂nb in out[1]: where
+ * both lie below the solidus or both above the liquidus, clampedTableMean() of that phase's reading (the same bits as
+ * before the melt was read by temperature); otherwise the mean of meltIntegral(), its slopes (k̄ − k(own))/(nb − own)
+ * and (k(nb) − k̄)/(nb − own) with each end's k read on the side facing the other end. Both at one temperature:
+ * strictly inside a melting range, k there with half its slope on each end; at an isothermal melt's T_m (two cells on
+ * the plateau) or at an end of a range, the mean of the two sides' values with slopes 0 (no heat flows between them,
+ * and on the plateau their T does not move with H). Allocates nothing.
+ */
+export function meltMean(table: Table, melt: Melt, own: number, nb: number, out: Float64Array): number {
+  const ts = melt.solidusK;
+  const tl = melt.liquidusK;
+  if (own < ts && nb < ts) return clampedTableMean(table, -Infinity, melt.solidTableK, own, nb, out);
+  if (own > tl && nb > tl) return clampedTableMean(table, melt.liquidTableK, Infinity, own, nb, out);
+  if (own === nb) {
+    if (own > ts && own < tl) {
+      // strictly inside a melting range: k = 1/(r_s + f·Δr), dk/dT = −k²·Δr/w; each end takes half
+      const k = meltConductivity(table, melt, own, true);
+      const slope = (-k * k * (1 / melt.kLiquid - 1 / melt.kSolid)) / (tl - ts);
+      out[0] = slope / 2;
+      out[1] = slope / 2;
+      return k;
+    }
+    // at T_m of an isothermal melt, or at an end of a range (where the two sides' slopes differ)
+    out[0] = 0;
+    out[1] = 0;
+    return (meltConductivity(table, melt, own, false) + meltConductivity(table, melt, own, true)) / 2;
   }
-  // the arithmetic of discretization.ts mushHalf(), in the same order (the same bits); with both parts flat, that of
-  // mushConductivity()
-  const rS = (1 - f) / kS;
-  const rL = f / kL;
-  const k = 1 / (rS + rL);
-  const kk = k * k;
-  out[0] = kk * ((rS * sOwn) / kS + (rL * lOwn) / kL);
-  out[1] = kk * ((rS * sNb) / kS + (rL * lNb) / kL);
-  out[2] = 1 / kL - 1 / kS;
-  return k;
+  const up = nb > own;
+  const span = nb - own;
+  const mean = (up ? meltIntegral(table, melt, own, nb) : meltIntegral(table, melt, nb, own)) / Math.abs(span);
+  out[0] = (mean - meltConductivity(table, melt, own, up)) / span;
+  out[1] = (meltConductivity(table, melt, nb, !up) - mean) / span;
+  return mean;
 }
 
 /**

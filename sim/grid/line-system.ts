@@ -46,12 +46,6 @@ export class LineSystem implements StageSystem {
   readonly channels = CHANNEL_COUNT;
   /** The conditions of the step being taken: set by the time loop before each step. */
   cond: StepConditions;
-  /**
-   * Whether the step being taken is at the smallest step (set by the time loop before each step): only there does a
-   * two-phase cell whose residual falls with its enthalpy go to the end of its melt (newtonUpdate). On longer steps a
-   * Newton failure is met by a shorter step, and the examples keep their bits.
-   */
-  atFloor = false;
   /** Node temperatures at the start of the step, K (n + 2): the secant of the error measure. */
   readonly T0: Float64Array;
   private readonly work: Float64Array;
@@ -133,21 +127,10 @@ export class LineSystem implements StageSystem {
     const n = ws.n;
     let worst = 0;
     let clipped = false;
-    const { diag, hSolidus, hLiquidus } = ws;
     for (let j = 1; j <= n; j++) {
       const old = U[j]!;
       const nudge = ws.capacity[j - 1]! * KINK_NUDGE_K;
-      let next: number;
-      if (this.atFloor && !(diag[j]! > 0) && old > hSolidus[j - 1]! && old < hLiquidus[j - 1]!) {
-        // a two-phase cell whose own residual falls as its enthalpy rises (its conductance grows with its liquid
-        // fraction faster than its capacity takes the heat in: the k of its liquid part ×60 that of its solid part
-        // beside a hot face, fuzz seed 16 case 4049, where Newton cycled inside the melt at the smallest step): Newton's
-        // step there points away from the root, which lies past the end of the melt that the residual's sign names; the
-        // cell goes just past that end, where the branch is monotone again, and Newton goes on from there
-        next = res[j]! < 0 ? hLiquidus[j - 1]! + nudge : hSolidus[j - 1]! - nudge;
-      } else {
-        next = stopAtKink(ws.curves[j - 1]!.kinks, old, old - delta[j]!, nudge);
-      }
+      const next = stopAtKink(ws.curves[j - 1]!.kinks, old, old - delta[j]!, nudge);
       if (next !== old - delta[j]!) { clipped = true; delta[j] = old - next; }
       U[j] = next;
       const scaled = Math.abs(delta[j]! / ws.capacity[j - 1]!);

@@ -185,7 +185,8 @@ function meltConductivities(k: Table, solidusK: number, liquidusK: number) {
  * k (W·m⁻¹·K⁻¹) of a cell with enthalpy hJ and temperature tK. For a material that melts, the table is read on the
  * solid side up to its last row at or below the solidus and on the liquid side from its first row at or above the
  * liquidus (a ramp the table draws across the melt is not used), and a two-phase cell takes the series mix below, so k
- * is continuous in H through the whole phase change.
+ * is continuous in H through the whole phase change. A point value, for the lumped network (lumped/lumped.ts) and the
+ * reports; the grid's half cells read k by temperature through the melt instead (grid/kirchhoff.ts).
  */
 export function conductivityAt(material: Material, hJ: number, tK: number): number {
   const melt = material.melt;
@@ -193,29 +194,6 @@ export function conductivityAt(material: Material, hJ: number, tK: number): numb
   if (melt === undefined) return table.y.length === 1 ? table.y[0]! : evalTable(table, tK);
   if (hJ <= melt.hSolidus) return evalTable(table, Math.min(tK, melt.solidTableK));
   if (hJ >= melt.hLiquidus) return evalTable(table, Math.max(tK, melt.liquidTableK));
-  return mushConductivity(melt, liquidFractionOf(material, hJ, tK));
-}
-
-
-/**
- * conductivityAt() and, in out[0], dk/dT (W·m⁻¹·K⁻²) of a single-phase cell, read as k is read: 0 where the table is
- * held flat, and 0 in a two-phase cell (whose k follows the liquid fraction, handled by the caller). For Newton's
- * Jacobian: a steep k(T) left out of it turns Newton into a slow fixed-point iteration. Overwrites out[0].
- */
-export function conductivityWithSlope(material: Material, hJ: number, tK: number, out: Float64Array): number {
-  const melt = material.melt;
-  const table = material.conductivity;
-  out[0] = 0;
-  if (table.y.length === 1) return table.y[0]!;
-  if (melt === undefined) return evalTableWithSlope(table, tK, out);
-  if (hJ <= melt.hSolidus) {
-    if (tK < melt.solidTableK) return evalTableWithSlope(table, tK, out);
-    return evalTable(table, melt.solidTableK);
-  }
-  if (hJ >= melt.hLiquidus) {
-    if (tK > melt.liquidTableK) return evalTableWithSlope(table, tK, out);
-    return evalTable(table, melt.liquidTableK);
-  }
   return mushConductivity(melt, liquidFractionOf(material, hJ, tK));
 }
 

@@ -258,7 +258,6 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     // overshot (a 1 µm layer under a face switched from 273 °C to −60 °C reached −102 °C: fuzz seed 9 case 179)
     let euler = backwardEuler || atFloor;
     line.cond = cond;
-    line.atFloor = atFloor;
     takeStep(line, buf, step, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
     if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {
