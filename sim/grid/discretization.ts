@@ -20,7 +20,7 @@ import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
 import { curveSlopes, temperaturesOf } from '../physics/material.ts';
 import { evalTable, type Table } from '../physics/table.ts';
-import { clampedIntegral, clampedValue, meltMean, splitsConductivity, tableSlopes } from './kirchhoff.ts';
+import { clampedIntegral, clampedValue, conductionFromK, conductionToK, meltMean, splitsConductivity, tableSlopes } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import type { CellHeatTerm } from '../physics/heat-terms.ts';
@@ -205,8 +205,8 @@ function cellConstants(grid: Grid) {
     liquidTableK[i] = melt.liquidTableK;
     kSolid[i] = melt.kSolid;
     kLiquid[i] = melt.kLiquid;
-    solidusK[i] = melt.solidusK;
-    liquidusK[i] = melt.liquidusK;
+    solidusK[i] = conductionFromK(melt);
+    liquidusK[i] = conductionToK(melt);
   }
   return { kTable, kSlopes, kTableId, hSolidus, hLiquidus, solidTableK, liquidTableK, kSolid, kLiquid, solidusK, liquidusK };
 }

@@ -137,15 +137,33 @@ export function halfCellConductivity(material: Material, ownK: number, nbK: numb
 }
 
 /**
+ * Where a melting material's k passes from the solid's reading to the liquid's, K: its solidus and liquidus; an
+ * isothermal melt smoothed by the melt ramp (physics/melt-ramp.ts, Melt.rampK = δ) over T_m ± δ, in series by a
+ * fraction linear in T as a melting range is, so that the ramp, which takes the kink out of T(H) there, leaves no jump
+ * in k at T_m either (a jump is a kink in Φ, and each cell crossing it would reject steps as the kink of T(H) did).
+ */
+export function conductionFromK(melt: Melt): number {
+  return melt.solidusK === melt.liquidusK && melt.rampK ? melt.solidusK - melt.rampK : melt.solidusK;
+}
+
+/** The upper end of conductionFromK()'s range, K. */
+export function conductionToK(melt: Melt): number {
+  return melt.solidusK === melt.liquidusK && melt.rampK ? melt.liquidusK + melt.rampK : melt.liquidusK;
+}
+
+/**
  * k (W·m⁻¹·K⁻¹) of a melting material at T (K) as its half cells read it (see the header): the solid's reading below
  * the solidus, the liquid's above the liquidus, and between them the two in series by the liquid fraction the melt
- * has at T, 1/k = (1 − f)/k_s + f/k_l with f = (T − T_s)/(T_l − T_s). At an isothermal melt k jumps at T_m, and
- * `up` picks the side: the liquid's value (true) or the solid's.
+ * has at T, 1/k = (1 − f)/k_s + f/k_l with f = (T − T_s)/(T_l − T_s), T_s and T_l as conductionFromK() and
+ * conductionToK() give them. At an isothermal melt without a ramp k jumps at T_m, and `up` picks the side: the
+ * liquid's value (true) or the solid's.
  */
 export function meltConductivity(table: Table, melt: Melt, tK: number, up: boolean): number {
-  if (tK < melt.solidusK || (tK === melt.solidusK && !up)) return clampedValue(table, -Infinity, melt.solidTableK, tK);
-  if (tK > melt.liquidusK || (tK === melt.liquidusK && up)) return clampedValue(table, melt.liquidTableK, Infinity, tK);
-  const f = (tK - melt.solidusK) / (melt.liquidusK - melt.solidusK);
+  const ts = conductionFromK(melt);
+  const tl = conductionToK(melt);
+  if (tK < ts || (tK === ts && !up)) return clampedValue(table, -Infinity, melt.solidTableK, tK);
+  if (tK > tl || (tK === tl && up)) return clampedValue(table, melt.liquidTableK, Infinity, tK);
+  const f = (tK - ts) / (tl - ts);
   return 1 / ((1 - f) / melt.kSolid + f / melt.kLiquid);
 }
 
@@ -156,8 +174,8 @@ export function meltConductivity(table: Table, melt: Melt, tK: number, up: boole
  * beyond x = 0.
  */
 export function meltIntegral(table: Table, melt: Melt, a: number, b: number): number {
-  const ts = melt.solidusK;
-  const tl = melt.liquidusK;
+  const ts = conductionFromK(melt);
+  const tl = conductionToK(melt);
   let sum = 0;
   const solidEnd = Math.min(b, ts);
   if (a < solidEnd) sum += clampedIntegral(table, -Infinity, melt.solidTableK, a, solidEnd);
@@ -186,8 +204,8 @@ export function meltIntegral(table: Table, melt: Melt, a: number, b: number): nu
  * and on the plateau their T does not move with H). Allocates nothing.
  */
 export function meltMean(table: Table, melt: Melt, own: number, nb: number, out: Float64Array): number {
-  const ts = melt.solidusK;
-  const tl = melt.liquidusK;
+  const ts = conductionFromK(melt);
+  const tl = conductionToK(melt);
   if (own < ts && nb < ts) return clampedTableMean(table, -Infinity, melt.solidTableK, own, nb, out);
   if (own > tl && nb > tl) return clampedTableMean(table, melt.liquidTableK, Infinity, own, nb, out);
   if (own === nb) {

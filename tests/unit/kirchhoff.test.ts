@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { clampedTableMean, halfCellConductivity, meltConductivity } from '../../sim/grid/kirchhoff.ts';
 import type { Material } from '../../sim/physics/material.ts';
 import { buildMaterial, temperatureOf } from '../../sim/physics/material.ts';
+import { withMeltRamp } from '../../sim/physics/melt-ramp.ts';
 import type { Table } from '../../sim/physics/table.ts';
 import { assertClose } from '../support/assert-close.ts';
 
@@ -206,6 +207,24 @@ describe('halfCellConductivity() of a melting material', () => {
       expect(halfCellConductivity(m, 400, 400, out)).toBe((kS + kL) / 2);
       expect(Array.from(out)).toEqual([0, 0]);
     }
+  });
+
+  it('has no jump at T_m once the melt ramp smooths an isothermal melt: the series mix over T_m ± δ', () => {
+    // the ramp (physics/melt-ramp.ts) spreads the latent heat over T_m ± δ; k passes from k_s to k_l over the same
+    // interval, in series by a fraction linear in T, as for a melting range of width 2δ: k_s at T_m − δ, k_l at
+    // T_m + δ, the harmonic mean of the two at T_m from either side
+    const m = withMeltRamp(salt([[99, 2], [2, 0.45]], true), 0.1);
+    const melt = m.melt!;
+    const table = m.conductivity;
+    expect(meltConductivity(table, melt, 400, false)).toBe(meltConductivity(table, melt, 400, true));
+    expect(meltConductivity(table, melt, 400, true)).toBeCloseTo(1 / (0.5 / 2 + 0.5 / 0.45), 12);
+    expect(meltConductivity(table, melt, 400 - 0.1, true)).toBeCloseTo(2, 12);
+    expect(meltConductivity(table, melt, 400 + 0.1, false)).toBeCloseTo(0.45, 12);
+    // and the half cell across it is continuous in either temperature through T_m
+    const out = new Float64Array(2);
+    const below = halfCellConductivity(m, 400 - 1e-9, 380, out);
+    const above = halfCellConductivity(m, 400 + 1e-9, 380, out);
+    expect(Math.abs(above - below)).toBeLessThan(1e-8);
   });
 
   it('keeps the series flux monotone in both temperatures beside a cell in its melt, for any liquid fraction', () => {
