@@ -227,6 +227,44 @@ describe('halfCellConductivity() of a melting material', () => {
     expect(Math.abs(above - below)).toBeLessThan(1e-8);
   });
 
+  it('at one temperature reads k there: inside a range with half of dk/dT on each end, at its ends with slopes 0', () => {
+    // inside the melting range 400–430 K the series mix is smooth: its slope against a central difference of
+    // meltConductivity(); at T_s and T_l the two sides' slopes differ and the mean of the values is taken, slopes 0
+    const m = salt([[99, 2], [32, 0.45]], false); // rows 399 and 431 K: k_s = 2, k_l = 0.45
+    const melt = m.melt!;
+    const out = new Float64Array(2);
+    for (const t of [401, 415, 429.5]) {
+      const k = halfCellConductivity(m, t, t, out);
+      expect(k).toBe(meltConductivity(m.conductivity, melt, t, true));
+      const e = 1e-4;
+      const dk = (meltConductivity(m.conductivity, melt, t + e, true) - meltConductivity(m.conductivity, melt, t - e, true)) / (2 * e);
+      assertClose(out[0]!, dk / 2, { rel: 1e-6 }, `∂k̄/∂T_own at ${t} K`);
+      assertClose(out[1]!, dk / 2, { rel: 1e-6 }, `∂k̄/∂T_nb at ${t} K`);
+    }
+    expect(halfCellConductivity(m, 400, 400, out)).toBe(2);
+    expect(Array.from(out)).toEqual([0, 0]);
+    expect(halfCellConductivity(m, 430, 430, out)).toBeCloseTo(0.45, 12);
+    expect(Array.from(out)).toEqual([0, 0]);
+  });
+
+  it('reads the neighbour at T_m of an isothermal melt on the side facing the cell (its slope as it moves toward it)', () => {
+    // own at 390 K (solid), neighbour exactly at T_m = 400 K: the mean is of k_s over [390, 400], and moving the
+    // neighbour toward the cell keeps it there, so ∂k̄/∂T_nb is 0 (read on the far side, k_l, it would be (k_l − k_s)/10)
+    const m = salt([[99, 2], [2, 0.45]], true);
+    const out = new Float64Array(2);
+    expect(halfCellConductivity(m, 390, 400, out)).toBe(2);
+    const e = 1e-6;
+    const toward = (halfCellConductivity(m, 390, 400, new Float64Array(2)) - halfCellConductivity(m, 390, 400 - e, new Float64Array(2))) / e;
+    expect(out[1]).toBe(toward);
+  });
+
+  it('keeps a melting range as it is under the melt ramp (only an isothermal melt is spread over T_m ± δ)', () => {
+    // the ramp smooths the range's capacity kinks, but k is already continuous there: k_s up to the solidus
+    const m = withMeltRamp(salt([[99, 2], [32, 0.45]], false), 0.1);
+    expect(meltConductivity(m.conductivity, m.melt!, 400 - 0.05, true)).toBe(2);
+    expect(meltConductivity(m.conductivity, m.melt!, 430 + 0.05, false)).toBe(0.45);
+  });
+
   it('keeps the series flux monotone in both temperatures beside a cell in its melt, for any liquid fraction', () => {
     fc.assert(fc.property(rows, rows, fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 260, max: 690, noNaN: true }),
       fc.double({ min: 0.01, max: 100, noNaN: true }), fc.boolean(), (k1, k2, f, nb, bump, isothermal) => {
