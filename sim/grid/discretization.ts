@@ -117,21 +117,17 @@ export interface Workspace {
   /**
    * Per cell, fixed for the run, read by the kernels instead of the material records (whose shapes differ between
    * materials, which made every read polymorphic): its k table (one record of one shape per distinct table) and that
-   * table's index (equal indices: the same table); its melt's enthalpies at the solidus and liquidus, J/m³ (+∞ and −∞
-   * without a melt); the table rows the solid and liquid read k up to and k there (physics/material.ts Melt: solidTableK,
-   * liquidTableK, kSolid, kLiquid); for a cell whose k follows its phase, the melt's width liquidus − solidus (K) and,
-   * on an isothermal melt, df/dH = 1/(H_l − H_s) (m³/J).
+   * table's index (equal indices: the same table); the table rows the solid and the liquid read k up to
+   * (physics/material.ts Melt: solidTableK, liquidTableK); and where its k passes from the solid's reading to the
+   * liquid's, K (kirchhoff.ts conductionFromK, conductionToK: the solidus and liquidus, or T_m ± δ under the melt ramp;
+   * +∞ and −∞ without a melt).
    */
   readonly kTable: readonly Table[];
   readonly kTableId: Int32Array;
-  readonly hSolidus: Float64Array;
-  readonly hLiquidus: Float64Array;
   readonly solidTableK: Float64Array;
   readonly liquidTableK: Float64Array;
-  readonly kSolid: Float64Array;
-  readonly kLiquid: Float64Array;
-  readonly solidusK: Float64Array;
-  readonly liquidusK: Float64Array;
+  readonly meltFromK: Float64Array;
+  readonly meltToK: Float64Array;
   /** The half-cell readings' scratch: [∂k̄/∂T_own, ∂k̄/∂T_nb, k̄, a node's clamped k] (meanOf, meltHalf). */
   readonly kOut: Float64Array;
 }
@@ -179,14 +175,10 @@ function cellConstants(grid: Grid) {
   const kTable: Table[] = [];
   const kSlopes: Float64Array[] = [];
   const kTableId = new Int32Array(n);
-  const hSolidus = new Float64Array(n).fill(Infinity);
-  const hLiquidus = new Float64Array(n).fill(-Infinity);
   const solidTableK = new Float64Array(n);
   const liquidTableK = new Float64Array(n);
-  const kSolid = new Float64Array(n);
-  const kLiquid = new Float64Array(n);
-  const solidusK = new Float64Array(n).fill(Infinity);
-  const liquidusK = new Float64Array(n).fill(-Infinity);
+  const meltFromK = new Float64Array(n).fill(Infinity);
+  const meltToK = new Float64Array(n).fill(-Infinity);
   for (let i = 0; i < n; i++) {
     const mat = grid.materials[i]!;
     let entry = tables.get(mat.conductivity);
@@ -199,16 +191,12 @@ function cellConstants(grid: Grid) {
     kTableId[i] = entry.id;
     const melt = mat.melt;
     if (melt === undefined) continue;
-    hSolidus[i] = melt.hSolidus;
-    hLiquidus[i] = melt.hLiquidus;
     solidTableK[i] = melt.solidTableK;
     liquidTableK[i] = melt.liquidTableK;
-    kSolid[i] = melt.kSolid;
-    kLiquid[i] = melt.kLiquid;
-    solidusK[i] = conductionFromK(melt);
-    liquidusK[i] = conductionToK(melt);
+    meltFromK[i] = conductionFromK(melt);
+    meltToK[i] = conductionToK(melt);
   }
-  return { kTable, kSlopes, kTableId, hSolidus, hLiquidus, solidTableK, liquidTableK, kSolid, kLiquid, solidusK, liquidusK };
+  return { kTable, kSlopes, kTableId, solidTableK, liquidTableK, meltFromK, meltToK };
 }
 
 /**
@@ -216,7 +204,7 @@ function cellConstants(grid: Grid) {
  * temperature so read. Overwrites ws.kRegion, ws.kFloor, ws.kCeiling, ws.kValue, ws.kPiece. Reads ws.T.
  */
 function classifyConductivity(ws: Workspace): void {
-  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, solidusK, liquidusK, kOut } = ws;
+  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, meltFromK, meltToK, kOut } = ws;
   for (let i = 0; i < n; i++) {
     const table = kTable[i]!;
     if (table.y.length === 1) { kRegion[i] = K_CONSTANT; kValue[i] = table.y[0]!; continue; }
@@ -224,8 +212,8 @@ function classifyConductivity(ws: Workspace): void {
     let hi = Infinity;
     if (kSplits[i] === 1) {
       const tOwn = T[i + 1]!;
-      if (tOwn < solidusK[i]!) hi = ws.solidTableK[i]!;
-      else if (tOwn > liquidusK[i]!) lo = ws.liquidTableK[i]!;
+      if (tOwn < meltFromK[i]!) hi = ws.solidTableK[i]!;
+      else if (tOwn > meltToK[i]!) lo = ws.liquidTableK[i]!;
       else {
         kRegion[i] = K_MELT;
         continue;
@@ -343,10 +331,10 @@ function halfTowards(ws: Workspace, i: number, nbNode: number): void {
   if (region === K_MELT) { meltHalf(ws, i, nbNode); return; }
   if (region !== K_TABLE) { out[0] = 0; out[1] = 0; out[2] = ws.kValue[i]!; return; }
   if (ws.kSplits[i] === 1) {
-    // a solid cell (clamped above) toward a node at or above the solidus, a liquid one toward a node at or below the
-    // liquidus: the mean runs through the melt
+    // a solid cell (clamped above) toward a node at or above where k leaves the solid's reading, a liquid one toward a
+    // node at or below where it reaches the liquid's: the mean runs through the melt
     const nb = ws.T[nbNode]!;
-    if (ws.kCeiling[i]! < Infinity ? nb >= ws.solidusK[i]! : nb <= ws.liquidusK[i]!) { meltHalf(ws, i, nbNode); return; }
+    if (ws.kCeiling[i]! < Infinity ? nb >= ws.meltFromK[i]! : nb <= ws.meltToK[i]!) { meltHalf(ws, i, nbNode); return; }
   }
   const piece = pieceAt(ws, i, nbNode);
   valueAt(ws, i, nbNode, piece);

@@ -185,8 +185,8 @@ function meltConductivities(k: Table, solidusK: number, liquidusK: number) {
  * k (W·m⁻¹·K⁻¹) of a cell with enthalpy hJ and temperature tK. For a material that melts, the table is read on the
  * solid side up to its last row at or below the solidus and on the liquid side from its first row at or above the
  * liquidus (a ramp the table draws across the melt is not used), and a two-phase cell takes the series mix below, so k
- * is continuous in H through the whole phase change. A point value, for the lumped network (lumped/lumped.ts) and the
- * reports; the grid's half cells read k by temperature through the melt instead (grid/kirchhoff.ts).
+ * is continuous in H through the whole phase change. A point value, for the lumped network (lumped/lumped.ts); the
+ * grid's half cells read k by temperature through the melt instead (grid/kirchhoff.ts).
  */
 export function conductivityAt(material: Material, hJ: number, tK: number): number {
   const melt = material.melt;
