@@ -28,10 +28,10 @@
  * separator with k_l = 2.6 k_s and a plateau worth 8 K of c_p under a held face cycled with a 60 s period, its
  * neighbours swinging 4 K, in backward Euler at a fixed 0.01 s step too; the run stopped at the work ceiling after 59 000
  * trial steps. Seed 16 case 4049 (a two-phase cell whose residual fell with its own enthalpy) was the same coupling. A
- * cooperative system with a stable equilibrium reaches it (Hirsch 1985; Smith, Monotone Dynamical Systems, AMS 1995,
- * ch. 3), and read by temperature both finish. Before that, read by phase at the cell's point value, the conductance
- * jumped at the solidus and the stage equations had no root (fuzz seed 12: 83.6 ↔ 91.4 kW/m²K); read by temperature
- * it is continuous there as everywhere.
+ * cooperative system with a stable equilibrium reaches it (Hirsch's convergence theorem, as in Smith, Monotone
+ * Dynamical Systems, AMS 1995, ch. 3), and read by temperature both finish. Before that, read by phase at the cell's
+ * point value, the conductance jumped at the solidus and the stage equations had no root (fuzz seed 12: 83.6 ↔ 91.4
+ * kW/m²K); read by temperature it is continuous there as everywhere.
  * A melt whose latent heat is below what c_p·(1 K) holds is not read through its phases (splitsConductivity): its
  * table is read at T straight through the melt, as a material with no melt is (fuzz seed 9 case 275: with L = 0 and
  * the point reading by phase, k jumped across an enthalpy interval of width 0).

@@ -199,8 +199,8 @@ export function conductivityAt(material: Material, hJ: number, tK: number): numb
 
 /**
  * Conductivity of a two-phase cell with liquid fraction f: its solid and liquid parts in series across the cell,
- * 1/k = (1 − f)/k_s + f/k_l (a plane front parallel to the layers, as in a 1D stack). Without it, a cell sitting at an
- * isothermal melt would conduct with the table's value at T_m whatever its state, an O(Δx) error in melt times.
+ * 1/k = (1 − f)/k_s + f/k_l (a plane front parallel to the layers, as in a 1D stack). conductivityAt()'s reading of a
+ * two-phase lumped node; the grid's half cells read the same mix by temperature (grid/kirchhoff.ts meltConductivity).
  */
 export function mushConductivity(melt: Melt, liquidFraction: number): number {
   return 1 / ((1 - liquidFraction) / melt.kSolid + liquidFraction / melt.kLiquid);

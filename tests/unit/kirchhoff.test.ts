@@ -96,6 +96,8 @@ function adaptiveSimpson(g: (t: number) => number, a: number, b: number, eps: nu
 describe('halfCellConductivity() of a melting material', () => {
   const scratch = new Float64Array(2);
   const rows = fc.array(fc.tuple(fc.double({ min: 1, max: 60, noNaN: true }), fc.double({ min: 0.05, max: 400, noNaN: true })), { minLength: 2, maxLength: 7 });
+  /** A temperature across the melt (400–430 K) and the rows around it, K. */
+  const kelvin = fc.double({ min: 250, max: 700, noNaN: true });
   const next = (x: number, up: boolean) => {
     const f = new Float64Array([x]);
     const b = new BigInt64Array(f.buffer);
@@ -137,7 +139,7 @@ describe('halfCellConductivity() of a melting material', () => {
   };
 
   it('is continuous across the solidus and the liquidus from both sides, to round-off, on random tables', () => {
-    fc.assert(fc.property(rows, fc.boolean(), fc.double({ min: 250, max: 700, noNaN: true }), (k, isothermal, nb) => {
+    fc.assert(fc.property(rows, fc.boolean(), kelvin, (k, isothermal, nb) => {
       const m = salt(k, isothermal);
       const melt = m.melt!;
       for (const edge of [melt.hSolidus, melt.hLiquidus]) {
@@ -157,7 +159,7 @@ describe('halfCellConductivity() of a melting material', () => {
   });
 
   it('has the slopes of central differences of its mean in both temperatures, in and across the melt', () => {
-    fc.assert(fc.property(rows, fc.boolean(), fc.double({ min: 250, max: 700, noNaN: true }), fc.double({ min: 250, max: 700, noNaN: true }),
+    fc.assert(fc.property(rows, fc.boolean(), kelvin, kelvin,
       (k, isothermal, own, nb) => {
         const m = salt(k, isothermal);
         const melt = m.melt!;
@@ -179,7 +181,7 @@ describe('halfCellConductivity() of a melting material', () => {
   it('is the mean of k(T) over the two temperatures: adaptive Simpson quadrature through the melt agrees', () => {
     // the closed form of the series mix's integral, ∫ dT/(r_s + f(T)·Δr) = (w/Δr)·ln(r_b/r_a) (kirchhoff.ts
     // meltIntegral), against a plain quadrature of meltConductivity() on each smooth piece
-    fc.assert(fc.property(rows, fc.boolean(), fc.double({ min: 250, max: 700, noNaN: true }), fc.double({ min: 250, max: 700, noNaN: true }),
+    fc.assert(fc.property(rows, fc.boolean(), kelvin, kelvin,
       (k, isothermal, a0, b0) => {
         const m = salt(k, isothermal);
         const melt = m.melt!;
