@@ -5,7 +5,7 @@
  * smoothly, which keeps the scheme second order. A contact resistance sits on the face between two layers.
  */
 import type { Material } from '../physics/material.ts';
-import { enthalpyAt, withEnthalpyOrigin } from '../physics/material.ts';
+import { enthalpyAt, withEnthalpyOrigin, writtenCurve } from '../physics/material.ts';
 import type { Problem } from '../physics/problem.ts';
 import { METRES_PER_MM } from '../physics/units.ts';
 
@@ -79,7 +79,8 @@ export function buildGrid(problem: Problem, refine = 1): Grid {
   layers.forEach((layer, li) => {
     const m = counts[li]!;
     const faces = gradedFaces(m);
-    const material = withEnthalpyOrigin(layer.material, enthalpyAt(layer.material.enthalpy, problem.initialK));
+    // the origin is the initial state as the file gives it, read on the curve as written (material.ts writtenCurve)
+    const material = withEnthalpyOrigin(layer.material, enthalpyAt(writtenCurve(layer.material), problem.initialK));
     layerStart[li] = cell;
     for (let j = 0; j < m; j++) {
       const lo = base + faces[j]! * layer.thicknessM;

@@ -230,6 +230,16 @@ export function withEnthalpyOrigin(material: Material, originJ: number): Materia
 }
 
 /** H(T), J/m³, for T in K. */
+/**
+ * The curve on which a temperature given in the file is read: the material's own, as written. Under a melt ramp
+ * (melt-ramp.ts) that is the unramped curve, Melt.lever: the ramp moves T(H) by less than δ near the melt, and a
+ * temperature within δ of it must keep the phase the file gave it (an initial temperature 1e-6 K above an isothermal
+ * melt read on the ramped curve was half liquid; on the curve as written it is liquid, as without the ramp).
+ */
+export function writtenCurve(material: Material): EnthalpyCurve {
+  return material.melt?.lever ?? material.enthalpy;
+}
+
 export function enthalpyAt(curve: EnthalpyCurve, tK: number): number {
   const { tK: xs, h, cLeft, cRight } = curve;
   const last = xs.length - 1;

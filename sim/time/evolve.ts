@@ -12,7 +12,7 @@ import type { ErrorScale } from '../grid/line-system.ts';
 import { LineSystem, settleFaces } from '../grid/line-system.ts';
 import type { StepBuffers } from '../grid/stage-system.ts';
 import { createStepBuffers } from '../grid/stage-system.ts';
-import { enthalpyAt } from '../physics/material.ts';
+import { enthalpyAt, writtenCurve } from '../physics/material.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Problem } from '../physics/problem.ts';
 import { facingOf } from '../physics/natural-convection.ts';
@@ -124,11 +124,14 @@ function conditionsAt(problem: Problem, grid: Grid, tS: number, source: Float64A
   return { bottom: conditionAt(problem.bottom, tS), top: conditionAt(problem.top, tS), source };
 }
 
-/** The initial state: every cell at the initial temperature, faces balanced against it. */
+/**
+ * The initial state: every cell at the initial temperature, read on its material's curve as written (so under a melt
+ * ramp a cell keeps the phase the file gives it; material.ts writtenCurve), faces balanced against it.
+ */
 export function initialState(problem: Problem, grid: Grid, U: Float64Array): void {
   U[0] = problem.initialK;
   U[grid.n + 1] = problem.initialK;
-  for (let i = 0; i < grid.n; i++) U[i + 1] = enthalpyAt(grid.materials[i]!.enthalpy, problem.initialK);
+  for (let i = 0; i < grid.n; i++) U[i + 1] = enthalpyAt(writtenCurve(grid.materials[i]!), problem.initialK);
 }
 
 /**

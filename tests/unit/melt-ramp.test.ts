@@ -7,7 +7,10 @@ import { describe, expect, it } from 'vitest';
 import type { Material, Table } from '../../sim/physics/material.ts';
 import { buildMaterial, enthalpyAt, liquidFractionOf, temperatureOf, withEnthalpyOrigin } from '../../sim/physics/material.ts';
 import { withMeltRamp } from '../../sim/physics/melt-ramp.ts';
+import type { Problem } from '../../sim/physics/problem.ts';
+import { runProblem } from '../../sim/run.ts';
 import { assertClose } from '../support/assert-close.ts';
+import { flat, parseOk, slab } from '../support/scenarios.ts';
 
 const K0 = 273.15;
 const RHO = 2000;
@@ -98,5 +101,28 @@ describe('withMeltRamp()', () => {
     expect(e.kinks.length).toBe(0);
     // capacity at the right end of each segment equals the next one's left end (piecewise linear, continuous)
     for (let i = 0; i + 1 < e.cLeft.length; i++) assertClose(e.cRight[i]!, e.cLeft[i + 1]!, { rel: 1e-12 }, `capacity at knot ${i + 1}`);
+  });
+
+  // The initial temperature is read on the curve as written (material.ts writtenCurve): a file that starts a layer just
+  // above (below) its isothermal melt starts it liquid (solid), with or without the ramp. On the ramped curve
+  // T_m ± 1e-6 K lies on the hat's middle, and the layer started half liquid (found on the one-phase Stefan problem,
+  // whose liquid starts at its melting point).
+  it.each([[1e-6, 1], [-1e-6, 0]])('starts a layer at T_m %s K in the phase the file gives it, not the ramp\'s', (offset, liquid) => {
+    const file = slab({
+      material: { k_W_mK: 1, rho_kg_m3: RHO, cp_J_kgK: flat(CP), melt: { solidus_C: 300, liquidus_C: 300, latent_J_kg: LATENT } },
+      thickness_mm: 1, separator: true, duration_s: 1, initial_C: 300 + offset, ambient_C: 300 + offset,
+      numerics: { cells_per_mm: 8, separator_cells_per_mm: 8 },
+    });
+    const problem = parseOk(file);
+    const ramped: Problem = { ...problem, numerics: { ...problem.numerics, accuracy: { ...problem.numerics.accuracy!, meltRampK: RAMP } } };
+    for (const p of [problem, ramped]) {
+      const out = runProblem(p);
+      if (out.status !== 'ok') throw new Error(JSON.stringify(out));
+      const f = out.record.layers[0]!.liquidFraction!;
+      // an adiabatic layer at rest: its liquid fraction stays what it started at (exactly 0 or 1: the lever rule on the
+      // curve as written reads the enthalpy of the initial state itself)
+      expect(f[0]).toBe(liquid);
+      expect(f[f.length - 1]).toBe(liquid);
+    }
   });
 });
