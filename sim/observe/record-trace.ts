@@ -76,6 +76,27 @@ export function createIndicatorStore(budget: number, heldPairs: number): Indicat
   return { add, finish };
 }
 
+/**
+ * When a cell's enthalpy, Ha at ta and Hb at tb, reaches its melt's liquidus enthalpy (rising) or solidus (not) within
+ * [ta, tb], s: ta if it is there already. A cell inside its melt at ta, moving towards the level at dH/dt = rate
+ * (J·m⁻³·s⁻¹; NaN: unknown), gets there at ta + (level − Ha)/rate when that is within the interval: its enthalpy moves
+ * smoothly while it melts or freezes, and the step's end point lies beyond the kink where it leaves its melt, so a line
+ * through the two points puts the crossing late (the last cell of a one-phase Stefan problem froze 0.50 s late by it,
+ * 0.07 s early by its rate; bench/stefan.ts). Otherwise (its rate unknown or too slow to get there, or it entered its
+ * melt within the interval) the crossing of that line. A cell that does not reach the level by tb: ta (it cannot be
+ * the one that decides, since the indicator crossed).
+ */
+export function eventCrossing(melt: { readonly hSolidus: number; readonly hLiquidus: number }, rising: boolean,
+  Ha: number, Hb: number, rate: number, ta: number, tb: number): number {
+  const level = rising ? melt.hLiquidus : melt.hSolidus;
+  if (rising ? Ha >= level || Hb < level : Ha <= level || Hb > level) return ta;
+  if (Ha > melt.hSolidus && Ha < melt.hLiquidus && (rising ? rate > 0 : rate < 0)) {
+    const t = ta + (level - Ha) / rate;
+    if (t > ta && t <= tb) return t;
+  }
+  return ta + ((tb - ta) * (level - Ha)) / (Hb - Ha);
+}
+
 export interface TraceRecorder {
   /** Records the separator's indicators of an observation: at its stage point ('stage') or at its end ('end'). */
   add(obs: StepObservation, at: 'stage' | 'end'): void;
@@ -111,6 +132,10 @@ export function createTraceRecorder(layout: ObservationLayout, budget: number, h
     return liquidFractionOf(material, h, scratch[0]!);
   };
 
+  // the enthalpies at the last step end (the next step's start), and the last point recorded
+  const startH = separators.map((l) => new Float64Array(l.widthM.length));
+  const last = { tS: NaN, meltMargin: NaN, meanLiquid: NaN, freezeMargin: NaN };
+
   function add(obs: StepObservation, at: 'stage' | 'end'): void {
     let meltMargin = Infinity;
     let freezeMargin = -Infinity;
@@ -130,7 +155,53 @@ export function createTraceRecorder(layout: ObservationLayout, budget: number, h
         width += widthM[j]!;
       }
     }
-    store.add(at === 'stage' ? obs.tStage : obs.t1, meltMargin, liquid / width, freezeMargin);
+    const tS = at === 'stage' ? obs.tStage : obs.t1;
+    const meanLiquid = liquid / width;
+    if (!obs.initial && tS > last.tS) {
+      const melted = last.meltMargin < MELT_LEVEL && meltMargin >= MELT_LEVEL;
+      const froze = last.freezeMargin > FREEZE_LEVEL && freezeMargin <= FREEZE_LEVEL;
+      if (melted || froze) locate(obs, at, tS, melted, froze, meltMargin, meanLiquid, freezeMargin);
+    }
+    store.add(tS, meltMargin, meanLiquid, freezeMargin);
+    last.tS = tS;
+    last.meltMargin = meltMargin;
+    last.meanLiquid = meanLiquid;
+    last.freezeMargin = freezeMargin;
+    if (at === 'end') for (let c = 0; c < separators.length; c++) startH[c]!.set(obs.layers[separators[c]!.index]!.enthalpy);
+  }
+
+  /**
+   * The last separator cell became fully liquid (melted) or solid (froze) between the last point recorded, ta, and
+   * tb: records a point at the time it did, with that indicator exactly at its level (the others linear between the
+   * two points), so the verdicts' linear interpolation finds the event there. Each cell's crossing of its liquidus
+   * (solidus) is found from its enthalpy and heat rate at ta when it was inside its melt then (eventCrossing), and the
+   * event is the latest crossing of the layer's cells.
+   */
+  function locate(obs: StepObservation, at: 'stage' | 'end', tb: number, melted: boolean, froze: boolean,
+    meltB: number, meanB: number, freezeB: number): void {
+    const ta = last.tS;
+    let meltAt = ta;
+    let freezeAt = ta;
+    for (let c = 0; c < separators.length; c++) {
+      const layer = obs.layers[separators[c]!.index]!;
+      const melt = layer.material.melt!;
+      const Ha = at === 'stage' ? startH[c]! : layer.stageEnthalpy;
+      const Hb = at === 'stage' ? layer.stageEnthalpy : layer.enthalpy;
+      // a melt ramp leaves no kink where a cell leaves its melt (physics/melt-ramp.ts): its enthalpy then moves on
+      // smoothly through the level, and the line through the two points serves
+      const rate = layer.material.enthalpy.kinks.length === 0 ? undefined : at === 'stage' ? layer.startHeatRate : layer.stageHeatRate;
+      for (let j = 0; j < Ha.length; j++) {
+        const dHdt = rate === undefined ? NaN : rate[j]! / layer.widthM[j]!;
+        if (melted) meltAt = Math.max(meltAt, eventCrossing(melt, true, Ha[j]!, Hb[j]!, dHdt, ta, tb));
+        if (froze) freezeAt = Math.max(freezeAt, eventCrossing(melt, false, Ha[j]!, Hb[j]!, dHdt, ta, tb));
+      }
+    }
+    const between = (tS: number, a: number, b: number) => a + ((b - a) * (tS - ta)) / (tb - ta);
+    const rows: [number, number, number, number][] = [];
+    if (melted) rows.push([meltAt, MELT_LEVEL, between(meltAt, last.meanLiquid, meanB), between(meltAt, last.freezeMargin, freezeB)]);
+    if (froze) rows.push([freezeAt, between(freezeAt, last.meltMargin, meltB), between(freezeAt, last.meanLiquid, meanB), FREEZE_LEVEL]);
+    rows.sort((a, b) => a[0] - b[0]);
+    for (const [tS, m, f, z] of rows) if (tS > ta && tS < tb) store.add(tS, m, f, z);
   }
 
   return { add, finish: store.finish };

@@ -45,6 +45,13 @@ export interface LayerSamples extends LayerLayout {
   readonly enthalpy: Float64Array;
   /** The same at the stage time tStage, J/m³ (equal to `enthalpy` when the producer has no point inside its step). */
   readonly stageEnthalpy: Float64Array;
+  /**
+   * Net heat rate into each sample at t0 and at tStage under the step's conditions, W/m² of footprint (its dH/dt times
+   * its width). The separator's melt and freeze events are located with them inside a step (observe/record-trace.ts);
+   * a producer without them leaves them out, and the events are interpolated linearly between its points.
+   */
+  readonly startHeatRate?: Float64Array | undefined;
+  readonly stageHeatRate?: Float64Array | undefined;
 }
 
 /** A named face at the step's end: its temperature, K, and the condition it was under during the step. */

@@ -51,24 +51,29 @@ export function createStepObserver(problem: Problem, grid: Grid): StepObserver {
   const obs: Writable<StepObservation> = { t0: 0, tStage: 0, t1: 0, initial: true, eventFired: false, layers, bottom, top, energy };
   let boundT: Float64Array | undefined;
   let boundU: Float64Array | undefined;
-  let boundUg: Float64Array | undefined;
 
-  /** Points the samples at the loop's buffers (once: they are the loop's own for the whole run). */
-  const bind = (T: Float64Array, U: Float64Array, Ug: Float64Array): void => {
+  /**
+   * Points the samples at the loop's buffers (once: they are the loop's own for the whole run). The step's start
+   * rates are F0: the loop reports a step before it accepts it, so F0 still holds the rates at t0 (after a schedule
+   * change at t0, under the new conditions).
+   */
+  const bind = (T: Float64Array, buf: StepReport['buf']): void => {
     layers.forEach((l, li) => {
       // node i + 1 of the loop's n+2 layout is cell i
       const from = grid.layerStart[li]! + 1;
       const to = grid.layerEnd[li]! + 1;
       l.temperatureK = T.subarray(from, to);
-      l.enthalpy = U.subarray(from, to);
-      l.stageEnthalpy = Ug.subarray(from, to);
+      l.enthalpy = buf.U1.subarray(from, to);
+      l.stageEnthalpy = buf.Ug.subarray(from, to);
+      l.startHeatRate = buf.F0.subarray(from, to);
+      l.stageHeatRate = buf.Fg.subarray(from, to);
     });
-    boundT = T; boundU = U; boundUg = Ug;
+    boundT = T; boundU = buf.U1;
   };
 
   function observe(step: StepReport): StepObservation {
     const { ws, buf, cond } = step;
-    if (ws.T !== boundT || buf.U1 !== boundU || buf.Ug !== boundUg) bind(ws.T, buf.U1, buf.Ug);
+    if (ws.T !== boundT || buf.U1 !== boundU) bind(ws.T, buf);
     obs.t0 = step.t0;
     obs.tStage = step.tg;
     obs.t1 = step.t1;
