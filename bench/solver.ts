@@ -131,12 +131,12 @@ const plans = asked.map((a) => {
 });
 const accepted = plans.filter((p) => p.problem !== undefined);
 // the reference: the finest row's plan two grid levels and two tolerance levels further (cells × 4, tolerances ÷ 9,
-// ramp ÷ 4), built from the plan as tests/convergence/event-accuracy.test.ts builds its own; when it exceeds the
+// on the curve as written), built from the plan as tests/convergence/event-accuracy.test.ts builds its own; when it exceeds the
 // solver's work budget, one level of each beyond, then the next coarser row's; rows at or beyond it have no reference
 const finer = (p: Problem, steps: number): Problem => {
   const a = p.numerics.accuracy!;
   return { ...p, numerics: { ...p.numerics, toleranceK: p.numerics.toleranceK / 3 ** steps, liquidFractionTolerance: p.numerics.liquidFractionTolerance / 3 ** steps,
-    accuracy: { ...a, level: a.level + steps, gridRefine: a.gridRefine * 2 ** steps, toleranceDivisor: a.toleranceDivisor * 3 ** steps, meltRampK: (a.meltRampK || 0.1) / 2 ** steps, confirm: false } } };
+    accuracy: { ...a, level: a.level + steps, gridRefine: a.gridRefine * 2 ** steps, toleranceDivisor: a.toleranceDivisor * 3 ** steps, meltRampK: 0, confirm: false } } };
 };
 let refProblem: Problem | undefined;
 let found: ReturnType<typeof runProblem> | undefined;

@@ -1,6 +1,6 @@
 // The accuracy promise of numerics.event_accuracy_s (sim/scenario/accuracy.ts): a run's separator event times
 // (molten, half-frozen, frozen) move by at most the accuracy asked when the run is refined further in both parts the
-// rule models: two more grid levels and two more tolerance levels (cells × 4, tolerances ÷ 9, the melt ramp ÷ 4; the
+// rule models: two more grid levels and two more tolerance levels (cells × 4, tolerances ÷ 9; the
 // reference is built from the plan the run was solved to, not by the rule, so it checks the rule rather than repeats
 // it; when an accuracy is asked, that plan is the rung of runProblem()'s ladder whose estimated error met it, so the
 // a-posteriori estimate is checked too). A grid- and
@@ -34,8 +34,9 @@ function separatorTimes(file: ScenarioFile, accuracyS: number | undefined) {
 }
 
 /**
- * The reference: the plan as run `levels` grid levels and tolerance levels further (2: cells × 4, tolerances ÷ 9, ramp
- * ÷ 4), built from that plan, not by the rule, and run as it is (no ladder). undefined when it stops at the solver's
+ * The reference: the plan as run `levels` grid levels and tolerance levels further (2: cells × 4, tolerances ÷ 9), on
+ * the curve as written (no melt ramp, whose bias a ramped reference would share), built from that plan, not by the
+ * rule, and run as it is (no ladder). undefined when it stops at the solver's
  * run-time ceiling (time/step-guards.ts).
  */
 function referenceTimes(parsed: Problem, plan: AccuracyPlan, levels: number) {
@@ -49,7 +50,7 @@ function referenceTimes(parsed: Problem, plan: AccuracyPlan, levels: number) {
       toleranceK: parsed.numerics.toleranceK * scale,
       liquidFractionTolerance: parsed.numerics.liquidFractionTolerance * scale,
       accuracy: { ...plan, gridRefine: plan.gridRefine * 2 ** levels, toleranceDivisor: plan.toleranceDivisor * 3 ** levels,
-        meltRampK: (plan.meltRampK || 0.1) / 2 ** levels, confirm: false },
+        meltRampK: 0, confirm: false },
     },
   };
   const out = runProblem(problem, { detail: 'summary' });

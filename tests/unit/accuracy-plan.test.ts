@@ -4,7 +4,7 @@
 // asking 1 s: (grid level, tolerance level) (2, 2) gives 2.7/4 + 1.08/4 = 0.945 s ≤ 1 at a modelled work of
 // 4 × 1.5² × 1.5² = 20.25 × level 0, and the only cheaper pairs miss it ((2, 1): 0.675 + 0.54 = 1.215 s; (1, k): 1.35 s
 // from the grid alone); (3, 1) reaches 0.8775 s but costs 8 × 1.5³ × 1.5 = 40.5. So cells × 4, tolerances ÷ 9
-// (0.2 K → 0.0222 K, 4e-3 → 4.44e-4), melt ramp 0.1 K × min(1, 1 / 0.5) = 0.1 K. runProblem() then climbs the ladder
+// (0.2 K → 0.0222 K, 4e-3 → 4.44e-4), the curve as written (no melt ramp). runProblem() then climbs the ladder
 // (0, 0), (1, 1), (2, 2) and may stop at (1, 1) when the estimate from the runs so far is within 1 s.
 
 import { readFileSync } from 'node:fs';
@@ -28,12 +28,13 @@ function solved(numerics?: object) {
 }
 
 describe('the accuracy a run states', () => {
-  it('accuracyPlan() plans event_accuracy_s 1 on the demo as cells ×4, tolerances ÷9, ramp 0.1 K, and asks runProblem() to confirm it', () => {
+  it('accuracyPlan() plans event_accuracy_s 1 on the demo as cells ×4, tolerances ÷9, the curve as written, and asks runProblem() to confirm it', () => {
     const plan = accuracyPlan({ eventAccuracyS: 1, durationS: 3600, ownGrid: false, ownTolerances: false, baseCells: 40, maxCells: 20_000 });
     if ('error' in plan) throw new Error(plan.error);
     expect([plan.level, plan.gridRefine, plan.toleranceDivisor, plan.confirm]).toEqual([2, 4, 9, true]);
+    // no melt ramp (accuracyDefaults.meltRampK: its model error is not bounded by the ask)
+    expect(plan.meltRampK).toBe(0);
     // exact products of round numbers: round-off only
-    assertClose(plan.meltRampK, 0.1, { rel: 1e-15 }, 'melt_ramp_K');
     assertClose(plan.expectedErrorS, 0.945, { rel: 1e-12 }, 'expected_error_s');
   });
 
@@ -59,10 +60,10 @@ describe('the accuracy a run states', () => {
   it('summaryTable() prints the accuracy line: what was asked, what was chosen, the estimate', () => {
     const { problem, out } = solved({ event_accuracy_s: 1 });
     // the plan as parsed: what the rule chose, before any run
-    expect(summaryTable(problem, out.summary, out.record, {})).toContain('accuracy: event times to 1 s, cells ×4, tolerances ÷9, melt kinks smoothed over ±0.1 K (modelled error about 0.95 s)');
+    expect(summaryTable(problem, out.summary, out.record, {})).toContain('accuracy: event times to 1 s, cells ×4, tolerances ÷9 (modelled error about 0.95 s)');
     // the plan as run: the rung, with the estimate from the runs below it
     expect(summaryTable({ ...problem, numerics: out.problem.numerics }, out.summary, out.record, {}))
-      .toMatch(/accuracy: event times to 1 s, cells ×[24], tolerances ÷[39], melt kinks smoothed over ±0\.1 K \(modelled error about [0-9.]+ s; estimated [0-9.]+ s from the runs below it\)/);
+      .toMatch(/accuracy: event times to 1 s, cells ×[24], tolerances ÷[39] \(modelled error about [0-9.]+ s; estimated [0-9.]+ s from the runs below it\)/);
   });
 
   it('resultDocument() says the settings were the file\'s own when it sets both grid and tolerances', () => {
@@ -104,7 +105,7 @@ describe('the ladder runProblem() climbs for an accuracy asked', () => {
     if ('error' in plan) throw new Error(plan.error);
     const rungs = ladderPlans(plan, 600);
     expect(rungs.map((r) => [r.level, r.gridRefine, r.toleranceDivisor, r.confirm])).toEqual([[0, 1, 1, false], [1, 2, 3, false], [2, 4, 9, false], [3, 8, 27, false]]);
-    expect(rungs.map((r) => r.meltRampK)).toEqual([0, plan.meltRampK, plan.meltRampK, plan.meltRampK]);
+    expect(rungs.map((r) => r.meltRampK)).toEqual([0, 0, 0, 0]);
     rungs.forEach((r, i) => assertClose(r.expectedErrorS, 0.63 / 2 ** i, { rel: 1e-12 }, `rung ${i} modelled error`));
     // modelled work 6^l × 1.5^k (cells × 2 and steps × 1.5 per grid level, steps × 1.5 per tolerance level) against
     // the plan's: (3, 3) 91, rung 2 20.25 and rung 1 4.5 are within half of it, kept. (1, 2): 6.75; its rung (1, 1),
