@@ -44,17 +44,24 @@ export const accuracyDefaults = {
   minEventAccuracyS: 1e-3,
   /**
    * Modelled event-time error at level 0 as a share of the duration (1/s · s), in two parts: the grid's (halved by
-   * each doubling of the cells) and the step tolerances' (halved by each division by 3). Calibrated by refinement on
-   * examples/ and the benchmark's scenario: runs at (cells ×1, ×2, ×4; tolerances ÷1) and (×1; ÷3) against a reference
-   * at cells ×8, tolerances ÷9, melt ramp ±0.025 K. The constraints that bind, as S/2^ℓ + T/2^k ≥ measured error: sleeved-square-cell
-   * (2400 s) molten 1.56 s at (×1, ÷3), so S ≥ 1.4 s; cold-morning (3600 s) molten 1.44 s at (×4, ÷1) and 1.25 s at
-   * (×1, ÷3), so T ≳ 0.9 s given S; insulated-pellet-stack (5400 s) frozen 1.67 s at level 0. Shares 6.25e-4 and 2.5e-4
-   * meet every measured error; with a 20 % margin, 7.5e-4 and 3e-4. The event times converge erratically (the last cell
-   * to melt or freeze decides them), so this is a rule checked by tests/convergence/event-accuracy.test.ts, not an
-   * error estimate of the run.
+   * each doubling of the cells) and the step tolerances' (halved by each division by 3). A plan refines the grid at
+   * most as many levels as it divides the tolerances (ℓ ≤ k): at a fixed tolerance level a finer grid lengthened the
+   * time error instead (against cells ×8, tolerances ÷27: insulated-pellet-stack frozen 1.0 s at (×1, ÷1), 6.4 s at
+   * (×2, ÷1), 2.6 s at (×4, ÷1); the one-phase Stefan problem with its wall 5 K below T_m 1.0, 9.9 and 10.9 s: a front
+   * crossing more cells, each a kink, with the same allowance per step). Calibrated (2026-12-03, after the melt and
+   * freeze events were located from the last cell's rate and plans dropped the melt ramp) on examples/, the bench's
+   * accuracy scenario and the one-phase Stefan problem with its wall 100 K and 5 K below T_m
+   * (tests/verification/stefan-events.test.ts): runs at (ℓ, k) = (0, 0), (0, 1), (1, 1), (0, 2), (1, 2), (2, 2)
+   * against cells ×8, tolerances ÷27. The constraints that bind, as S/2^ℓ + T/2^k ≥ measured error ÷ duration:
+   * Stefan 100 K (278 s) 0.071 s at (0, 0), S + T ≥ 2.55e-4; insulated-pellet-stack (5400 s) 1.08 s at (0, 1),
+   * S + T/2 ≥ 1.99e-4; Stefan 100 K 0.032 s at (0, 2), S + T/4 ≥ 1.15e-4. Shares 1.5e-4 and 1.1e-4 meet every measured
+   * error; with a 20 % margin, 1.8e-4 and 1.3e-4. (The shares before, 7.5e-4 and 3e-4, were set by errors the linear
+   * reading of the events inside a step made: sleeved-square-cell's molten time 1.56 s at (0, 1) is 0.10 s now.)
+   * The event times converge erratically (the last cell to melt or freeze decides them), so this is a rule checked by
+   * tests/convergence/event-accuracy.test.ts, not an error estimate of the run.
    */
-  spaceShareAtDefaults: 7.5e-4,
-  timeShareAtDefaults: 3e-4,
+  spaceShareAtDefaults: 1.8e-4,
+  timeShareAtDefaults: 1.3e-4,
   /** Grid factor per grid level, tolerance divisor per tolerance level (see above). */
   gridPerLevel: 2,
   tolerancePerLevel: 3,
@@ -113,12 +120,32 @@ export interface AccuracyAsk {
   /** Cells of the stack at level 0, and the most a run may hold (scenarioLimitDefaults.maxCells). */
   readonly baseCells: number;
   readonly maxCells: number;
+  /**
+   * With the file's own tolerances, the tolerance level they stand at (ownToleranceLevel()): the modelled time part is
+   * taken there, and the grid is refined at most that many levels. 0 when absent.
+   */
+  readonly ownToleranceLevel?: number | undefined;
+}
+
+/**
+ * The tolerance level (divisions by tolerancePerLevel, whole, towards the looser side; negative when looser than the
+ * defaults) that tolerances `toleranceK`, `liquidFraction` stand at against the defaults `defaultK`, `defaultFraction`:
+ * the looser of the two decides, as it does the step.
+ */
+export function ownToleranceLevel(toleranceK: number, liquidFraction: number, defaultK: number, defaultFraction: number): number {
+  const ratio = Math.min(defaultK / toleranceK, defaultFraction / liquidFraction);
+  return Math.floor(Math.log(ratio) / Math.log(accuracyDefaults.tolerancePerLevel) + 1e-9);
 }
 
 /** Modelled event-time error, s, at grid level `level` and tolerance level `tolLevel`. */
 function modelledErrorS(durationS: number, level: number, tolLevel: number): number {
   const d = accuracyDefaults;
   return (d.spaceShareAtDefaults * durationS) / d.gridPerLevel ** level + (d.timeShareAtDefaults * durationS) / 2 ** tolLevel;
+}
+
+/** The tolerance level the run's steps stand at under `ask` at rule tolerance level k (the file's own, when given). */
+function timeLevelOf(ask: AccuracyAsk, k: number): number {
+  return ask.ownTolerances ? (ask.ownToleranceLevel ?? 0) : k;
 }
 
 /** Modelled work of a level, cells × steps (accepted and rejected). */
@@ -138,7 +165,7 @@ function modelledWork(baseCells: number, level: number, tolLevel: number): numbe
 export function accuracyPlan(ask: AccuracyAsk): AccuracyPlan | { readonly error: string } {
   const d = accuracyDefaults;
   const D = ask.durationS;
-  const atDefaults = modelledErrorS(D, 0, 0);
+  const atDefaults = modelledErrorS(D, 0, timeLevelOf(ask, 0));
   const asked = ask.eventAccuracyS ?? Math.max(d.eventAccuracyS, atDefaults);
   const free = ask.eventAccuracyS !== undefined && !(ask.ownGrid && ask.ownTolerances);
   const best = free ? cheapestLevels(ask, asked) : { level: 0, tolLevel: 0 };
@@ -151,7 +178,7 @@ export function accuracyPlan(ask: AccuracyAsk): AccuracyPlan | { readonly error:
     gridRefine: ask.ownGrid ? 1 : d.gridPerLevel ** level,
     toleranceDivisor: ask.ownTolerances ? 1 : d.tolerancePerLevel ** tolLevel,
     meltRampK: ask.ownTolerances ? 0 : ramp,
-    expectedErrorS: modelledErrorS(D, level, tolLevel),
+    expectedErrorS: modelledErrorS(D, level, timeLevelOf(ask, tolLevel)),
     ownGrid: ask.ownGrid,
     ownTolerances: ask.ownTolerances,
   }, free, D);
@@ -177,6 +204,8 @@ export function ladderPlans(plan: AccuracyPlan, durationS: number): AccuracyPlan
   const K = toleranceLevelOf(plan);
   const top = Math.max(plan.level, K);
   const work = (l: number, k: number) => (d.gridPerLevel * d.trialsPerGridLevel) ** l * d.trialsPerToleranceLevel ** k;
+  // with the file's own tolerances every rung keeps them, so the time part of the plan's modelled error
+  const ownTimePartS = plan.expectedErrorS - (d.spaceShareAtDefaults * durationS) / d.gridPerLevel ** plan.level;
   const rungs: AccuracyPlan[] = [];
   for (let i = 0; i <= top; i++) {
     const level = Math.min(i, plan.level);
@@ -188,7 +217,8 @@ export function ladderPlans(plan: AccuracyPlan, durationS: number): AccuracyPlan
       gridRefine: plan.ownGrid ? 1 : d.gridPerLevel ** level,
       toleranceDivisor: plan.ownTolerances ? 1 : d.tolerancePerLevel ** tolLevel,
       meltRampK: level === 0 && tolLevel === 0 ? 0 : plan.meltRampK,
-      expectedErrorS: modelledErrorS(durationS, level, tolLevel),
+      expectedErrorS: plan.ownTolerances ? (d.spaceShareAtDefaults * durationS) / d.gridPerLevel ** level + ownTimePartS
+        : modelledErrorS(durationS, level, tolLevel),
       confirm: false,
     });
   }
@@ -264,13 +294,17 @@ function cheapestLevels(ask: AccuracyAsk, asked: number): { level: number; tolLe
   let workBinds = false;
   for (let l = 0; l <= levels; l++) {
     for (let k = 0; k <= tolLevels; k++) {
-      const err = modelledErrorS(D, l, k);
-      const fits = cellsFit(l) && workFits(l, k);
+      const kt = timeLevelOf(ask, k);
+      // a finer grid needs finer steps: at a fixed tolerance level a grid level lengthened the time error instead
+      // (accuracyDefaults.spaceShareAtDefaults)
+      if (l > kt) continue;
+      const err = modelledErrorS(D, l, kt);
+      const fits = cellsFit(l) && workFits(l, kt);
       if (fits) reachable = Math.min(reachable, err);
       if (err > asked) continue;
       if (!cellsFit(l)) { cellsBind = true; continue; }
-      if (!workFits(l, k)) { workBinds = true; continue; }
-      const work = modelledWork(ask.baseCells, l, k);
+      if (!workFits(l, kt)) { workBinds = true; continue; }
+      const work = modelledWork(ask.baseCells, l, kt);
       if (best === undefined || work < best.work) best = { level: l, tolLevel: k, work };
     }
   }
@@ -279,7 +313,8 @@ function cheapestLevels(ask: AccuracyAsk, asked: number): { level: number; tolLe
     // only one part is ours to pursue: bring it within half the ask, or as far as the limits allow
     let l = 0;
     let k = 0;
-    if (!ask.ownGrid) while (l < d.maxLevel && cellsFit(l + 1) && workFits(l + 1, 0) && (d.spaceShareAtDefaults * D) / d.gridPerLevel ** l > asked / 2) l++;
+    const kt = timeLevelOf(ask, 0);
+    if (!ask.ownGrid) while (l < d.maxLevel && l + 1 <= kt && cellsFit(l + 1) && workFits(l + 1, kt) && (d.spaceShareAtDefaults * D) / d.gridPerLevel ** l > asked / 2) l++;
     if (!ask.ownTolerances) while (k < d.maxToleranceLevel && workFits(0, k + 1) && (d.timeShareAtDefaults * D) / 2 ** k > asked / 2) k++;
     return { level: l, tolLevel: k };
   }
@@ -301,9 +336,11 @@ function twoFiguresUp(x: number): number {
 
 /**
  * The file's numerics (defaults filled in) with the accuracy plan applied: tolerances divided, and the plan recorded
- * for runProblem() (grid factor, melt ramp); or the field error of an accuracy no level reaches.
+ * for runProblem() (grid factor, melt ramp); or the field error of an accuracy no level reaches. `defaults`: the
+ * default tolerances, against which the file's own are placed (ownToleranceLevel).
  */
-export function applyAccuracy(s: ScenarioFile, numerics: Numerics): Numerics | FieldError {
+export function applyAccuracy(s: ScenarioFile, numerics: Numerics,
+  defaults: { readonly toleranceK: number; readonly liquidFractionTolerance: number }): Numerics | FieldError {
   const num = s.numerics ?? {};
   const ownGrid = num.cells_per_mm !== undefined || num.min_cells_per_layer !== undefined ||
     num.separator_cells_per_mm !== undefined || num.min_separator_cells !== undefined || s.layers.some((l) => l.cells !== undefined);
@@ -312,6 +349,7 @@ export function applyAccuracy(s: ScenarioFile, numerics: Numerics): Numerics | F
   const plan = accuracyPlan({
     eventAccuracyS: num.event_accuracy_s, durationS: s.duration_s, ownGrid, ownTolerances,
     baseCells, maxCells: scenarioLimitDefaults.maxCells,
+    ownToleranceLevel: ownTolerances ? ownToleranceLevel(numerics.toleranceK, numerics.liquidFractionTolerance, defaults.toleranceK, defaults.liquidFractionTolerance) : 0,
   });
   if ('error' in plan) return { path: 'numerics.event_accuracy_s', message: plan.error };
   return {

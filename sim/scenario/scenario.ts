@@ -262,7 +262,7 @@ function numericsOf(s: ScenarioFile): Numerics {
 }
 
 function buildProblem(s: ScenarioFile, errors: FieldError[]): Problem | undefined {
-  const planned = applyAccuracy(s, numericsOf(s));
+  const planned = applyAccuracy(s, numericsOf(s), scenarioDefaults);
   if ('path' in planned) { errors.push(planned); return undefined; }
   const numerics = planned;
   // cells and forced steps beyond the limits are refused alone: the rest of the file may be fine
