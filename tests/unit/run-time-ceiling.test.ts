@@ -50,14 +50,15 @@ describe('parseScenario() refuses work beyond the ceiling', () => {
   });
 
   it('counts the cells of the accuracy plan\'s refined grid in cells × forced steps, naming max_step_s and the step that fits', () => {
-    const planned = parseScenario(plate({ event_accuracy_s: 0.2 }));
+    // 0.03 s of 1000 s: the plan is cells ×8, tolerances ÷243 (accuracy.ts; 0.0225 + 0.0041 s modelled)
+    const planned = parseScenario(plate({ event_accuracy_s: 0.03 }));
     expect(planned.ok).toBe(true);
     const refine = planned.ok ? planned.problem.numerics.accuracy!.gridRefine : 0;
     const cells = 40 * refine;
     // 1e5 forced steps: the level-0 grid (40 cells, 4e6 cell-steps) fits; the refined one must not
     expect(40 * 1e5).toBeLessThan(LIMIT.maxForcedCellSteps);
     expect(cells * 1e5).toBeGreaterThan(LIMIT.maxForcedCellSteps);
-    const e = onlyError(plate({ event_accuracy_s: 0.2, max_step_s: 0.01 }));
+    const e = onlyError(plate({ event_accuracy_s: 0.03, max_step_s: 0.01 }));
     expect(e.path).toBe('numerics.max_step_s');
     expect(e.message).toContain(`${cells} cells × 100000 forced steps`);
     expect(e.message).toContain('the limit is 2e+7 (scenarioLimitDefaults.maxForcedCellSteps');
