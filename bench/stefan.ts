@@ -1,11 +1,9 @@
 /**
  * `npm run bench`, part 3: the one-phase Stefan problem, the classic benchmark of phase-change solvers (Alexiades &
  * Solomon, Mathematical Modeling of Melting and Freezing Processes, 1993, §2.1; Voller & Cross, Int. J. Heat Mass
- * Transfer 24, 1981, used it to show the enthalpy method's staircase). A 10 mm salt layer, liquid at its melting point
- * (300 °C), cooled through its bottom face by a fluid at the wall temperature with h = 1e9 W/(m²·K) (a held face counts
- * as a heat input for heat_off_s, so the verdicts would not read a freeze under it; k/h = 1e-9 m moves the front by
- * that much), adiabatic on top. The liquid stays at T_m, so the top face holds no heat the closed form does not: the
- * separator verdicts have exact values, half-frozen when X = 2λ√(αt) = 5 mm and frozen at 10 mm.
+ * Transfer 24, 1981, used it to show the enthalpy method's staircase), as tests/support/stefan-problem.ts builds it: a
+ * 10 mm salt layer liquid at its melting point, cooled through its bottom face, whose separator verdicts have exact
+ * values (half frozen when the front is 5 mm in, frozen at 10 mm).
  *
  * Printed: for a wall 100 K and 5 K below T_m, each verdict time's error at the defaults and at several
  * numerics.event_accuracy_s (the time of one warm run, the plan or rung it ran at, the ladder's estimate, whether both
@@ -14,37 +12,13 @@
  * checks are tests/verification/stefan-events.test.ts). BENCH_QUICK=1 stops the cost rows at 400 cells.
  */
 import { parseScenario } from '../sim/scenario/scenario.ts';
-import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
 import { runProblem } from '../sim/run.ts';
-import { stefanOnePhaseLambda } from '../tests/support/closed-forms.ts';
+import { STEFAN, stefanScenario, stefanTimes } from '../tests/support/stefan-problem.ts';
 
 const QUICK = process.env.BENCH_QUICK === '1';
-const W_M = 0.01;
-const K = 1;
-const RHO = 2000;
-const CP = 1000;
-const LATENT = 2e5;
-const TM_C = 300;
 /** The heavy rows time long runs on purpose (the run-time ceiling would stop them). */
 const LONG = { maxCellSweeps: Infinity, detail: 'summary' } as const;
-
-function closedForm(wallC: number) {
-  const lambda = stefanOnePhaseLambda((CP * (TM_C - wallC)) / LATENT);
-  const at = (x: number) => (x / (2 * lambda)) ** 2 / (K / (RHO * CP));
-  return { lambda, half: at(W_M / 2), frozen: at(W_M) };
-}
-
-function file(wallC: number, numerics?: ScenarioFile['numerics']): unknown {
-  return {
-    freezeline: 1, name: `one-phase Stefan problem, wall ${TM_C - wallC} K below`, ambient_C: 25, initial_C: TM_C + 1e-6,
-    duration_s: Math.ceil(1.2 * closedForm(wallC).frozen),
-    materials: { salt: { k_W_mK: K, rho_kg_m3: RHO, cp_J_kgK: CP, melt: { solidus_C: TM_C, liquidus_C: TM_C, latent_J_kg: LATENT } } },
-    layers: [{ id: 'salt', material: 'salt', thickness_mm: W_M * 1000, separator: true }],
-    bottom: [{ from_s: 0, convection_W_m2K: 1e9, fluid_C: wallC }],
-    top: [],
-    ...(numerics ? { numerics } : {}),
-  };
-}
+const W_MM = STEFAN.thicknessM * 1000;
 
 function solve(value: unknown) {
   const parsed = parseScenario(value);
@@ -60,17 +34,17 @@ function solve(value: unknown) {
 console.log('');
 console.log('freezeline on the one-phase Stefan problem (10 mm salt at its melting point, wall below it; closed form)');
 for (const { wallC, asks } of [{ wallC: 200, asks: [1, 0.5, 0.2, 0.1, 0.05] }, { wallC: 295, asks: [5, 2, 1, 0.5] }]) {
-  const exact = closedForm(wallC);
-  console.log(`  wall ${TM_C - wallC} K below: λ = ${exact.lambda.toFixed(4)}, half-frozen ${exact.half.toFixed(2)} s, frozen ${exact.frozen.toFixed(2)} s`);
+  const exact = stefanTimes(wallC);
+  console.log(`  wall ${STEFAN.meltC - wallC} K below: λ = ${exact.lambda.toFixed(4)}, half-frozen ${exact.halfS.toFixed(2)} s, frozen ${exact.frozenS.toFixed(2)} s`);
   console.log('    asked        ms    cells  grid  tol.   estimated   half-frozen err   frozen err   within');
   for (const asked of [undefined, ...asks]) {
-    const r = solve(file(wallC, asked === undefined ? undefined : { event_accuracy_s: asked }));
+    const r = solve(stefanScenario(wallC, asked === undefined ? undefined : { event_accuracy_s: asked }));
     const label = (asked === undefined ? 'defaults' : `${asked} s`).padEnd(9);
     if (!('out' in r) || r.out === undefined) { console.log(`    ${label} refused: ${r.refusal}`); continue; }
     const { out, ms } = r;
     const a = out.problem.numerics.accuracy!;
-    const half = out.summary.separator.half_frozen_at_s! - exact.half;
-    const frozen = out.summary.separator.frozen_at_s! - exact.frozen;
+    const half = out.summary.separator.half_frozen_at_s! - exact.halfS;
+    const frozen = out.summary.separator.frozen_at_s! - exact.frozenS;
     const stated = a.eventAccuracyS;
     const est = a.estimatedErrorS === undefined ? '—' : `${a.estimatedErrorS.toFixed(3)} s`;
     console.log(`    ${label} ${ms.toFixed(0).padStart(6)}  ${String(out.grid.n).padStart(6)}   ×${String(a.gridRefine).padEnd(3)} ÷${String(a.toleranceDivisor).padEnd(4)} ${est.padStart(9)}   ${half.toFixed(4).padStart(13)} s   ${frozen.toFixed(4).padStart(8)} s   ${Math.max(Math.abs(half), Math.abs(frozen)) <= stated ? 'yes' : 'NO'} (${stated} s)`);
@@ -80,15 +54,15 @@ for (const { wallC, asks } of [{ wallC: 200, asks: [1, 0.5, 0.2, 0.1, 0.05] }, {
 console.log('');
 console.log('  cost against the cells (wall 100 K below; the file\'s own grid, no plan), frozen time error');
 console.log('    tolerances   cells      ms    steps  rejected   Newton    work (cells × sweeps)   frozen err');
-const exact = closedForm(200);
+const exact = stefanTimes(200);
 for (const tol of [1, 0.01]) {
   const rows: { cells: number; work: number }[] = [];
   for (const cells of QUICK ? [50, 100, 200, 400] : [50, 100, 200, 400, 800]) {
     const numerics = {
-      cells_per_mm: cells / (W_M * 1000), separator_cells_per_mm: cells / (W_M * 1000), min_cells_per_layer: 1, min_separator_cells: 1,
+      cells_per_mm: cells / W_MM, separator_cells_per_mm: cells / W_MM, min_cells_per_layer: 1, min_separator_cells: 1,
       ...(tol === 1 ? {} : { tolerance_K: 0.2 * tol, liquid_fraction_tolerance: 4e-3 * tol }),
     };
-    const parsed = parseScenario(file(200, numerics));
+    const parsed = parseScenario(stefanScenario(200, numerics));
     if (!parsed.ok) throw new Error(parsed.errors.map((e) => e.message).join('; '));
     const start = performance.now();
     const out = runProblem(parsed.problem, LONG);
@@ -96,7 +70,7 @@ for (const tol of [1, 0.01]) {
     if (out.status !== 'ok') { console.log(`    ${String(cells).padStart(16)}  stopped: ${out.status === 'failed' ? out.message : out.status}`); continue; }
     const work = out.grid.n * out.stats.newtonIterations;
     rows.push({ cells, work });
-    console.log(`    ${(tol === 1 ? 'default' : `×${tol}`).padEnd(10)} ${String(out.grid.n).padStart(6)} ${ms.toFixed(0).padStart(7)} ${String(out.stats.steps).padStart(8)} ${String(out.stats.rejected).padStart(9)} ${String(out.stats.newtonIterations).padStart(8)} ${String(work).padStart(18)}      ${(out.summary.separator.frozen_at_s! - exact.frozen).toFixed(4).padStart(8)} s`);
+    console.log(`    ${(tol === 1 ? 'default' : `×${tol}`).padEnd(10)} ${String(out.grid.n).padStart(6)} ${ms.toFixed(0).padStart(7)} ${String(out.stats.steps).padStart(8)} ${String(out.stats.rejected).padStart(9)} ${String(out.stats.newtonIterations).padStart(8)} ${String(work).padStart(18)}      ${(out.summary.separator.frozen_at_s! - exact.frozenS).toFixed(4).padStart(8)} s`);
   }
   const a = rows.find((r) => r.cells === 200);
   const b = rows[rows.length - 1];

@@ -1,39 +1,18 @@
-// The separator's verdict times against the one-phase Stefan problem (Alexiades & Solomon, Mathematical Modeling of
-// Melting and Freezing Processes, 1993, §2.1; Carslaw & Jaeger, Conduction of Heat in Solids, 2nd ed., §11.2 with no
-// superheat; tests/support/closed-forms.ts stefanOnePhaseLambda): a 10 mm salt layer, liquid at its melting point
-// (300 °C), cooled from t = 0 through its bottom face by a fluid at 200 °C with h = 1e9 W/(m²·K), adiabatic on top.
-// The front is X = 2λ√(αt), St = c(Tm − Tw)/L = 0.5, λ = 0.4648. The liquid stays at Tm, so the adiabatic top face
-// holds no heat the closed form does not: the layer is half frozen when X = 5 mm (57.86 s) and frozen when X = 10 mm
-// (231.45 s), exactly. The finite h adds k/h = 1e-9 m to the solid (a front 1e-9 m behind: 5e-5 s late at the end).
-// The verdicts read these events with no heat input (heat off at t = 0).
+// The separator's verdict times against the one-phase Stefan problem (tests/support/stefan-problem.ts: a 10 mm salt
+// layer liquid at its melting point, 300 °C, cooled through its bottom face; Alexiades & Solomon 1993, §2.1): with the
+// wall 100 K below, St = 0.5, λ = 0.4648, half frozen at 57.86 s and frozen at 231.45 s, exactly.
 
 import { describe, expect, it } from 'vitest';
 import { eventCrossing } from '../../sim/observe/record-trace.ts';
-import { stefanOnePhaseLambda } from '../support/closed-forms.ts';
-import { flat, runOk, slab } from '../support/scenarios.ts';
+import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
+import { runOk } from '../support/scenarios.ts';
+import { stefanScenario, stefanTimes } from '../support/stefan-problem.ts';
 
-const W = 0.01;
-const K = 1;
-const RHO = 2000;
-const CP = 1000;
-const LATENT = 2e5;
-const TM_C = 300;
 const TW_C = 200;
-const ALPHA = K / (RHO * CP);
-/** When the front reaches depth x (m), s, under a wall at wallC. */
-function reachedAtFor(wallC: number): (x: number) => number {
-  const lambda = stefanOnePhaseLambda((CP * (TM_C - wallC)) / LATENT);
-  return (x) => (x / (2 * lambda)) ** 2 / ALPHA;
-}
-const reachedAt = reachedAtFor(TW_C);
+const exact = stefanTimes(TW_C);
 
-function stefan(numerics?: Parameters<typeof slab>[0]['numerics'], wallC = TW_C) {
-  return runOk(slab({
-    material: { k_W_mK: K, rho_kg_m3: RHO, cp_J_kgK: flat(CP), melt: { solidus_C: TM_C, liquidus_C: TM_C, latent_J_kg: LATENT } },
-    thickness_mm: W * 1000, separator: true, duration_s: Math.ceil(1.2 * reachedAtFor(wallC)(W)), ambient_C: 25, initial_C: TM_C + 1e-6,
-    bottom: [{ from_s: 0, convection_W_m2K: 1e9, fluid_C: wallC }],
-    ...(numerics ? { numerics } : {}),
-  }), { detail: 'summary' });
+function stefan(numerics?: ScenarioFile['numerics'], wallC = TW_C) {
+  return runOk(stefanScenario(wallC, numerics), { detail: 'summary' });
 }
 
 describe('one-phase Stefan problem: the separator verdicts', () => {
@@ -44,16 +23,16 @@ describe('one-phase Stefan problem: the separator verdicts', () => {
     // Measured: half −0.033 s, frozen −0.072 s (160 cells). Read by the line through the step's points the frozen time
     // was 0.500 s late: the last cell leaves its melt early in the step, and its enthalpy falls much more slowly after.
     // Tolerance 0.15 s, a tenth of the time the last cell takes to freeze (1.5 s) and under a third of the old error.
-    expect(Math.abs(half - reachedAt(W / 2))).toBeLessThan(0.15);
-    expect(Math.abs(frozen - reachedAt(W))).toBeLessThan(0.15);
+    expect(Math.abs(half - exact.halfS)).toBeLessThan(0.15);
+    expect(Math.abs(frozen - exact.frozenS)).toBeLessThan(0.15);
   });
 
   it.each([0.2, 0.1])('meets numerics.event_accuracy_s = %s s on both times', (asked) => {
     const { summary } = stefan({ event_accuracy_s: asked });
     // Measured: 0.2 s → cells ×2, half 0.0001 s, frozen −0.0066 s; 0.1 s → the ladder's rung 2 (cells ×4, tolerances
     // ÷3), half −0.0039 s, frozen −0.0013 s, estimated 0.0065 s.
-    expect(Math.abs(summary.separator.half_frozen_at_s! - reachedAt(W / 2))).toBeLessThanOrEqual(asked);
-    expect(Math.abs(summary.separator.frozen_at_s! - reachedAt(W))).toBeLessThanOrEqual(asked);
+    expect(Math.abs(summary.separator.half_frozen_at_s! - exact.halfS)).toBeLessThanOrEqual(asked);
+    expect(Math.abs(summary.separator.frozen_at_s! - exact.frozenS)).toBeLessThanOrEqual(asked);
   });
 
   it('meets event_accuracy_s = 0.5 s on a slow freeze, the wall 5 K below the melting point (frozen at 4033 s)', () => {
@@ -61,10 +40,10 @@ describe('one-phase Stefan problem: the separator verdicts', () => {
     // half-frozen time 17 s early, while the run stated an estimated error of 0.31 s: the liquid, at its melting point,
     // gave up the hat's upper half of its latent heat ahead of the front. Measured without it: half 0.019 s, frozen
     // 0.151 s (cells ×4, tolerances ÷9, the ladder's estimate 0.18 s).
-    const at = reachedAtFor(295);
+    const slow = stefanTimes(295);
     const { summary } = stefan({ event_accuracy_s: 0.5 }, 295);
-    expect(Math.abs(summary.separator.half_frozen_at_s! - at(W / 2))).toBeLessThanOrEqual(0.5);
-    expect(Math.abs(summary.separator.frozen_at_s! - at(W))).toBeLessThanOrEqual(0.5);
+    expect(Math.abs(summary.separator.half_frozen_at_s! - slow.halfS)).toBeLessThanOrEqual(0.5);
+    expect(Math.abs(summary.separator.frozen_at_s! - slow.frozenS)).toBeLessThanOrEqual(0.5);
   });
 });
 
