@@ -40,7 +40,9 @@ export function createStepObserver(problem: Problem, grid: Grid): StepObserver {
   const layout = gridLayout(problem, grid);
   const n = grid.n;
   const empty = new Float64Array(0);
-  const layers: Writable<LayerSamples>[] = layout.layers.map((l) => ({ ...l, temperatureK: empty, enthalpy: empty, stageEnthalpy: empty }));
+  const layers: Writable<LayerSamples>[] = layout.layers.map((l) => ({
+    ...l, temperatureK: empty, enthalpy: empty, stageEnthalpy: empty, startHeatRate: empty, stageHeatRate: empty,
+  }));
   const plates: [Writable<PlateChannel>, Writable<PlateChannel>] = [
     { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN },
     { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN },
