@@ -15,22 +15,27 @@ import { flat, slab } from './scenarios.ts';
 
 export const STEFAN = { thicknessM: 0.01, k: 1, rho: 2000, cp: 1000, latent: 2e5, meltC: 300 } as const;
 
-/** λ and the exact half-frozen and frozen times, s, under a wall at wallC (°C, below the melting point). */
+/** λ and the exact half-frozen and frozen times, s, under a wall at wallC (°C; above the melting point: see stefanScenario). */
 export function stefanTimes(wallC: number): { readonly lambda: number; readonly halfS: number; readonly frozenS: number } {
   const { thicknessM, k, rho, cp, latent, meltC } = STEFAN;
-  const lambda = stefanOnePhaseLambda((cp * (meltC - wallC)) / latent);
+  const lambda = stefanOnePhaseLambda((cp * Math.abs(meltC - wallC)) / latent);
   const at = (x: number) => (x / (2 * lambda)) ** 2 / (k / (rho * cp));
   return { lambda, halfS: at(thicknessM / 2), frozenS: at(thicknessM) };
 }
 
-/** The scenario, run for 1.2 × the frozen time, with `numerics` if given. */
+/**
+ * The scenario, run for 1.2 × the frozen time, with `numerics` if given. A wall above the melting point gives the
+ * same problem melting: the solid starts at its melting point, and with equal properties in both phases the front and
+ * its times are the mirror image (St = c·|Tw − Tm|/L), so the layer is fully molten at stefanTimes(wallC).frozenS.
+ */
 export function stefanScenario(wallC: number, numerics?: ScenarioFile['numerics']): ScenarioFile {
   const { thicknessM, k, rho, cp, latent, meltC } = STEFAN;
+  const melting = wallC > meltC;
   return slab({
-    name: `one-phase Stefan problem, wall ${meltC - wallC} K below the melting point`,
+    name: `one-phase Stefan problem, wall ${Math.abs(meltC - wallC)} K ${melting ? 'above' : 'below'} the melting point`,
     material: { k_W_mK: k, rho_kg_m3: rho, cp_J_kgK: flat(cp), melt: { solidus_C: meltC, liquidus_C: meltC, latent_J_kg: latent } },
     thickness_mm: thicknessM * 1000, separator: true, duration_s: Math.ceil(1.2 * stefanTimes(wallC).frozenS),
-    ambient_C: 25, initial_C: meltC + 1e-6,
+    ambient_C: 25, initial_C: melting ? meltC - 1e-6 : meltC + 1e-6,
     bottom: [{ from_s: 0, convection_W_m2K: 1e9, fluid_C: wallC }],
     ...(numerics ? { numerics } : {}),
   });

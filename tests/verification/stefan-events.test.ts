@@ -27,6 +27,13 @@ describe('one-phase Stefan problem: the separator verdicts', () => {
     expect(Math.abs(frozen - exact.frozenS)).toBeLessThan(0.15);
   });
 
+  it('molten time of the same problem melting (wall 100 K above, the solid at its melting point), from the last cell\'s rate', () => {
+    // The mirror image: fully molten when the front reaches 10 mm, at 231.45 s. Measured −0.012 s; by the line through
+    // the step's points (record-trace.ts before the rate) it was 0.400 s late.
+    const { summary } = stefan(undefined, 400);
+    expect(Math.abs(summary.separator.molten_at_s! - exact.frozenS)).toBeLessThan(0.15);
+  });
+
   it.each([0.2, 0.1])('meets numerics.event_accuracy_s = %s s on both times', (asked) => {
     const { summary } = stefan({ event_accuracy_s: asked });
     // Measured: 0.2 s → cells ×2, half 0.0001 s, frozen −0.0066 s; 0.1 s → the ladder's rung 2 (cells ×4, tolerances
@@ -57,10 +64,12 @@ describe('eventCrossing()', () => {
   });
 
   it('falls back to the line through the two points when the rate does not get there, is unknown or points away', () => {
-    // 40 → −40 over 2 s: the line crosses 0 at 1 s; at −5 per s the rate would take 8 s
-    expect(eventCrossing(melt, false, 40, -40, -5, 0, 2)).toBe(1);
-    expect(eventCrossing(melt, false, 40, -40, NaN, 0, 2)).toBe(1);
-    expect(eventCrossing(melt, false, 40, -40, 5, 0, 2)).toBe(1);
+    // 40 → −40 from 10 s to 12 s: the line crosses 0 at 11 s; at −5 per s the rate would take 8 s
+    expect(eventCrossing(melt, false, 40, -40, -5, 10, 12)).toBe(11);
+    expect(eventCrossing(melt, false, 40, -40, NaN, 10, 12)).toBe(11);
+    expect(eventCrossing(melt, false, 40, -40, 5, 10, 12)).toBe(11);
+    // rising: 60 → 140 from 10 s to 14 s crosses 100 at 12 s; at +2 per s the rate would take 20 s
+    expect(eventCrossing(melt, true, 60, 140, 2, 10, 14)).toBe(12);
   });
 
   it('uses the line for a cell outside its melt at ta (it entered and left the melt within the interval)', () => {
