@@ -21,7 +21,9 @@
  * on a seeded scan (tests/convergence/event-accuracy.test.ts).
  *
  * Every plan solves the enthalpy curve as written: the melt ramp (physics/melt-ramp.ts) that plans above (0, 0) used
- * to smooth the melt's kinks with has a model error the ask does not bound (accuracyDefaults.meltRampK). Expert keys win: tolerances given in the file are used as given (not divided),
+ * to smooth the melt's kinks with has a model error the ask does not bound (accuracyDefaults.meltRampK). Expert keys
+ * win: tolerances given in the file are used as given (not divided; the grid is then refined at most as many levels
+ * as they stand below the defaults, ownToleranceLevel),
  * a grid given in the file (cells_per_mm, min_cells_per_layer, separator_cells_per_mm, min_separator_cells, or any
  * layer's `cells`) is used as given (not refined), and with both given the accuracy is stated but not pursued.
  */
@@ -276,10 +278,12 @@ function largestChange(a: EventTimes, b: EventTimes): number | undefined {
 }
 
 /**
- * The cheapest (grid level, tolerance level) in modelled work whose modelled error is within `asked`, the cell limit
- * and the work budget. A file's own grid (tolerances) fixes that level at 0: when the other part alone cannot bring
- * the error within the ask, the plan takes the level that brings its own part within half the ask (or the finest
- * that fits) and states the modelled error it reaches, which is then above the ask.
+ * The cheapest (grid level, tolerance level) in modelled work whose modelled error is within `asked`, with the grid
+ * level at most the tolerance level, within the cell limit and the work budget. A file's own grid fixes the grid level
+ * at 0; a file's own tolerances fix the tolerance level at the one they stand at (ownToleranceLevel), which then
+ * bounds the grid level. When what is left cannot bring the error within the ask, the plan takes the level that
+ * brings its own part within half the ask (or the finest that fits) and states the modelled error it reaches, which
+ * is then above the ask.
  */
 function cheapestLevels(ask: AccuracyAsk, asked: number): { level: number; tolLevel: number } | { readonly error: string } {
   const d = accuracyDefaults;
