@@ -8,7 +8,7 @@
  * brackets a crossing is the original pair. So the two points around each change of side are held exactly, and the
  * rest is decimated (row-store.ts).
  */
-import { liquidFractionOf, sensibleCapacity, temperatureOf } from '../physics/material.ts';
+import { liquidFractionOf, marginSpan, temperatureOf } from '../physics/material.ts';
 import type { Material } from '../physics/material.ts';
 import type { ObservationLayout, StepObservation } from '../physics/observation.ts';
 import { RowStore } from './row-store.ts';
@@ -28,8 +28,6 @@ export interface SeparatorTrace {
 const MELT_LEVEL = 0;
 const HALF_LEVEL = 0.5;
 const FREEZE_LEVEL = 0;
-/** Smallest unit of the melt and freeze margins, in kelvin of sensible heat: any positive width keeps them finite. */
-const MARGIN_FLOOR_K = 1;
 
 /** Which side of its level each indicator is on, as three bits. */
 function sides(melt: number, mean: number, freeze: number): number {
@@ -109,12 +107,8 @@ export function createTraceRecorder(layout: ObservationLayout, budget: number, h
   if (separators.length === 0) return undefined;
   const store = createIndicatorStore(budget, heldPairs);
   const scratch = new Float64Array(2);
-  // the margins' unit, per separator layer: the melt's enthalpy span, or a kelvin of sensible heat when the latent
-  // heat vanishes (an isothermal melt with zero latent heat has no span, and a margin divided by it would be infinite)
-  const span = separators.map(({ material }) => {
-    const melt = material.melt!;
-    return Math.max(melt.hLiquidus - melt.hSolidus, sensibleCapacity(material, melt.solidusK) * MARGIN_FLOOR_K);
-  });
+  // the margins' unit, per separator layer
+  const span = separators.map(({ material }) => marginSpan(material));
   // the liquid fraction reads the temperature only inside a melt range of finite width without a lever rule
   // (material.ts liquidFractionOf): elsewhere T(H) is not computed at all
   const needsT = separators.map(({ material }) => {
@@ -188,8 +182,11 @@ export function createTraceRecorder(layout: ObservationLayout, budget: number, h
       const Ha = at === 'stage' ? startH[c]! : layer.stageEnthalpy;
       const Hb = at === 'stage' ? layer.stageEnthalpy : layer.enthalpy;
       // a melt ramp leaves no kink where a cell leaves its melt (physics/melt-ramp.ts): its enthalpy then moves on
-      // smoothly through the level, and the line through the two points serves
-      const rate = layer.material.enthalpy.kinks.length === 0 ? undefined : at === 'stage' ? layer.startHeatRate : layer.stageHeatRate;
+      // smoothly through the level, and the line through the two points serves; so it does when the step was landed on
+      // a state event (time/separator-events.ts lands one on the separator's melt and freeze): the cell is then just
+      // past its level at tb, where its rate at ta could put the crossing seconds early
+      const rate = obs.eventFired || layer.material.enthalpy.kinks.length === 0 ? undefined
+        : at === 'stage' ? layer.startHeatRate : layer.stageHeatRate;
       for (let j = 0; j < Ha.length; j++) {
         const dHdt = rate === undefined ? NaN : rate[j]! / layer.widthM[j]!;
         if (melted) meltAt = Math.max(meltAt, eventCrossing(melt, true, Ha[j]!, Hb[j]!, dHdt, ta, tb));

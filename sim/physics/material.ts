@@ -374,6 +374,19 @@ export function liquidFractionOf(material: Material, hJ: number, tK: number): nu
   return (t - melt.solidusK) / (melt.liquidusK - melt.solidusK);
 }
 
+/** Smallest unit of the melt and freeze margins (marginSpan), in kelvin of sensible heat: any positive width keeps them finite. */
+export const MARGIN_FLOOR_K = 1;
+
+/**
+ * The unit of a melting material's melt and freeze margins, (H − H_liquidus)/span and (H − H_solidus)/span, J/m³: its
+ * melt's enthalpy span, or MARGIN_FLOOR_K of sensible heat when that is larger (an isothermal melt with zero latent
+ * heat has no span, and a margin divided by it would be infinite).
+ */
+export function marginSpan(material: Material): number {
+  const melt = material.melt!;
+  return Math.max(melt.hLiquidus - melt.hSolidus, sensibleCapacity(material, melt.solidusK) * MARGIN_FLOOR_K);
+}
+
 /** Sensible volumetric heat capacity ρ·c_p(T), J·m⁻³·K⁻¹, used to scale enthalpy errors to kelvin. */
 export function sensibleCapacity(material: Material, tK: number): number {
   return material.density * evalTable(material.specificHeat, tK);

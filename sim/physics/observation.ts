@@ -96,7 +96,7 @@ export interface StepObservation {
   readonly t1: number;
   /** Whether this is that zero-length report of the starting state. */
   readonly initial: boolean;
-  /** Whether a state event (a thermostat, a caller's switch) fired at t1. */
+  /** Whether the step was landed on a state event that fired at t1 (a thermostat, the separator melting or freezing, a caller's switch). */
   readonly eventFired: boolean;
   /** The layers bottom to top, in Problem.layers order. */
   readonly layers: readonly LayerSamples[];

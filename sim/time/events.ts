@@ -15,10 +15,24 @@ import type { Grid } from '../grid/mesh.ts';
 
 /** A switch driven by the state. */
 export interface StateSwitch {
-  /** The event function at the state evaluated into ws, at time tS: the event is its rise from < 0 to ≥ 0. */
-  readonly g: (ws: Workspace, tS: number) => number;
-  /** The loop has landed on the crossing at tS: act (the loop then re-reads the conditions and settles the faces). */
+  /**
+   * The event function at the state U (the loop's n + 2 state vector) evaluated into ws, at time tS: the event is its
+   * rise from < 0 to ≥ 0.
+   */
+  readonly g: (ws: Workspace, tS: number, U: Float64Array) => number;
+  /**
+   * The loop has landed on the crossing at tS: act (the loop then re-reads the conditions and settles the faces, unless
+   * the switch is quiet).
+   */
   readonly fire: (tS: number) => void;
+  /**
+   * A quiet switch changes no condition: it marks an instant the run reports (the separator's melt and freeze,
+   * separator-events.ts). The loop lands on it as on any other, but neither re-reads the conditions nor shortens the
+   * step that follows.
+   */
+  readonly quiet?: boolean;
+  /** Called with the state at the end of every accepted step (after any firing), before g is read for the next one. */
+  readonly accepted?: (ws: Workspace, tS: number, U: Float64Array) => void;
 }
 
 /** A sensor of the stack: a face's temperature, or the thickness-weighted mean temperature of a layer. */
@@ -79,27 +93,33 @@ export function thermostat(spec: ThermostatSpec): Thermostat {
 /** The switches of a run, with each one's event value at the start of the current step. */
 export function createEventWatch(switches: readonly StateSwitch[]) {
   const gStart = new Float64Array(switches.length);
-  const highest = (ws: Workspace, tS: number): number => switches.reduce((most, sw) => Math.max(most, sw.g(ws, tS)), -Infinity);
+  const highest = (ws: Workspace, tS: number, U: Float64Array): number =>
+    switches.reduce((most, sw) => Math.max(most, sw.g(ws, tS, U)), -Infinity);
   return {
     /** The largest value at the step's start: below 0 every switch is armed (−∞ without switches). */
     armed: (): number => gStart.reduce((a, g) => Math.max(a, g), -Infinity),
     /** The largest event value at the state in ws: an event is due where it is ≥ 0. */
     highest,
     /**
-     * Fires every switch whose event is due at the state in ws, calling `reread` (re-read the conditions, settle the
-     * faces; false if they did not settle) after each round, at most maxRounds rounds; then keeps each switch's value
-     * as the start of the next step. False if `reread` failed.
+     * Fires every switch whose event is due at the state U evaluated into ws, calling `reread` (re-read the conditions,
+     * settle the faces; false if they did not settle) after each round in which a switch that is not quiet fired, at
+     * most maxRounds rounds; then tells each switch the state was accepted and keeps its value as the start of the next
+     * step. 'failed' if `reread` failed, 'changed' if a switch that is not quiet fired, else 'none'.
      */
-    fireDue(ws: Workspace, tS: number, reread: () => boolean, maxRounds: number): boolean {
-      if (switches.length === 0) return true;
+    fireDue(ws: Workspace, tS: number, U: Float64Array, reread: () => boolean, maxRounds: number): 'failed' | 'changed' | 'none' {
+      if (switches.length === 0) return 'none';
+      let changed = false;
       for (let round = 0; round < maxRounds; round++) {
-        const due = switches.filter((sw) => sw.g(ws, tS) >= 0);
+        const due = switches.filter((sw) => sw.g(ws, tS, U) >= 0);
         if (due.length === 0) break;
         for (const sw of due) sw.fire(tS);
-        if (!reread()) return false;
+        if (due.every((sw) => sw.quiet)) continue;
+        changed = true;
+        if (!reread()) return 'failed';
       }
-      switches.forEach((sw, k) => { gStart[k] = sw.g(ws, tS); });
-      return true;
+      for (const sw of switches) sw.accepted?.(ws, tS, U);
+      switches.forEach((sw, k) => { gStart[k] = sw.g(ws, tS, U); });
+      return changed ? 'changed' : 'none';
     },
   };
 }

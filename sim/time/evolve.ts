@@ -22,6 +22,7 @@ import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
 import { acceptStep, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
 import type { StateSwitch } from './events.ts';
 import { createEventWatch, locateRise } from './events.ts';
+import { separatorSwitch } from './separator-events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
 import type { FixedStepping } from './step-control.ts';
@@ -162,7 +163,10 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const source = new Float64Array(grid.n);
 
   const plates = createPlateControl(problem, grid, ws);
-  const watch = createEventWatch([...plates.switches, ...(options.switches ?? [])]);
+  // with adaptive steps the separator's melt and freeze are landed on (separator-events.ts); a fixed step keeps its
+  // uniform sequence (the convergence study), and the recorder places those events inside a step
+  const separator = stepping.kind === 'adaptive' ? separatorSwitch(problem, grid) : undefined;
+  const watch = createEventWatch([...plates.switches, ...(separator ? [separator] : []), ...(options.switches ?? [])]);
   const plateSteps = plates.steps;
   const hasCellTerms = problem.layers.some((l) => (l.terms?.length ?? 0) > 0);
   const lohi = new Float64Array(2);
@@ -221,9 +225,9 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     };
   };
   /** Fires the switches due at tS, re-reading the conditions and settling the faces (false if they did not settle). */
-  const fireDue = (tS: number): boolean =>
-    watch.fireDue(ws, tS, () => { cond = readConditions(tS, cond); return settle(); }, d.maxFiresAtOnce);
-  if (!settle() || !fireDue(0)) return unsettled(0);
+  const fireDue = (tS: number): 'failed' | 'changed' | 'none' =>
+    watch.fireDue(ws, tS, buf.U0, () => { cond = readConditions(tS, cond); return settle(); }, d.maxFiresAtOnce);
+  if (!settle() || fireDue(0) === 'failed') return unsettled(0);
   // report the initial state as a step of zero length
   buf.U1.set(buf.U0); buf.Ug.set(buf.U0); buf.F1.set(buf.F0); buf.Fg.set(buf.F0); buf.q1.set(buf.q0); buf.qg.set(buf.q0);
   yield { t0: 0, tg: 0, t1: 0, buf, ws, cond, bottomJ: 0, topJ: 0, sourceJ: 0, edgeJ: 0, plates: plateSteps, switched: false };
@@ -298,7 +302,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     if (atFloor) stats.forced++;
     plates.afterTrial();
     const armed = watch.armed();
-    const gEnd = armed < 0 ? watch.highest(ws, timeInto(step)) : -Infinity;
+    const gEnd = armed < 0 ? watch.highest(ws, timeInto(step), buf.U1) : -Infinity;
     const switched = gEnd >= 0;
     if (switched) {
       // a switch's level was crossed within the step: redo it shorter until it ends just past the earliest crossing
@@ -308,7 +312,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
         stats.eventTrials++;
         if (outcome.status !== 'ok') return undefined;
         plates.afterTrial();
-        return watch.highest(ws, timeInto(s));
+        return watch.highest(ws, timeInto(s), buf.U1);
       };
       const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials);
       if (found.lastS !== found.s) trial(found.s);
@@ -341,10 +345,14 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     };
     // accept: the end state becomes the start of the next step
     acceptStep(line, buf);
+    /** The controller's step before this one was shortened to land (on a breakpoint or a state event). */
+    const ownS = Math.max(h, step);
+    let growth = 1;
     if (adaptive) {
       // a step shortened to land on a breakpoint says nothing about the next one: grow from the controller's own h
       // (step-control.ts: no growth right after a rejection)
-      h = Math.max(landing ? h : step, step) * growthFactor(outcome.errorNorm, rejectedLast, d);
+      growth = growthFactor(outcome.errorNorm, rejectedLast, d);
+      h = (landing ? ownS : step) * growth;
       rejectedLast = false;
       chain.stepS = 0;
     }
@@ -358,8 +366,11 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       }
       if (!settle()) return unsettled(t);
     }
-    if (switched && adaptive) h = Math.min(h, d.stepAfterChangeS);
-    if (!fireDue(t)) return unsettled(t);
+    const fired = fireDue(t);
+    if (fired === 'failed') return unsettled(t);
+    // a switch that changed the conditions starts the next step small; a quiet one only marked an instant, and, like a
+    // breakpoint, the step shortened to land on it says nothing about the next one
+    if (switched && adaptive) h = fired === 'changed' ? Math.min(h, d.stepAfterChangeS) : ownS * growth;
   }
   return { status: 'ok', stats };
 }

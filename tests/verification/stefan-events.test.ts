@@ -16,18 +16,20 @@ function stefan(numerics?: ScenarioFile['numerics'], wallC = TW_C) {
 }
 
 describe('one-phase Stefan problem: the separator verdicts', () => {
-  it('half-frozen and frozen times at the defaults, with the frozen time located from the last cell\'s heat rate', () => {
-    const { summary } = stefan();
+  it('half-frozen and frozen times at the defaults, with a step landed on the frozen instant', () => {
+    const { summary, stats } = stefan();
     const half = summary.separator.half_frozen_at_s!;
     const frozen = summary.separator.frozen_at_s!;
-    // Measured: half −0.033 s, frozen −0.072 s (160 cells). Read by the line through the step's points the frozen time
-    // was 0.500 s late: the last cell leaves its melt early in the step, and its enthalpy falls much more slowly after.
-    // Tolerance 0.15 s, a tenth of the time the last cell takes to freeze (1.5 s) and under a third of the old error.
+    // Measured: half −0.033 s, frozen −0.013 s (160 cells; −0.072 s when it was placed inside a step from the last
+    // cell's heat rate). Read by the line through the step's points it was 0.500 s late: the last cell leaves its melt
+    // early in the step, and its enthalpy falls much more slowly after. Tolerance 0.15 s, a tenth of the time the last
+    // cell takes to freeze (1.5 s) and under a third of the old error. The freeze is the run's one state event.
+    expect(stats.events).toBe(1);
     expect(Math.abs(half - exact.halfS)).toBeLessThan(0.15);
     expect(Math.abs(frozen - exact.frozenS)).toBeLessThan(0.15);
   });
 
-  it('molten time of the same problem melting (wall 100 K above, the solid at its melting point), from the last cell\'s rate', () => {
+  it('molten time of the same problem melting (wall 100 K above, the solid at its melting point), landed on', () => {
     // The mirror image: fully molten when the front reaches 10 mm, at 231.45 s. Measured −0.012 s; by the line through
     // the step's points (record-trace.ts before the rate) it was 0.400 s late.
     const { summary } = stefan(undefined, 400);
@@ -40,6 +42,18 @@ describe('one-phase Stefan problem: the separator verdicts', () => {
     // ÷3), half −0.0039 s, frozen −0.0013 s, estimated 0.0065 s.
     expect(Math.abs(summary.separator.half_frozen_at_s! - exact.halfS)).toBeLessThanOrEqual(asked);
     expect(Math.abs(summary.separator.frozen_at_s! - exact.frozenS)).toBeLessThanOrEqual(asked);
+  });
+
+  it('lands a step on the frozen instant of a slow freeze (wall 5 K below) on the file\'s own 200 cells, default tolerances', () => {
+    // Placed inside a step from the last cell's heat rate at the stage point the frozen time came out 3.06 s early (the
+    // solid beside the last cell is 0.03 K below it, so that rate was mostly the stage's error); landed on, −0.024 s.
+    // Tolerance 0.15 s, as above.
+    const slow = stefanTimes(295);
+    const own = { cells_per_mm: 20, separator_cells_per_mm: 20, min_cells_per_layer: 1, min_separator_cells: 1 };
+    const { summary, stats, grid } = stefan(own, 295);
+    expect(grid.n).toBe(200);
+    expect(stats.events).toBe(1);
+    expect(Math.abs(summary.separator.frozen_at_s! - slow.frozenS)).toBeLessThan(0.15);
   });
 
   it('meets event_accuracy_s = 0.5 s on a slow freeze, the wall 5 K below the melting point (frozen at 4033 s)', () => {
