@@ -67,3 +67,59 @@ describe('LineSystem.errorNorm(): the temperature part, per layer', () => {
     assertClose(norm([false, true], 2, 1, 2), 2, { rel: 1e-12 }, 'electrode beside a melting separator');
   });
 });
+
+/**
+ * A ten-cell separator of the salt, Δx = 0.1 mm (level-0 cells: the band is EVENT_BAND_CELLS × 0.1 mm = 0.2 mm): at the
+ * start `liquidStart` cells liquid (440 K) from the bottom, then one cell half way through its melt, the rest solid
+ * (400 K); at the end likewise with `liquidEnd`. The error z sits on the start's two-phase cell, sized so that its
+ * molten-thickness part is e: Δx·z/(tol_f·ρL)/Δx₀ = e with tol_f·ρL = 4e-3 × 4e8 J/m³ (above tol_K·ρc_p = 4e5).
+ */
+function frontNorm(liquidStart: number, liquidEnd: number, e: number): number {
+  const n = 10;
+  const grid: Grid = {
+    n, dx: new Float64Array(n).fill(1e-4), xc: new Float64Array(n), totalM: 1e-3, layerOf: new Int32Array(n),
+    materials: Array.from({ length: n }, () => salt), contactAbove: new Float64Array(n),
+    layerStart: Int32Array.of(0), layerEnd: Int32Array.of(n),
+  };
+  const ws = createWorkspace(grid, { facing: 'down', lengthM: 0.01 }, { facing: 'up', lengthM: 0.01 });
+  const state = (liquid: number): Float64Array => {
+    const U = new Float64Array(n + 2).fill(400);
+    for (let i = 0; i < n; i++) {
+      U[i + 1] = i < liquid ? enthalpyAt(salt.enthalpy, 440)
+        : i === liquid ? (salt.melt!.hSolidus + salt.melt!.hLiquidus) / 2 : enthalpyAt(salt.enthalpy, 400);
+    }
+    return U;
+  };
+  const cond: StepConditions = { bottom: { kind: 'fixed', tK: 400 }, top: { kind: 'fixed', tK: 400 }, source: new Float64Array(n) };
+  const U0 = state(liquidStart);
+  const U1 = state(liquidEnd);
+  evaluate(ws, U0, cond);
+  const line = new LineSystem(ws, { toleranceK: TOL_K, liquidFraction: 4e-3, gridRefine: 1, separator: [true] }, () => undefined, cond);
+  line.markStart();
+  evaluate(ws, U1, cond);
+  const z = new Float64Array(n + 2);
+  z[liquidStart + 1] = 4e-3 * 4e8 * e;
+  return line.errorNorm(U0, U1, z);
+}
+
+describe('LineSystem.errorNorm(): the molten-thickness part is held near the separator\'s events', () => {
+  // the two-phase cell's own temperature error: z·(dT/dH)/tol_K with dH/dT = ρc_p + ρL/(10 K) = 4.2e7 J/(m³·K) in the
+  // melt, taken by RMS over the ten cells (grid/line-system.ts errorNorm)
+  const temperatureOnly = (e: number) => (4e-3 * 4e8 * e) / 4.2e7 / TOL_K / Math.sqrt(10);
+
+  it('counts it within two level-0 cells of frozen, half or molten: 0.15, 0.45 and 0.85 mm molten of 1 mm → e', () => {
+    // one, four and eight liquid cells plus the half cell: 0.15 mm from none, 0.05 mm from half, 0.15 mm from all
+    for (const liquid of [1, 4, 8]) assertClose(frontNorm(liquid, liquid, 2), 2, { rel: 1e-12 }, `${liquid} liquid cells`);
+  });
+
+  it('leaves it to the temperature part away from them: 0.25 mm molten of 1 mm (0.25 mm from none and from half)', () => {
+    assertClose(frontNorm(2, 2, 2), temperatureOnly(2), { rel: 1e-12 }, 'between events');
+    assertClose(temperatureOnly(2), 0.1205, { rel: 1e-3 }, 'the temperature part, by hand');
+  });
+
+  it('counts it when the molten thickness crosses half the layer within the step, however far from it either end lies', () => {
+    // 0.25 mm → 0.75 mm: both ends 0.25 mm from half
+    const crossing = frontNorm(2, 7, 2);
+    assertClose(crossing, 2, { rel: 1e-12 }, 'crossing half');
+  });
+});
