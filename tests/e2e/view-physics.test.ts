@@ -103,8 +103,8 @@ describe('the view and the newer physics', () => {
 
   it('the event-time accuracy field shows the core\'s default for the run\'s duration, and the line beside the verdict states what a run asked for', async () => {
     const page = await freshPage();
-    // README "Accuracy in seconds": without the key a run states max(0.5 s, (1.8e-4 + 1.3e-4) × duration); the demo runs 3600 s → 1.116 s
-    expect(await page.$eval('[data-testid="event-accuracy-s"]', (e) => (e as HTMLInputElement).placeholder)).toBe('default 1.12');
+    // README "Accuracy in seconds": without the key a run states max(0.5 s, (1.3e-4 + 0.7e-4) × duration); the demo runs 3600 s → 0.72 s
+    expect(await page.$eval('[data-testid="event-accuracy-s"]', (e) => (e as HTMLInputElement).placeholder)).toBe('default 0.72');
     expect(await text(page, 'verdict-accuracy')).toMatch(/^Accuracy: event times to 1\.12 s, default grid and tolerances/);
     // 0.2 s of an hour: the plan is grid level 2 and tolerance level 4 (cells × 4, tolerances ÷ 81), and the run climbs
     // the ladder below it (sim/run.ts): the line states the rung it stopped at and its estimate (README, "0.2 s of the
