@@ -48,13 +48,6 @@ export const evolveDefaults = {
    */
   newtonShare: 1e-2,
   maxNewtonIterations: 12,
-  /**
-   * Newton iterations allowed beyond those whose update stopped at a kink (tr-bdf2.ts NewtonSettings): a step may carry
-   * a melt front across up to about this many cells. Without them a stage whose front crossed more than ~10 cells
-   * failed, and the step was cut to a quarter: on the one-phase Stefan problem at 1600 cells and the default tolerances
-   * 385 steps with 138 rejected, against 184 with 29 (work −35 %); the examples never reach the limit (same steps).
-   */
-  stoppedNewtonIterations: 36,
   /** Extra Newton iterations at the smallest step, per cell: two melt kinks a cell may stop at, one iteration each. */
   floorIterationsPerCell: 2,
   /** Newton failure: cut the step by this factor. */
@@ -156,8 +149,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: numerics.accuracy?.gridRefine ?? 1,
     separator: problem.layers.map((l) => l.separator),
   };
-  const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations,
-    stoppedIterations: d.stoppedNewtonIterations };
+  const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
   // a floored step must not fail for want of iterations: each cell crossing a melt kink costs one (its update stops
   // there), and a face held far below a thin melting layer's plateau freezes many cells within one floored step
   // (fuzz: 15 cells of a 5 µm separator under a face switched to 463 °C, 3e-9 s steps, 12 iterations not enough)
@@ -232,7 +224,10 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       message: bottom || top || cold ? belowAbsoluteZeroMessage(problem, ws, cond, faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
     };
   };
-  /** Fires the switches due at tS, re-reading the conditions and settling the faces (false if they did not settle). */
+  /**
+   * Fires the switches due at tS, re-reading the conditions and settling the faces when one that is not quiet fired:
+   * 'failed' if they did not settle, 'changed' if the conditions were re-read, else 'none'.
+   */
   const fireDue = (tS: number): 'failed' | 'changed' | 'none' =>
     watch.fireDue(ws, tS, buf.U0, () => { cond = readConditions(tS, cond); return settle(); }, d.maxFiresAtOnce);
   if (!settle() || fireDue(0) === 'failed') return unsettled(0);

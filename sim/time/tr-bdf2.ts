@@ -35,12 +35,6 @@ export interface NewtonSettings {
    */
   readonly toleranceK: number;
   readonly maxIterations: number;
-  /**
-   * Iterations allowed beyond maxIterations whose update stopped at a kink (default 0): each crossed one, so it made
-   * progress, and a step that carries a melt front across m cells needs about m of them (the front cell's T(H) is flat
-   * until it has crossed its kink, so the linear model moves the front one cell per iteration).
-   */
-  readonly stoppedIterations?: number;
 }
 
 export type StepStatus = 'ok' | 'newton-failed' | 'singular';
@@ -61,9 +55,7 @@ function solveStage(sys: StageSystem, buf: StepBuffers, U: Float64Array, h: numb
   move: UpdateSize, outcome: StepOutcome): StepStatus {
   const { B, res, delta } = buf;
   let previous = Infinity;
-  let limit = newton.maxIterations;
-  const most = newton.maxIterations + (newton.stoppedIterations ?? 0);
-  for (let iter = 0; iter < limit; iter++) {
+  for (let iter = 0; iter < newton.maxIterations; iter++) {
     sys.evaluate(U);
     sys.stageResidual(U, B, h, res);
     sys.assembleStage(h);
@@ -79,7 +71,6 @@ function solveStage(sys: StageSystem, buf: StepBuffers, U: Float64Array, h: numb
       return 'ok';
     }
     if (!Number.isFinite(worst)) return 'newton-failed';
-    if (move.stopped && limit < most) limit++;
     previous = worst;
   }
   return 'newton-failed';
