@@ -169,7 +169,9 @@ export function createTraceRecorder(layout: ObservationLayout, budget: number, h
    * tb: records a point at the time it did, with that indicator exactly at its level (the others linear between the
    * two points), so the verdicts' linear interpolation finds the event there. Each cell's crossing of its liquidus
    * (solidus) is found from its enthalpy and heat rate at ta when it was inside its melt then (eventCrossing), and the
-   * event is the latest crossing of the layer's cells.
+   * event is the latest crossing of the layer's cells. With adaptive steps the loop lands a step on the instant
+   * (time/separator-events.ts, obs.eventFired), and the line is read instead: the rate is for fixed steps and for a
+   * step the event search could not land.
    */
   function locate(obs: StepObservation, at: 'stage' | 'end', tb: number, melted: boolean, froze: boolean,
     meltB: number, meanB: number, freezeB: number): void {

@@ -375,7 +375,7 @@ export function liquidFractionOf(material: Material, hJ: number, tK: number): nu
 }
 
 /** Smallest unit of the melt and freeze margins (marginSpan), in kelvin of sensible heat: any positive width keeps them finite. */
-export const MARGIN_FLOOR_K = 1;
+const MARGIN_FLOOR_K = 1;
 
 /**
  * The unit of a melting material's melt and freeze margins, (H − H_liquidus)/span and (H − H_solidus)/span, J/m³: its
