@@ -71,6 +71,15 @@ describe('one-phase Stefan problem: the separator verdicts', () => {
     expect(fine!.trials).toBeLessThan(1.3 * coarse!.trials);
   });
 
+  it('reads a landed frozen instant on the line, not from the stage\'s rate: wall 5 K below, tolerances ÷3', () => {
+    // Measured: frozen −0.035 s. Read from the last cell's heat rate at the landed step's stage point (record-trace.ts
+    // without its obs.eventFired guard) it was 3.8 s early; no other test noticed the guard missing.
+    const slow = stefanTimes(295);
+    const { summary, stats } = stefan({ tolerance_K: 0.2 / 3, liquid_fraction_tolerance: 4e-3 / 3 }, 295);
+    expect(stats.events).toBe(1);
+    expect(Math.abs(summary.separator.frozen_at_s! - slow.frozenS)).toBeLessThan(0.15);
+  });
+
   it('meets event_accuracy_s = 0.5 s on a slow freeze, the wall 5 K below the melting point (frozen at 4033 s)', () => {
     // The melt ramp that plans used to carry (±0.1 K, accuracy.ts meltRampK) put this frozen time 63 s early and the
     // half-frozen time 17 s early, while the run stated an estimated error of 0.31 s: the liquid, at its melting point,
