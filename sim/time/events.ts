@@ -3,7 +3,10 @@
  * rises through zero. After each accepted step the time loop evaluates every armed switch (g < 0 at the step's start);
  * if one has risen to g ≥ 0 by the step's end, the step is redone from the same start with a shorter length until it
  * ends just past the earliest crossing: the Illinois variant of regula falsi on the step length (Dowell & Jarratt,
- * BIT 11 (1971) 168–174), stopped when the bracket is narrower than the time tolerance. The step that is kept is the
+ * BIT 11 (1971) 168–174), stopped when the bracket is narrower than the time tolerance. Its first trial is the root of
+ * the parabola through g at the step's start, its stage point and its end (parabolaRoot), which the step has already
+ * computed; regula falsi's first point, from the two ends alone, is poor wherever g curves over a long step. The step
+ * that is kept is the
  * bracket's right end, so the switch sees its level reached, at most the tolerance late. Then the switch acts and the
  * loop re-reads the face conditions, as at a schedule change (Hairer, Nørsett & Wanner, Solving ODEs I, §II.6, "dense
  * output and event location"; here without dense output: each trial is a real step, so the landed state is the
@@ -136,10 +139,11 @@ export interface Located {
  * Locates the rise of g through zero on (0, sB], given g(0) = gA < 0 ≤ g(sB) = gB, by Illinois regula falsi on the
  * step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or undefined if
  * that step failed (then the bracket found so far is kept). Stops when the bracket is narrower than tolS or after
- * maxTrials trials.
+ * maxTrials trials. `firstS`, when given, is the first trial instead of the regula falsi point (held inside the
+ * bracket as every trial is).
  */
 export function locateRise(trial: (s: number) => number | undefined, gA: number, sB: number, gB: number,
-  tolS: number, maxTrials: number): Located {
+  tolS: number, maxTrials: number, firstS?: number): Located {
   let a = 0;
   let fa = gA;
   let b = sB;
@@ -151,7 +155,8 @@ export function locateRise(trial: (s: number) => number | undefined, gA: number,
     // regula falsi point, kept half the tolerance inside the bracket: when it lands next to the root, the trial on
     // the other side of it then closes the bracket to within the tolerance at once
     const inset = 0.5 * tolS;
-    const s = Math.min(b - inset, Math.max(a + inset, b - (fb * (b - a)) / (fb - fa)));
+    const guess = trials === 0 && firstS !== undefined ? firstS : b - (fb * (b - a)) / (fb - fa);
+    const s = Math.min(b - inset, Math.max(a + inset, guess));
     const fs = trial(s);
     trials++;
     lastS = s;
@@ -167,4 +172,26 @@ export function locateRise(trial: (s: number) => number | undefined, gA: number,
     }
   }
   return { s: b, lastS, trials };
+}
+
+/**
+ * The smallest root in (0, b) of the parabola through (0, gA), (m, gM) and (b, gB), 0 < m < b; undefined when it has
+ * none there (or the three values are not finite). Newton's divided differences give p(s) = c₂s² + c₁s + gA, and the
+ * roots come from the form of the quadratic formula that does not cancel (Press et al., Numerical Recipes, 3rd ed.
+ * 2007, §5.6): q = −(c₁ + sgn(c₁)·√(c₁² − 4c₂gA))/2, roots q/c₂ and gA/q. A parabola too flat to tell from a line is
+ * solved as the line.
+ */
+export function parabolaRoot(gA: number, m: number, gM: number, b: number, gB: number): number | undefined {
+  const slopeAM = (gM - gA) / m;
+  const c2 = ((gB - gM) / (b - m) - slopeAM) / b;
+  const c1 = slopeAM - c2 * m;
+  let root = NaN;
+  if (Math.abs(c2) * b <= 1e-12 * Math.abs(c1)) root = -gA / c1;
+  else {
+    const disc = c1 * c1 - 4 * c2 * gA;
+    if (!(disc >= 0)) return undefined;
+    const q = -0.5 * (c1 + (c1 < 0 ? -1 : 1) * Math.sqrt(disc));
+    for (const r of [q / c2, gA / q]) if (r > 0 && r < b && !(r >= root)) root = r;
+  }
+  return root > 0 && root < b ? root : undefined;
 }

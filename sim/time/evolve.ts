@@ -21,7 +21,7 @@ import type { DriveEnd, DriveStats } from './drive.ts';
 import type { NewtonSettings, StepOutcome } from './tr-bdf2.ts';
 import { acceptStep, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from './tr-bdf2.ts';
 import type { StateSwitch } from './events.ts';
-import { createEventWatch, locateRise } from './events.ts';
+import { createEventWatch, locateRise, parabolaRoot } from './events.ts';
 import { separatorSwitch } from './separator-events.ts';
 import type { PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
@@ -317,7 +317,17 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
         plates.afterTrial();
         return watch.highest(ws, timeInto(s), buf.U1);
       };
-      const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials);
+      // the first trial: the root of the parabola through g at the start, the stage point and the end (events.ts);
+      // reading g at the stage point evaluates the state there, which the first trial then replaces (a step no longer
+      // than the tolerance is kept as it is, untried, so nothing is evaluated for it)
+      let firstS: number | undefined;
+      if (!euler && step > d.eventToleranceS) {
+        const m = step * STAGE_FRACTION;
+        line.evaluate(buf.Ug);
+        plates.atStage(buf.Ug, buf.qg);
+        firstS = parabolaRoot(armed, m, watch.highest(ws, timeInto(m), buf.Ug), step, gEnd);
+      }
+      const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials, firstS);
       if (found.lastS !== found.s) trial(found.s);
       step = found.s;
       landing = false;

@@ -135,6 +135,17 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
       }
     },
     /** After a (trial) step: the plate temperatures at its end, for the sensors. */
+    /**
+     * The plate temperatures at a step's stage point, for the sensors: its face temperatures Ug and the heats into the
+     * faces there, qg (afterTrial's recovery, at the stage instead of the end). The next trial's afterTrial() replaces them.
+     */
+    atStage(Ug: Float64Array, qg: Float64Array): void {
+      if (!cond) return;
+      for (const side of SIDES) {
+        const h = heaterOn(cond, side);
+        if (h) nowK[side] = Ug[nodeOf(ws, side)]! + qg[side]! / h.contactWPerM2K;
+      }
+    },
     afterTrial(): void {
       if (!cond) return;
       for (const side of SIDES) {
