@@ -202,49 +202,67 @@ function cellConstants(grid: Grid) {
 /**
  * How each cell's half cells read k at its state (halfCellConductivity's cases, kirchhoff.ts), and k at its own
  * temperature so read. Overwrites ws.kRegion, ws.kFloor, ws.kCeiling, ws.kValue, ws.kPiece. Reads ws.T.
+ * Layer by layer: a layer's cells share its material (mesh.ts), so its table and melt limits are read once per layer
+ * rather than once per cell (the same arithmetic per cell, so the same bits).
  */
 function classifyConductivity(ws: Workspace): void {
-  const { n, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, meltFromK, meltToK, kOut } = ws;
-  for (let i = 0; i < n; i++) {
-    const table = kTable[i]!;
-    if (table.y.length === 1) { kRegion[i] = K_CONSTANT; kValue[i] = table.y[0]!; continue; }
-    let lo = -Infinity;
-    let hi = Infinity;
-    if (kSplits[i] === 1) {
-      const tOwn = T[i + 1]!;
-      if (tOwn < meltFromK[i]!) hi = ws.solidTableK[i]!;
-      else if (tOwn > meltToK[i]!) lo = ws.liquidTableK[i]!;
-      else {
-        kRegion[i] = K_MELT;
-        continue;
-      }
-    }
-    kRegion[i] = K_TABLE;
-    kFloor[i] = lo;
-    kCeiling[i] = hi;
-    // pieceAt() and valueAt() written out here, the loop's hot path (calls the JIT leaves out of line cost more than
-    // their bodies)
+  const { grid, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, meltFromK, meltToK, solidTableK, liquidTableK, kOut } = ws;
+  const { layerStart, layerEnd } = grid;
+  for (let l = 0; l < layerStart.length; l++) {
+    const first = layerStart[l]!;
+    const end = layerEnd[l]!;
+    if (first >= end) continue;
+    const table = kTable[first]!;
     const xs = table.tK;
+    const y = table.y;
     const last = xs.length - 1;
-    const t = T[i + 1]!;
-    let piece: number;
-    if (t <= lo || t <= xs[0]!) piece = -1;
-    else if (t >= hi || t >= xs[last]!) piece = last;
-    else {
-      const hint = kPiece[i]!;
-      piece = hint < 0 ? 0 : hint >= last ? last - 1 : hint;
-      while (piece > 0 && xs[piece]! > t) piece--;
-      while (piece + 1 < last && xs[piece + 1]! <= t) piece++;
+    if (last === 0) {
+      const k = y[0]!;
+      for (let i = first; i < end; i++) { kRegion[i] = K_CONSTANT; kValue[i] = k; }
+      continue;
     }
-    kPiece[i] = piece;
-    if (piece < 0 || piece >= last) {
-      valueAt(ws, i, i + 1, piece);
-      kValue[i] = kOut[3]!;
-    } else {
-      const y = table.y;
-      const x0 = xs[piece]!;
-      const y0 = y[piece]!;
-      kValue[i] = y0 + ((y[piece + 1]! - y0) * (t - x0)) / (xs[piece + 1]! - x0);
+    const splits = kSplits[first] === 1;
+    const fromK = meltFromK[first]!;
+    const toK = meltToK[first]!;
+    const solidK = solidTableK[first]!;
+    const liquidK = liquidTableK[first]!;
+    const xFirst = xs[0]!;
+    const xLast = xs[last]!;
+    for (let i = first; i < end; i++) {
+      const t = T[i + 1]!;
+      let lo = -Infinity;
+      let hi = Infinity;
+      if (splits) {
+        if (t < fromK) hi = solidK;
+        else if (t > toK) lo = liquidK;
+        else {
+          kRegion[i] = K_MELT;
+          continue;
+        }
+      }
+      kRegion[i] = K_TABLE;
+      kFloor[i] = lo;
+      kCeiling[i] = hi;
+      // pieceAt() and valueAt() written out here, the loop's hot path (calls the JIT leaves out of line cost more than
+      // their bodies)
+      let piece: number;
+      if (t <= lo || t <= xFirst) piece = -1;
+      else if (t >= hi || t >= xLast) piece = last;
+      else {
+        const hint = kPiece[i]!;
+        piece = hint < 0 ? 0 : hint >= last ? last - 1 : hint;
+        while (piece > 0 && xs[piece]! > t) piece--;
+        while (piece + 1 < last && xs[piece + 1]! <= t) piece++;
+      }
+      kPiece[i] = piece;
+      if (piece < 0 || piece >= last) {
+        valueAt(ws, i, i + 1, piece);
+        kValue[i] = kOut[3]!;
+      } else {
+        const x0 = xs[piece]!;
+        const y0 = y[piece]!;
+        kValue[i] = y0 + ((y[piece + 1]! - y0) * (t - x0)) / (xs[piece + 1]! - x0);
+      }
     }
   }
 }

@@ -143,17 +143,22 @@ export class LineSystem implements StageSystem {
 
   newtonUpdate(U: Float64Array, delta: Float64Array, res: Float64Array, size: UpdateSize): void {
     const ws = this.ws;
-    const n = ws.n;
+    const { n, capacity, layerCurves } = ws;
+    const { layerStart, layerEnd } = ws.grid;
     let worst = 0;
     let clipped = false;
-    for (let j = 1; j <= n; j++) {
-      const old = U[j]!;
-      const nudge = ws.capacity[j - 1]! * KINK_NUDGE_K;
-      const next = stopAtKink(ws.curves[j - 1]!.kinks, old, old - delta[j]!, nudge);
-      if (next !== old - delta[j]!) { clipped = true; delta[j] = old - next; }
-      U[j] = next;
-      const scaled = Math.abs(delta[j]! / ws.capacity[j - 1]!);
-      if (!(scaled <= worst)) worst = scaled; // also catches NaN
+    // layer by layer: a layer's cells share its curve and so its kinks
+    for (let l = 0; l < layerStart.length; l++) {
+      const kinks = layerCurves[l]!.kinks;
+      for (let j = layerStart[l]! + 1; j <= layerEnd[l]!; j++) {
+        const old = U[j]!;
+        const nudge = capacity[j - 1]! * KINK_NUDGE_K;
+        const next = kinks.length === 0 ? old - delta[j]! : stopAtKink(kinks, old, old - delta[j]!, nudge);
+        if (next !== old - delta[j]!) { clipped = true; delta[j] = old - next; }
+        U[j] = next;
+        const scaled = Math.abs(delta[j]! / capacity[j - 1]!);
+        if (!(scaled <= worst)) worst = scaled; // also catches NaN
+      }
     }
     // a face node moves with its cell: when the cell's update stopped at a kink, the face takes what its own linearised
     // balance gives for the cell's shortened update, not the full one (which assumed the cell went past the kink, and
