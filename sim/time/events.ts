@@ -2,16 +2,16 @@
  * State events: a switch watches a function g of the state (a sensor temperature minus a set-point) and acts when g
  * rises through zero. After each accepted step the time loop evaluates every armed switch (g < 0 at the step's start);
  * if one has risen to g ≥ 0 by the step's end, the step is redone from the same start with a shorter length until it
- * ends just past the earliest crossing: the Illinois variant of regula falsi on the step length (Dowell & Jarratt,
- * BIT 11 (1971) 168–174), stopped when the bracket is narrower than the time tolerance. Its first trial is the root of
- * the parabola through g at the step's start, its stage point and its end (parabolaRoot), which the step has already
- * computed; regula falsi's first point, from the two ends alone, is poor wherever g curves over a long step. The step
- * that is kept is the
- * bracket's right end, so the switch sees its level reached, at most the tolerance late. Then the switch acts and the
- * loop re-reads the face conditions, as at a schedule change (Hairer, Nørsett & Wanner, Solving ODEs I, §II.6, "dense
- * output and event location"; here without dense output: each trial is a real step, so the landed state is the
- * method's own).
- * A g that dips above zero and back within one step is not seen; the step limit bounds how long such a dip can be.
+ * ends just past the earliest crossing: regula falsi on the step length with Anderson and Björck's scaling of the kept
+ * end (BIT 13 (1973) 253–264; the Illinois halving, Dowell & Jarratt, BIT 11 (1971) 168–174, where their factor is not
+ * positive), stopped when the bracket is narrower than the time tolerance. Its first trial is the root of the parabola
+ * through g at the step's start, its stage point and its end (parabolaRoot), which the step has already computed;
+ * regula falsi's first point, from the two ends alone, is poor wherever g curves over a long step. The step that is
+ * kept is the bracket's right end, so the switch sees its level reached, at most the tolerance late. Then the switch
+ * acts and the loop re-reads the face conditions, as at a schedule change (Hairer, Nørsett & Wanner, Solving ODEs I,
+ * §II.6, "dense output and event location"; here without dense output: each trial is a real step, so the landed state
+ * is the method's own). A g that dips above zero and back within one step is not seen; the step limit bounds how long
+ * such a dip can be.
  */
 import type { Workspace } from '../grid/discretization.ts';
 import type { Grid } from '../grid/mesh.ts';
@@ -136,8 +136,8 @@ export interface Located {
 }
 
 /**
- * Locates the rise of g through zero on (0, sB], given g(0) = gA < 0 ≤ g(sB) = gB, by Illinois regula falsi on the
- * step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or undefined if
+ * Locates the rise of g through zero on (0, sB], given g(0) = gA < 0 ≤ g(sB) = gB, by Anderson–Björck regula falsi
+ * on the step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or undefined if
  * that step failed (then the bracket found so far is kept). Stops when the bracket is narrower than tolS or after
  * maxTrials trials. `firstS`, when given, is the first trial instead of the regula falsi point (held inside the
  * bracket as every trial is).
@@ -161,17 +161,28 @@ export function locateRise(trial: (s: number) => number | undefined, gA: number,
     trials++;
     lastS = s;
     if (fs === undefined) break;
+    // the same end replaced twice in a row scales the other end's value by Anderson and Björck's m = 1 − f_new/f_old,
+    // or halves it (Illinois) when m ≤ 0
     if (fs >= 0) {
+      if (side === 1) fa *= andersonBjorck(fs, fb);
       b = s; fb = fs;
-      if (side === 1) fa *= 0.5; // Illinois: the same end twice in a row halves the other end's value
       side = 1;
     } else {
+      if (side === -1) fb *= andersonBjorck(fs, fa);
       a = s; fa = fs;
-      if (side === -1) fb *= 0.5;
       side = -1;
     }
   }
   return { s: b, lastS, trials };
+}
+
+/**
+ * The factor on the kept end's value when the other end is replaced by a point of the same sign twice in a row: m =
+ * 1 − f_new/f_replaced (Anderson & Björck, BIT 13 (1973) 253–264), or 1/2 (the Illinois factor) when m ≤ 0.
+ */
+function andersonBjorck(fNew: number, fReplaced: number): number {
+  const m = 1 - fNew / fReplaced;
+  return m > 0 ? m : 0.5;
 }
 
 /**

@@ -1,6 +1,6 @@
 // Locating a state event inside a step (sim/time/events.ts): the parabola whose root is the first trial, worked on
-// closed forms, and the Illinois regula falsi that follows it (Dowell & Jarratt, BIT 11 (1971) 168–174), on model event
-// functions g(s) given in closed form, where each trial is a call, not a step.
+// closed forms, and the regula falsi that follows it, with Anderson and Björck's scaling of the kept end (BIT 13 (1973)
+// 253–264), on model event functions g(s) given in closed form, where each trial is a call, not a step.
 
 import { describe, expect, it } from 'vitest';
 import { locateRise, parabolaRoot } from '../../sim/time/events.ts';
@@ -64,5 +64,19 @@ describe('locateRise(): the step that ends just past the crossing', () => {
     const guided = locate(g, 1, tolS, guess).trials;
     // measured: 5 trials without the guess, 3 with it (the parabola's root is 0.6965, 3.5 ms early)
     expect(guided).toBeLessThan(plain);
+  });
+
+  it('locates a g that kinks at its root in a handful of trials, from either side of the kink', () => {
+    // the separator's melt and freeze: the last cell's enthalpy moves ~10× more slowly on one side of its plateau
+    // (measured on the demo: slopes 0.68 and 0.04 per second either side). Illinois creeps from the shallow side: 12–14
+    // trials here; Anderson–Björck: 6–7 (measured)
+    const r = 0.3836;
+    for (const [before, after] of [[0.68, 0.04], [1, 0.1], [0.1, 1]] as const) {
+      const g = (s: number) => (s < r ? before * (s - r) : after * (s - r));
+      const found = locate(g, 1.094, tolS);
+      expect(found.s - r, `slopes ${before}, ${after}: how late`).toBeGreaterThanOrEqual(0);
+      expect(found.s - r, `slopes ${before}, ${after}: how late`).toBeLessThanOrEqual(tolS);
+      expect(found.trials, `slopes ${before}, ${after}: trials`).toBeLessThanOrEqual(8);
+    }
   });
 });
