@@ -22,8 +22,11 @@ const salt = buildMaterial({
 const TOL_K = 0.2;
 const RHO_C = 2e6;
 
-/** Layer 0 (cells 0–1) and layer 1 (cells 2–5), all of the salt, Δx = 0.1 mm; U at 400 K but `mushCell` two-phase. */
-function norm(separator: boolean[] | undefined, mushCell: number, errorCell: number, e: number): number {
+/**
+ * Layer 0 (cells 0–1) and layer 1 (cells 2–5), all of the salt, Δx = 0.1 mm; U at 400 K but `mushCell` two-phase
+ * (420–430 K) and `hotCell`, if given, liquid at 440 K (its layer's hottest).
+ */
+function norm(separator: boolean[] | undefined, mushCell: number, errorCell: number, e: number, hotCell?: number): number {
   const n = 6;
   const dx = new Float64Array(n).fill(1e-4);
   const grid: Grid = {
@@ -36,6 +39,7 @@ function norm(separator: boolean[] | undefined, mushCell: number, errorCell: num
   U.fill(400);
   for (let i = 0; i < n; i++) U[i + 1] = enthalpyAt(salt.enthalpy, 400);
   U[mushCell + 1] = (salt.melt!.hSolidus + salt.melt!.hLiquidus) / 2;
+  if (hotCell !== undefined) U[hotCell + 1] = enthalpyAt(salt.enthalpy, 440);
   const cond: StepConditions = { bottom: { kind: 'fixed', tK: 400 }, top: { kind: 'fixed', tK: 400 }, source: new Float64Array(n) };
   evaluate(ws, U, cond);
   const scale: ErrorScale = { toleranceK: TOL_K, liquidFraction: 4e-3, gridRefine: 1, separator };
@@ -54,12 +58,20 @@ describe('LineSystem.errorNorm(): the temperature part, per layer', () => {
     assertClose(norm([false, true], 2, 4, 3), 1.5, { rel: 1e-12 }, 'RMS over the separator');
   });
 
-  it('the same error counts whole in a separator with no cell in its melt, and in any layer not marked separator', () => {
+  it('the same error counts whole in a layer with no cell in its melt', () => {
     // the two-phase cell in the other layer: the separator is not melting, so its largest cell's 3 stands
     assertClose(norm([false, true], 0, 4, 3), 3, { rel: 1e-12 }, 'separator not melting');
-    // the layer melts but is not a separator (an electrode may melt near its limit): its largest cell's 3
-    assertClose(norm([true, false], 2, 4, 3), 3, { rel: 1e-12 }, 'melting electrode');
-    assertClose(norm(undefined, 2, 4, 3), 3, { rel: 1e-12 }, 'no layer marked');
+    assertClose(norm([true, false], 0, 4, 3), 3, { rel: 1e-12 }, 'electrode not melting');
+  });
+
+  it('a melting layer not marked separator takes the larger of the RMS and its hottest cell\'s error', () => {
+    // the error on a solid cell, not the hottest (the two-phase cell is): the RMS, 3/2
+    assertClose(norm([true, false], 2, 4, 3), 1.5, { rel: 1e-12 }, 'melting electrode, error beside the front');
+    assertClose(norm(undefined, 2, 4, 3), 1.5, { rel: 1e-12 }, 'no layer marked');
+    // the error on its hottest cell (liquid, 440 K): that cell's own 3, as its margin reads it
+    assertClose(norm([true, false], 2, 5, 3, 5), 3, { rel: 1e-12 }, 'melting electrode, error on its hottest cell');
+    // a separator's hottest cell is not held on its own: the RMS
+    assertClose(norm([false, true], 2, 5, 3, 5), 1.5, { rel: 1e-12 }, 'melting separator, error on its hottest cell');
   });
 
   it('the largest layer decides: an electrode cell at 2 beside a melting separator with no error gives 2', () => {
