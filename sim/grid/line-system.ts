@@ -263,9 +263,9 @@ export class LineSystem implements StageSystem {
    * salt layer not marked as the separator) takes the larger of the same RMS and its hottest cell's own error: its
    * verdict is its margin, which reads its hottest temperature, so that cell keeps the per-cell hold while the cells
    * beside its front are held as a whole, as in a separator. With the per-cell maximum over every cell, a front crossing
-   * a thick electrode set a chain of rejected steps at each cell it crossed (2200–3000 rejections of 5000–9000 steps on
-   * 62–100 mm layers of 1000 cells, fuzz seed 23, all at tolerance_K ≤ 0.012 K), and the work grew with the cells the
-   * front crossed. Measured on three such runs (cases 2529, 1018, 7885): Newton sweeps 85 419 → 26 550, 39 397 →
+   * a thick electrode set a chain of rejected steps at each cell it crossed (2800–3200 rejections beside 5500–6000
+   * accepted steps when they met the run-time ceiling, on 62–100 mm layers of about 1000 cells at their own
+   * tolerance_K of 0.0035–0.024 K, fuzz seed 23), and the work grew with the cells the front crossed. Measured on three such runs (cases 2529, 1018, 7885): Newton sweeps 85 419 → 26 550, 39 397 →
    * 14 138 and 67 894 → 20 050. What it gives up: while such a layer melts or freezes, a cell other than its hottest may
    * be off by more than tol_K, as in a separator (its recorded minimum and mean are held through the RMS). Reads ws.T
    * as the end state's temperatures.

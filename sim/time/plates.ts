@@ -134,7 +134,6 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
         node.powerWPerM2 = h.control.kind === 'constant' || thermostats[side]!.isOn() ? h.powerWPerM2 : 0;
       }
     },
-    /** After a (trial) step: the plate temperatures at its end, for the sensors. */
     /**
      * The plate temperatures at a step's stage point, for the sensors: its face temperatures Ug and the heats into the
      * faces there, qg (afterTrial's recovery, at the stage instead of the end). The next trial's afterTrial() replaces them.
@@ -146,6 +145,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
         if (h) nowK[side] = Ug[nodeOf(ws, side)]! + qg[side]! / h.contactWPerM2K;
       }
     },
+    /** After a (trial) step: the plate temperatures at its end, for the sensors. */
     afterTrial(): void {
       if (!cond) return;
       for (const side of SIDES) {
