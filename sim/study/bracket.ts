@@ -1,8 +1,9 @@
 /**
  * Finding where a scanned response enters or leaves a set (margin above the required one; separator fully molten):
- * a coarse scan gives bracketing pairs of neighbours on either side; each bracket is narrowed to a tolerance by the
- * Illinois variant of regula falsi (Dowell & Jarratt, BIT 11 (1971) 168–174) with two safeguards from Brent's
- * zeroin (Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4): a trial point is kept at least
+ * a coarse scan gives bracketing pairs of neighbours on either side; each bracket is narrowed to a tolerance by
+ * regula falsi with Anderson and Björck's scaling of the end that stays put (BIT 13 (1973) 253–264; halved, as in the
+ * Illinois variant of Dowell & Jarratt, BIT 11 (1971) 168–174, where their factor is not positive) and two safeguards
+ * from Brent's zeroin (Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4): a trial point is kept at least
  * tol/2 from the bracket's ends (so a root near an end closes the bracket in one step), and a step that does not
  * halve the bracket is followed by a bisection. Every trial point is a full run, so the count of trials matters.
  *
@@ -40,20 +41,21 @@ export function scanValues(lo: number, hi: number, count: number, extra: readonl
   return [...new Set([...xs, ...extra.filter((x) => x >= lo && x <= hi)])].sort((a, b) => a - b);
 }
 
-/** 'illinois' follows the response's slope (it must be continuous); 'bisection' halves (a yes/no response). */
-export type NarrowMethod = 'illinois' | 'bisection';
+/** 'regula-falsi' follows the response's slope (it must be continuous); 'bisection' halves (a yes/no response). */
+export type NarrowMethod = 'regula-falsi' | 'bisection';
 
 /**
  * Narrows one bracket (a and b on opposite sides of the set's edge, a.x < b.x) until the ends are ≤ tol apart.
  * `sample(x)` runs the model at x.
  */
 export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number,
-  method: NarrowMethod = 'illinois'): Crossing<P> {
+  method: NarrowMethod = 'regula-falsi'): Crossing<P> {
   let a = a0;
   let b = b0;
   const aInside = inside(a.y);
   if (aInside === inside(b.y)) throw new RangeError('narrow(): the two ends are on the same side');
-  // Illinois weights: the end that stays put twice running has its value halved, so the next secant moves off it
+  // the end that stays put twice running has its value scaled by Anderson and Björck's m = 1 − f_new/f_replaced (halved
+  // where m ≤ 0, as in Illinois), so the next secant moves off it
   let fa = a.y;
   let fb = b.y;
   let kept: 'a' | 'b' | undefined;
@@ -66,14 +68,14 @@ export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => b
     x = Math.min(Math.max(x, a.x + guard), b.x - guard);
     const s = sample(x);
     if (inside(s.y) === aInside) {
+      if (kept === 'b') fb *= andersonBjorck(s.y, fa);
       a = s;
       fa = s.y;
-      if (kept === 'b') fb /= 2;
       kept = 'b';
     } else {
+      if (kept === 'a') fa *= andersonBjorck(s.y, fb);
       b = s;
       fb = s.y;
-      if (kept === 'a') fa /= 2;
       kept = 'a';
     }
     bisectNext = b.x - a.x > width / 2;
@@ -81,9 +83,18 @@ export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => b
   return aInside ? { inside: a, outside: b, direction: 'leave' } : { inside: b, outside: a, direction: 'enter' };
 }
 
+/**
+ * The factor on the kept end's value when the other end is replaced by a point on its own side twice running: m =
+ * 1 − f_new/f_replaced (Anderson & Björck, BIT 13 (1973) 253–264), or 1/2 (Illinois) when m ≤ 0.
+ */
+function andersonBjorck(fNew: number, fReplaced: number): number {
+  const m = 1 - fNew / fReplaced;
+  return m > 0 ? m : 0.5;
+}
+
 /** Every crossing between neighbours of a sorted scan, each narrowed to tol. */
 export function crossings<P>(scan: readonly Sample<P>[], inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number,
-  method: NarrowMethod = 'illinois'): Crossing<P>[] {
+  method: NarrowMethod = 'regula-falsi'): Crossing<P>[] {
   const found: Crossing<P>[] = [];
   for (let i = 1; i < scan.length; i++) {
     const a = scan[i - 1]!;
