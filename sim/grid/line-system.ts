@@ -163,7 +163,7 @@ export class LineSystem implements StageSystem {
       for (let j = layerStart[l]! + 1; j <= layerEnd[l]!; j++) {
         const old = U[j]!;
         const nudge = capacity[j - 1]! * KINK_NUDGE_K;
-        const next = kinks.length === 0 ? old - delta[j]! : stopAtKink(kinks, old, old - delta[j]!, nudge);
+        const next = stopAtKink(kinks, old, old - delta[j]!, nudge);
         if (next !== old - delta[j]!) { clipped = true; delta[j] = old - next; }
         U[j] = next;
         const scaled = Math.abs(delta[j]! / capacity[j - 1]!);
@@ -265,10 +265,10 @@ export class LineSystem implements StageSystem {
    * beside its front are held as a whole, as in a separator. With the per-cell maximum over every cell, a front crossing
    * a thick electrode set a chain of rejected steps at each cell it crossed (2800–3200 rejections beside 5500–6000
    * accepted steps when they met the run-time ceiling, on 62–100 mm layers of about 1000 cells at their own
-   * tolerance_K of 0.0035–0.024 K, fuzz seed 23), and the work grew with the cells the front crossed. Measured on three such runs (cases 2529, 1018, 7885): Newton sweeps 85 419 → 26 550, 39 397 →
-   * 14 138 and 67 894 → 20 050. What it gives up: while such a layer melts or freezes, a cell other than its hottest may
-   * be off by more than tol_K, as in a separator (its recorded minimum and mean are held through the RMS). Reads ws.T
-   * as the end state's temperatures.
+   * tolerance_K of 0.0035–0.024 K, fuzz seed 23), and the work grew with the cells the front crossed. Measured on three
+   * such runs (cases 2529, 1018, 7885): Newton sweeps 85 419 → 26 550, 39 397 → 14 138 and 67 894 → 20 050. What it
+   * gives up: while such a layer melts or freezes, a cell other than its hottest may be off by more than tol_K, as in a
+   * separator (its recorded minimum and mean are held through the RMS). Reads ws.T as the end state's temperatures.
    */
   errorNorm(U0: Float64Array, U1: Float64Array, z: Float64Array): number {
     const ws = this.ws;

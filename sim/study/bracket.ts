@@ -11,6 +11,8 @@
  * narrower than the scan spacing can be missed (the scan spacing says how fine the search looked).
  */
 
+import { andersonBjorck } from '../time/events.ts';
+
 export interface Sample<P> {
   readonly x: number;
   /** The response; its sign (through `inside`) says whether x is in the set. */
@@ -81,15 +83,6 @@ export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => b
     bisectNext = b.x - a.x > width / 2;
   }
   return aInside ? { inside: a, outside: b, direction: 'leave' } : { inside: b, outside: a, direction: 'enter' };
-}
-
-/**
- * The factor on the kept end's value when the other end is replaced by a point on its own side twice running: m =
- * 1 − f_new/f_replaced (Anderson & Björck, BIT 13 (1973) 253–264), or 1/2 (Illinois) when m ≤ 0.
- */
-function andersonBjorck(fNew: number, fReplaced: number): number {
-  const m = 1 - fNew / fReplaced;
-  return m > 0 ? m : 0.5;
 }
 
 /** Every crossing between neighbours of a sorted scan, each narrowed to tol. */

@@ -178,9 +178,10 @@ export function locateRise(trial: (s: number) => number | undefined, gA: number,
 
 /**
  * The factor on the kept end's value when the other end is replaced by a point of the same sign twice in a row: m =
- * 1 − f_new/f_replaced (Anderson & Björck, BIT 13 (1973) 253–264), or 1/2 (the Illinois factor) when m ≤ 0.
+ * 1 − f_new/f_replaced (Anderson & Björck, BIT 13 (1973) 253–264), or 1/2 (the Illinois factor) when m ≤ 0. Shared
+ * with the window search's narrowing (study/bracket.ts).
  */
-function andersonBjorck(fNew: number, fReplaced: number): number {
+export function andersonBjorck(fNew: number, fReplaced: number): number {
   const m = 1 - fNew / fReplaced;
   return m > 0 ? m : 0.5;
 }
