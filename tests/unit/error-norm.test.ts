@@ -1,6 +1,7 @@
 // LineSystem.errorNorm() (grid/line-system.ts), worked by hand on a six-cell stack: the temperature part of the local
-// error is each cell's |z|·(dT/dH)/tol_K, taken over a layer as its largest cell, except over a separator with a cell
-// in or across its melt in the step, where it is the width-weighted RMS √(Σ Δx·e²/Σ Δx). The numbers are our own.
+// error is each cell's |z|·(dT/dH)/tol_K, taken over a layer as its largest cell, except over a melting separator (a
+// cell in or across its melt in the step, or a front inside it: part liquid, part solid), where it is the
+// width-weighted RMS √(Σ Δx·e²/Σ Δx). The numbers are our own.
 
 import { describe, it } from 'vitest';
 import type { StepConditions } from '../../sim/grid/discretization.ts';
@@ -24,9 +25,10 @@ const RHO_C = 2e6;
 
 /**
  * Layer 0 (cells 0–1) and layer 1 (cells 2–5), all of the salt, Δx = 0.1 mm; U at 400 K but `mushCell` two-phase
- * (420–430 K) and `hotCell`, if given, liquid at 440 K (its layer's hottest).
+ * (420–430 K) and `hotCell`, if given, liquid at 440 K (its layer's hottest; a list: each of them liquid).
  */
-function norm(separator: boolean[] | undefined, mushCell: number, errorCell: number, e: number, hotCell?: number): number {
+function norm(separator: boolean[] | undefined, mushCell: number, errorCell: number, e: number,
+  hotCell?: number | readonly number[]): number {
   const n = 6;
   const dx = new Float64Array(n).fill(1e-4);
   const grid: Grid = {
@@ -39,7 +41,9 @@ function norm(separator: boolean[] | undefined, mushCell: number, errorCell: num
   U.fill(400);
   for (let i = 0; i < n; i++) U[i + 1] = enthalpyAt(salt.enthalpy, 400);
   U[mushCell + 1] = (salt.melt!.hSolidus + salt.melt!.hLiquidus) / 2;
-  if (hotCell !== undefined) U[hotCell + 1] = enthalpyAt(salt.enthalpy, 440);
+  for (const hot of hotCell === undefined ? [] : typeof hotCell === 'number' ? [hotCell] : hotCell) {
+    U[hot + 1] = enthalpyAt(salt.enthalpy, 440);
+  }
   const cond: StepConditions = { bottom: { kind: 'fixed', tK: 400 }, top: { kind: 'fixed', tK: 400 }, source: new Float64Array(n) };
   evaluate(ws, U, cond);
   const scale: ErrorScale = { toleranceK: TOL_K, liquidFraction: 4e-3, gridRefine: 1, separator };
@@ -72,6 +76,16 @@ describe('LineSystem.errorNorm(): the temperature part, per layer', () => {
     assertClose(norm([true, false], 2, 5, 3, 5), 3, { rel: 1e-12 }, 'melting electrode, error on its hottest cell');
     // a separator's hottest cell is not held on its own: the RMS
     assertClose(norm([false, true], 2, 5, 3, 5), 1.5, { rel: 1e-12 }, 'melting separator, error on its hottest cell');
+  });
+
+  it('a layer with a front inside it melts, though no cell be in its melt: part liquid, part solid', () => {
+    // the two-phase cell in layer 0; layer 1 has its top cell liquid (440 K) and three solid: an isothermal front
+    // between two cells. A separator: the RMS, 3/2 (by its largest cell it would be 3)
+    assertClose(norm([false, true], 0, 4, 3, 5), 1.5, { rel: 1e-12 }, 'separator, front between cells');
+    // an electrode: the larger of the RMS and its hottest cell's error (the liquid cell, no error): 3/2
+    assertClose(norm([true, false], 0, 4, 3, 5), 1.5, { rel: 1e-12 }, 'electrode, front between cells');
+    // all of layer 1 liquid: no front in it, its largest cell's 3 stands
+    assertClose(norm([false, true], 0, 4, 3, [2, 3, 4, 5]), 3, { rel: 1e-12 }, 'separator all liquid');
   });
 
   it('the largest layer decides: an electrode cell at 2 beside a melting separator with no error gives 2', () => {
