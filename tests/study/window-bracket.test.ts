@@ -49,6 +49,19 @@ describe('narrow()', () => {
     expect(s.calls() - 2).toBeLessThanOrEqual(7);
   });
 
+  it('narrow() scales whichever end stays put: a curve whose secants all fall on the right-hand side', () => {
+    // 1/x − 0.3, root 10/3: convex and falling, so its secants land right of the root and the left end is the one kept
+    // (the cubic above keeps its right end). Anderson and Björck's scaling of that end (BIT 13, 1973) takes 16 calls
+    // to 1e-6 (measured); without it on this side, 24
+    const s = sampler((x) => 1 / x - 0.3);
+    const c = narrow(s.sample(0.1), s.sample(10), positive, s.sample, 1e-6);
+    expect(c.direction).toBe('leave');
+    expect(c.inside.x).toBeLessThanOrEqual(10 / 3);
+    expect(c.outside.x).toBeGreaterThanOrEqual(10 / 3);
+    expect(c.outside.x - c.inside.x).toBeLessThanOrEqual(1e-6);
+    expect(s.calls() - 2).toBeLessThanOrEqual(16);
+  });
+
   it('narrow() by bisection on a step (no slope to follow) halves to the tolerance and keeps the edge inside the bracket', () => {
     const s = sampler((x) => (x >= 1.234 ? 1 : -1));
     const c = narrow(s.sample(0), s.sample(8), (y) => y >= 0, s.sample, 0.01, 'bisection');
