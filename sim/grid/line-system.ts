@@ -50,7 +50,10 @@ const KINK_NUDGE_K = 1e-9;
  */
 const EVENT_BAND_CELLS = 2;
 
-/** Whether a layer has a cell in or across its melt over the step being measured (errorNorm), and which rule holds it. */
+/**
+ * Whether a layer melts over the step being measured (errorNorm: a cell in or across its melt, or a front inside it),
+ * and which rule holds it.
+ */
 const MELTING_NONE = 0;
 const MELTING_SEPARATOR = 1;
 const MELTING_OTHER = 2;
@@ -75,7 +78,7 @@ export class LineSystem implements StageSystem {
   private readonly frontError: Float64Array;
   private readonly layerSq: Float64Array;
   private readonly layerMax: Float64Array;
-  /** Per layer: whether a cell is in or across its melt over the step (MELTING_*), its hottest cell's T (K) and error. */
+  /** Per layer: whether it melts over the step (MELTING_*), its hottest cell's T (K) and that cell's error. */
   private readonly layerMelting: Uint8Array;
   private readonly layerHottest: Float64Array;
   private readonly layerHottestError: Float64Array;
@@ -319,7 +322,7 @@ export class LineSystem implements StageSystem {
         molten1[li] = molten1[li]! + dx[i]! * liquidFractionOf(material, b, T1[i + 1]!);
         if (Math.min(a, b) <= melt.hLiquidus + e0 && Math.max(a, b) >= melt.hSolidus - e0) {
           front[li] = front[li]! + (dx[i]! * e0) / Math.max(scale.liquidFraction * latent, scale.toleranceK * ws.capacity[i]!);
-          melting[li] = scale.separator?.[li] ? MELTING_SEPARATOR : MELTING_OTHER;
+          melting[li] = MELTING_OTHER; // melting; whether by the separator's rule is settled below
         }
       }
       sq[li] = sq[li]! + dx[i]! * e * e;
@@ -327,16 +330,16 @@ export class LineSystem implements StageSystem {
       if (!(T1[i + 1]! <= hottest[li]!)) { hottest[li] = T1[i + 1]!; hottestError[li] = e; }
     }
     // a layer with a front inside it, at the step's start or end, is melting too, though no cell be in its melt just
-    // then (an isothermal front between one cell's last melt and the next cell's first)
+    // then (an isothermal front between one cell's last melt and the next cell's first); a melting separator takes its
+    // own rule
     const width = this.layerWidth;
     for (let l = 0; l < front.length; l++) {
-      if (melting[l] !== MELTING_NONE) continue;
-      if ((molten0[l]! > 0 && molten0[l]! < width[l]!) || (molten1[l]! > 0 && molten1[l]! < width[l]!)) {
-        melting[l] = scale.separator?.[l] ? MELTING_SEPARATOR : MELTING_OTHER;
-      }
+      const partial = (molten0[l]! > 0 && molten0[l]! < width[l]!) || (molten1[l]! > 0 && molten1[l]! < width[l]!);
+      if (melting[l] === MELTING_NONE && !partial) continue;
+      melting[l] = scale.separator?.[l] ? MELTING_SEPARATOR : MELTING_OTHER;
     }
-    // the temperature part: a melting separator by its width-weighted RMS, any other melting layer by the larger of that
-    // and its hottest cell's, every layer else by its largest cell (above)
+    // the temperature part: a melting separator by its width-weighted RMS, any other melting layer by the larger of
+    // that and its hottest cell's, every layer else by its largest cell (above)
     for (let l = 0; l < front.length; l++) {
       const rms = melting[l] === MELTING_NONE ? 0 : Math.sqrt(sq[l]! / width[l]!);
       const e = melting[l] === MELTING_SEPARATOR ? rms : melting[l] === MELTING_OTHER ? Math.max(rms, hottestError[l]!) : most[l]!;

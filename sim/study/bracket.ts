@@ -2,10 +2,11 @@
  * Finding where a scanned response enters or leaves a set (margin above the required one; separator fully molten):
  * a coarse scan gives bracketing pairs of neighbours on either side; each bracket is narrowed to a tolerance by
  * regula falsi with Anderson and Björck's scaling of the end that stays put (BIT 13 (1973) 253–264; halved, as in the
- * Illinois variant of Dowell & Jarratt, BIT 11 (1971) 168–174, where their factor is not positive) and two safeguards
- * from Brent's zeroin (Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4): a trial point is kept at least
- * tol/2 from the bracket's ends (so a root near an end closes the bracket in one step), and a step that does not
- * halve the bracket is followed by a bisection. Every trial point is a full run, so the count of trials matters.
+ * Illinois variant of Dowell & Jarratt, BIT 11 (1971) 168–174, where their factor is not positive) and two
+ * safeguards from Brent's zeroin (Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4): a trial point
+ * is kept at least tol/2 from the bracket's ends (so a root near an end closes the bracket in one step), and a step
+ * that does not halve the bracket is followed by a bisection. Every trial point is a full run, so the count of trials
+ * matters.
  *
  * The response need not be monotonic: every sign change between scan neighbours is refined and reported; a set
  * narrower than the scan spacing can be missed (the scan spacing says how fine the search looked).

@@ -137,10 +137,10 @@ export interface Located {
 
 /**
  * Locates the rise of g through zero on (0, sB], given g(0) = gA < 0 ≤ g(sB) = gB, by Anderson–Björck regula falsi
- * on the step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or undefined if
- * that step failed (then the bracket found so far is kept). Stops when the bracket is narrower than tolS or after
- * maxTrials trials. `firstS`, when given, is the first trial instead of the regula falsi point (held inside the
- * bracket as every trial is).
+ * on the step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or
+ * undefined if that step failed (then the bracket found so far is kept). Stops when the bracket is narrower than tolS
+ * or after maxTrials trials. `firstS`, when given, is the first trial instead of the regula falsi point (held inside
+ * the bracket as every trial is).
  */
 export function locateRise(trial: (s: number) => number | undefined, gA: number, sB: number, gB: number,
   tolS: number, maxTrials: number, firstS?: number): Located {

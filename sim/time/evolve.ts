@@ -59,8 +59,10 @@ export const evolveDefaults = {
    * sensor rising at 10 K/s overshoots its level by at most 0.01 K.
    */
   eventToleranceS: 1e-3,
-  /** Trial steps allowed to locate one event (Anderson–Björck regula falsi converges superlinearly; bisection alone
-   * would need ~40). */
+  /**
+   * Trial steps allowed to locate one event (Anderson–Björck regula falsi converges superlinearly; bisection alone
+   * would need ~40).
+   */
   maxEventTrials: 40,
   /** Rounds of switches allowed to fire at one instant before the loop moves on (a chattering pair cannot hold it). */
   maxFiresAtOnce: 8,

@@ -102,6 +102,18 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
     st.nextS = tS + c.periodS;
   };
 
+  /**
+   * The plate temperatures the sensors read at a state, recovered from its face temperatures (U, the n+2 node layout)
+   * and the heats into the faces there (q, by ledger channel): T_plate = T_face + q/G_contact.
+   */
+  const recoverPlates = (U: Float64Array, q: Float64Array): void => {
+    if (!cond) return;
+    for (const side of SIDES) {
+      const h = heaterOn(cond, side);
+      if (h) nowK[side] = U[nodeOf(ws, side)]! + q[side]! / h.contactWPerM2K;
+    }
+  };
+
   const steps: [PlateStep, PlateStep] = [
     { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN }, { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN },
   ];
@@ -135,23 +147,15 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
       }
     },
     /**
-     * The plate temperatures at a step's stage point, for the sensors: its face temperatures Ug and the heats into the
-     * faces there, qg (afterTrial's recovery, at the stage instead of the end). The next trial's afterTrial() replaces them.
+     * The plate temperatures at a step's stage point, for the sensors, from its state Ug and face heats qg. The next
+     * trial's afterTrial() replaces them.
      */
     atStage(Ug: Float64Array, qg: Float64Array): void {
-      if (!cond) return;
-      for (const side of SIDES) {
-        const h = heaterOn(cond, side);
-        if (h) nowK[side] = Ug[nodeOf(ws, side)]! + qg[side]! / h.contactWPerM2K;
-      }
+      recoverPlates(Ug, qg);
     },
     /** After a (trial) step: the plate temperatures at its end, for the sensors. */
     afterTrial(): void {
-      if (!cond) return;
-      for (const side of SIDES) {
-        const h = heaterOn(cond, side);
-        if (h) nowK[side] = ws.T[nodeOf(ws, side)]! + ws.faceQ[side]! / h.contactWPerM2K;
-      }
+      recoverPlates(ws.T, ws.faceQ);
     },
     /**
      * Accepts a step of length hS whose face heats were qg, q1 at the stage and the end and face temperatures Ug, U1 (weights w of the
