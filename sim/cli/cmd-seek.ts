@@ -1,6 +1,7 @@
 /**
  * `freezeline seek FILE --adjust KEY --min A --max B --target "safe_window_s>=600" [--largest] [--json]`: the smallest
- * (largest) value of one input that meets a target on the verdicts (sim/study/seek.ts: a coarse scan, then bisection).
+ * (largest) value of one input that meets a target on the verdicts (sim/study/seek.ts: a coarse scan, then the bracket
+ * narrowed by regula falsi, or by bisection).
  * `--json` prints { value, met, solves, summary, monotonic, met_intervals, bracket, best, adjust, target }.
  */
 import type { Command } from 'commander';
@@ -22,7 +23,7 @@ export function registerSeek(cli: Command): void {
     .requiredOption('--max <B>', 'upper end of the range')
     .requiredOption('--target <EXPR>', 'a target on the verdicts, e.g. "safe_window_s>=600" or "layers.anode.margin_K>=25"')
     .option('--largest', 'the largest value that meets the target (default: the smallest)')
-    .option('--scan <n>', `coarse scan points before bisection (default ${seekDefaults.scanCount})`)
+    .option('--scan <n>', `coarse scan points before narrowing (default ${seekDefaults.scanCount})`)
     .option('--tolerance <d>', `width of the final bracket, in the key's unit (default ${seekDefaults.relativeTolerance} of the range)`)
     .option('--json', 'as JSON: { value, met, solves, summary, … }')
     .addHelpText('after', '\nA verdict that does not exist (null, e.g. no safe window) fails the target. When the target is met on more\nthan one stretch of the range the response is not monotonic: every stretch the scan saw is listed.')

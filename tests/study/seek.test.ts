@@ -54,6 +54,47 @@ describe('seek() on a lumped slab', () => {
   });
 });
 
+/** A probe reading f(v) against `reading >= t` (or `>` when strict); null readings are missing verdicts (not met). */
+const readingProbe = (f: (v: number) => number | null, t: number, strict = false) => (value: number): Probe => {
+  const reading = f(value);
+  const met = reading !== null && (strict ? reading > t : reading >= t);
+  return { value, met, reading, shortfall: reading === null ? null : t - reading, summary: null, error: null };
+};
+
+describe('seek() on a numeric reading', () => {
+  it('narrows by the reading\'s slope: the smallest v with v² ≥ 10 is √10, in fewer runs than halving takes', () => {
+    const r = seek(readingProbe((v) => v * v, 10), { min: 0, max: 10, largest: false, tolerance: 1e-6 });
+    expect(r.met).toBe(true);
+    expect(r.value! * r.value!).toBeGreaterThanOrEqual(10); // met by construction
+    assertClose(r.value!, Math.sqrt(10), { abs: 1e-6 }, 'smallest v with v² ≥ 10');
+    expect(r.bracket).toBeLessThanOrEqual(1e-6);
+    // halving the scan's 1.25 to 1e-6 takes ⌈log2(1.25e6)⌉ = 21 runs after the 9 of the scan: 30 in all. Regula falsi
+    // with Anderson and Björck's scaling (bracket.ts) takes 16 after the scan (measured)
+    expect(r.solves).toBeLessThanOrEqual(9 + 16);
+  });
+
+  it('finds the largest value as well: the largest v with −v² ≥ −10', () => {
+    const r = seek(readingProbe((v) => -v * v, -10), { min: 0, max: 10, largest: true, tolerance: 1e-6 });
+    assertClose(r.value!, Math.sqrt(10), { abs: 1e-6 }, 'largest v with −v² ≥ −10');
+    expect(r.value!).toBeLessThanOrEqual(Math.sqrt(10));
+    expect(r.solves).toBeLessThanOrEqual(9 + 16);
+  });
+
+  it('halves a bracket whose unmet end reads exactly the target of a strict comparison (v > 5 from the scan point 5)', () => {
+    const r = seek(readingProbe((v) => v, 5, true), { min: 0, max: 10, largest: false, tolerance: 1e-6 });
+    expect(r.value!).toBeGreaterThan(5);
+    assertClose(r.value!, 5, { abs: 1e-6 }, 'smallest v > 5');
+    expect(r.solves).toBe(9 + 21); // bisection: no slope to follow from a reading at the target
+  });
+
+  it('keeps to the met side across a stretch where the verdict is missing (null reading, not met)', () => {
+    // reading v, but no verdict on (5, 5.95): the bracket [5, 6.25] starts by slope and must cross the gap
+    const r = seek(readingProbe((v) => (v > 5 && v < 5.95 ? null : v), 6), { min: 0, max: 10, largest: false, tolerance: 1e-6 });
+    assertClose(r.value!, 6, { abs: 1e-6 }, 'smallest v with reading ≥ 6');
+    expect(r.value!).toBeGreaterThanOrEqual(6);
+  });
+});
+
 describe('seek() on known step functions', () => {
   it('bisects to the edge of a single met stretch, smallest and largest', () => {
     const rule = (v: number) => v >= 3.3 && v <= 7.7;
