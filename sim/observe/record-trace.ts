@@ -22,6 +22,12 @@ export interface SeparatorTrace {
   readonly meanLiquid: Float64Array;
   /** max over separator cells of (H − H_solidus)/span: ≤ 0 when every cell is solid. */
   readonly freezeMargin: Float64Array;
+  /**
+   * The highest meltMargin and meanLiquid of every point recorded, kept or not (a summary keeps few): how near the
+   * separator came to fully molten, and how far past it (study/point.ts melt_reach reads them).
+   */
+  readonly peakMeltMargin: number;
+  readonly peakMeanLiquid: number;
 }
 
 /** The levels the verdicts test (verdict.ts summarize): all liquid, half the mean liquid fraction, all solid. */
@@ -46,8 +52,12 @@ export function createIndicatorStore(budget: number, heldPairs: number): Indicat
   const store = new RowStore(4, budget, 2 * heldPairs + 1);
   let lastSides = -1;
   let exact = true;
+  let peakMelt = -Infinity;
+  let peakMean = -Infinity;
 
   function add(tS: number, meltMargin: number, mean: number, freezeMargin: number): void {
+    if (meltMargin > peakMelt) peakMelt = meltMargin;
+    if (mean > peakMean) peakMean = mean;
     const row = store.row;
     row[0] = tS;
     row[1] = meltMargin;
@@ -68,7 +78,7 @@ export function createIndicatorStore(budget: number, heldPairs: number): Indicat
   function finish(): { trace: SeparatorTrace; exact: boolean } {
     const { rows, data } = store.finish();
     const column = (k: number) => Float64Array.from({ length: rows }, (_, r) => data[r * 4 + k]!);
-    return { trace: { tS: column(0), meltMargin: column(1), meanLiquid: column(2), freezeMargin: column(3) }, exact };
+    return { trace: { tS: column(0), meltMargin: column(1), meanLiquid: column(2), freezeMargin: column(3), peakMeltMargin: peakMelt, peakMeanLiquid: peakMean }, exact };
   }
 
   return { add, finish };

@@ -48,15 +48,27 @@ export function scanValues(lo: number, hi: number, count: number, extra: readonl
 export type NarrowMethod = 'regula-falsi' | 'bisection';
 
 /**
+ * Where a caller knows a better first trial than the method's own (window.ts: the hold at which the molten end of a
+ * bracket became molten): x, or undefined for none. Taken only more than tol/2 inside the bracket.
+ */
+export type FirstTrial<P> = (a: Sample<P>, b: Sample<P>) => number | undefined;
+
+/**
  * Narrows one bracket (a and b on opposite sides of the set's edge, a.x < b.x) until the ends are ≤ tol apart.
  * `sample(x)` runs the model at x.
  */
 export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number,
-  method: NarrowMethod = 'regula-falsi'): Crossing<P> {
+  method: NarrowMethod = 'regula-falsi', firstTrial?: FirstTrial<P>): Crossing<P> {
   let a = a0;
   let b = b0;
   const aInside = inside(a.y);
   if (aInside === inside(b.y)) throw new RangeError('narrow(): the two ends are on the same side');
+  const x0 = firstTrial?.(a, b);
+  if (x0 !== undefined && x0 > a.x + tol / 2 && x0 < b.x - tol / 2) {
+    const s = sample(x0);
+    if (inside(s.y) === aInside) a = s;
+    else b = s;
+  }
   // the end that stays put twice running has its value scaled by Anderson and Björck's m = 1 − f_new/f_replaced (halved
   // where m ≤ 0, as in Illinois), so the next secant moves off it
   let fa = a.y;
@@ -88,12 +100,12 @@ export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => b
 
 /** Every crossing between neighbours of a sorted scan, each narrowed to tol. */
 export function crossings<P>(scan: readonly Sample<P>[], inside: (y: number) => boolean, sample: (x: number) => Sample<P>, tol: number,
-  method: NarrowMethod = 'regula-falsi'): Crossing<P>[] {
+  method: NarrowMethod = 'regula-falsi', firstTrial?: FirstTrial<P>): Crossing<P>[] {
   const found: Crossing<P>[] = [];
   for (let i = 1; i < scan.length; i++) {
     const a = scan[i - 1]!;
     const b = scan[i]!;
-    if (inside(a.y) !== inside(b.y)) found.push(narrow(a, b, inside, sample, tol, method));
+    if (inside(a.y) !== inside(b.y)) found.push(narrow(a, b, inside, sample, tol, method, firstTrial));
   }
   return found;
 }

@@ -6,6 +6,11 @@
  * Definitions (README, "The safe operating duration"):
  *   margin_K      the smallest limit − peak over every limit of every layer (the binding layer's margin_K).
  *   molten        whether every separator cell was fully liquid at some time (molten_at_s is not null).
+ *   melt_reach    how far the separator got towards fully molten, one number that moves continuously with the varied
+ *                 input: short of molten, its largest volume-mean liquid fraction less 1 (−1 to just below 0); once
+ *                 molten, how far its least-melted cell rose above its liquidus at most, in spans of its melt's
+ *                 enthalpy (≥ 0; record-trace.ts: the latent heat, or 1 K of sensible heat if that is larger). ≥ 0
+ *                 exactly when molten_at_s is not null.
  *   window_s      half_frozen_at_s − heat_off_s (the usable window, whatever the margins: the search judges those).
  *   until_liquid_s  from heat-off until the separator's mean liquid fraction first falls below the chosen F.
  *   solidifying_s   from heat-off until the first separator cell starts to solidify (after being fully molten).
@@ -14,6 +19,7 @@ import type { LimitKind } from '../physics/material.ts';
 import type { Problem } from '../physics/problem.ts';
 import { runProblem } from '../run.ts';
 import { firstCrossing, type Summary, type WindowStatus } from '../observe/verdict.ts';
+import type { SeparatorTrace } from '../observe/record-trace.ts';
 
 export interface Binding {
   readonly layer: string;
@@ -33,6 +39,8 @@ export interface WindowPoint {
   readonly margin_K: number | null;
   readonly binding: Binding | null;
   readonly molten_at_s: number | null;
+  /** How far the separator got towards fully molten (see above); null without a separator. */
+  readonly melt_reach: number | null;
   readonly half_frozen_at_s: number | null;
   readonly window_s: number | null;
   readonly until_liquid_s: number | null;
@@ -61,6 +69,15 @@ function bindingOf(summary: Summary): Binding | null {
 }
 
 /**
+ * melt_reach (see above). Its sign is the molten verdict's by construction: a mean liquid fraction that rounds to 1
+ * while a cell is still short of its liquidus reads just below 0, and a margin that could only be below 0 on a molten
+ * run (none: the verdict reads the same points) would read 0.
+ */
+function meltReach(molten: boolean, trace: SeparatorTrace): number {
+  return molten ? Math.max(trace.peakMeltMargin, 0) : Math.min(trace.peakMeanLiquid - 1, -Number.MIN_VALUE);
+}
+
+/**
  * Runs the problem once and boils it down. `untilLiquid` is the liquid fraction F, or null. Without F the run keeps
  * only what the verdicts read (detail 'summary': every event time is exact there, record-trace.ts); the crossing of
  * another level F needs every recorded point, so then the run keeps its full detail.
@@ -83,6 +100,7 @@ export function evaluatePoint(problem: Problem, value: number, untilLiquid: numb
     margin_K: binding ? binding.margin_K : null,
     binding,
     molten_at_s: molten,
+    melt_reach: sep ? meltReach(molten !== null, sep) : null,
     half_frozen_at_s: half,
     window_s: molten !== null ? since(half) : null,
     until_liquid_s: sep && molten !== null && off !== null && untilLiquid !== null

@@ -72,6 +72,26 @@ describe('narrow()', () => {
     expect(s.calls() - 2).toBeLessThanOrEqual(10);
   });
 
+  it('narrow() takes a caller\'s first trial when it lies more than tol/2 inside the bracket, and ignores it otherwise', () => {
+    const f = (x: number) => x - 3.3; // inside (> 0) above 3.3
+    const trace = (first: number | undefined) => {
+      const xs: number[] = [];
+      const sample = (x: number): Sample<null> => { xs.push(x); return { x, y: f(x), point: null }; };
+      const c = narrow(sample(0), sample(10), positive, sample, 0.5, 'regula-falsi', () => first);
+      return { xs: xs.slice(2), c };
+    };
+    const taken = trace(3.4);
+    expect(taken.xs[0]).toBe(3.4);
+    expect(taken.c.inside.x).toBeGreaterThanOrEqual(3.3);
+    expect(taken.c.outside.x).toBeLessThan(3.3);
+    expect(taken.c.inside.x - taken.c.outside.x).toBeLessThanOrEqual(0.5);
+    // 9.9 is within tol/2 of the end 10, and undefined is none: both narrow as without a first trial
+    const none = trace(undefined);
+    expect(none.xs[0]).not.toBe(3.4);
+    expect(trace(9.9).xs).toEqual(none.xs);
+    expect(trace(-1).xs).toEqual(none.xs);
+  });
+
   it('narrow() refuses two ends on the same side', () => {
     const s = sampler((x) => x);
     expect(() => narrow(s.sample(1), s.sample(2), positive, s.sample, 0.1)).toThrow(/same side/);

@@ -40,6 +40,9 @@ describe('searchWindow() against a brute-force scan of the hold', () => {
     expect(r.longest!.binding?.kind).toBe('ignition');
     expect(r.monotonic).toBe(true);
     expect(r.safe).toHaveLength(1);
+    // a guard on the count, measured on this code (the answers are checked against brute force below): 27 solves,
+    // 32 when the molten edge was halved instead of narrowed from the molten neighbour's molten time
+    expect(r.solves).toBeLessThanOrEqual(27);
   });
 
   it('searchWindow() puts the longest hold where a 1 s scan of the hold finds the margin running out', () => {
@@ -72,11 +75,20 @@ describe('searchWindow() against a brute-force scan of the hold', () => {
     assertClose(r.window!.point.heat_off_s ?? Number.NaN, hold, { abs: 1e-9 }, 'heat off at the hold, s');
   });
 
+  it('searchWindow() reads each run\'s melt reach on the molten verdict\'s side: ≥ 0 exactly when molten', () => {
+    if (!result.ok) throw new Error(result.reason);
+    const points = result.report.points;
+    expect(points.some((p) => p.molten_at_s === null)).toBe(true);
+    for (const p of points) expect([p.value, p.melt_reach! >= 0]).toEqual([p.value, p.molten_at_s !== null]);
+    // short of molten it is the largest mean liquid fraction less 1, in [−1, 0)
+    for (const p of points.filter((q) => q.molten_at_s === null)) expect(p.melt_reach!).toBeGreaterThanOrEqual(-1);
+  });
+
   it('searchWindow() puts the shortest hold where a scan of the hold first finds the separator fully molten', () => {
     if (!result.ok) throw new Error(result.reason);
     const shortest = result.report.shortest!.value;
     const molten = (h: number) => runOk(demoWith(plateC, h)).summary.separator.molten_at_s !== null;
-    // bisection brackets it within TOL: molten at the reported hold, not molten TOL + a little below it
+    // the narrowing brackets it within TOL: molten at the reported hold, not molten TOL + a little below it
     expect(molten(shortest)).toBe(true);
     expect(molten(Math.max(0, shortest - TOL - 0.05))).toBe(false);
   });

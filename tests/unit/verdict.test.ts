@@ -110,7 +110,7 @@ describe('summarize()', () => {
       layers: [series('case'), series('sep'), series('anode')],
       bottomC: f64(peaks.case), topC: f64(peaks.anode), nodeXMm: f64([0, 3]),
       map: ndarray(new Float64Array(tS.length * 2), [tS.length, 2]),
-      separator: trace ? { tS: f64(trace.tS), meltMargin: f64(trace.melt), meanLiquid: f64(trace.mean), freezeMargin: f64(trace.freeze) } : undefined,
+      separator: trace ? { tS: f64(trace.tS), meltMargin: f64(trace.melt), meanLiquid: f64(trace.mean), freezeMargin: f64(trace.freeze), peakMeltMargin: Math.max(...trace.melt), peakMeanLiquid: Math.max(...trace.mean) } : undefined,
       probes: { xMm: [], tS: [], tC: [] },
       energy: { bottomInJ: 0, bottomOutJ: 0, topInJ: 0, topOutJ: 0, sourceJ: 0, storedJ: 0, ...energy },
       warnings: [],
