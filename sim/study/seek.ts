@@ -104,8 +104,8 @@ export function seek(probeAt: (value: number) => Probe, opts: SeekOptions): Seek
 
 /**
  * The response regula falsi follows: how far past the target a probe is (−shortfall), with its side always the side
- * `met` gives: a met probe reads ≥ 0, one not met < 0 (a reading exactly at a strict target, or a missing verdict, then
- * reads as just short of it; a missing verdict has no slope, so the bracket is halved there).
+ * `met` gives: a met probe reads ≥ 0, one not met < 0 (a reading exactly at a strict target reads just short of it).
+ * A missing verdict reads NaN, on the unmet side: it has no slope, and narrow() halves the bracket after it.
  */
 function slopeY(p: Probe): number {
   if (p.shortfall === null) return p.met ? 0 : Number.NaN;
