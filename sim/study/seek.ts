@@ -2,9 +2,8 @@
  * Goal seeking: the smallest (or largest) value of one input, in [min, max], for which a run meets a target.
  * Method: a coarse scan of evenly spaced values (both ends included), then the bracket where the target changes from
  * unmet to met is narrowed until it is narrower than the tolerance (bracket.ts narrow): by regula falsi with Anderson
- * and Björck's scaling on how far the reading is from the target, when both of its ends have a numeric reading on
- * either side of it, and by bisection otherwise (a target in words, a verdict missing at an end, a reading exactly at
- * the target). The answer is the bracket's met end, so it meets the target by construction. Either method assumes
+ * and Björck's scaling on how far the reading is from the target, when both of its ends have a numeric reading, and
+ * by bisection otherwise (a target in words, a verdict missing at an end). The answer is the bracket's met end, so it meets the target by construction. Either method assumes
  * the response is monotonic inside that bracket: when the scan shows the target met on more than one stretch, the
  * result says the response is not monotonic and lists every stretch seen, so the user knows the answer is the edge of
  * the first (or last) one. Measured on eight seeks of the examples: the four narrowed by slope took 12, 14, 13 and 11
@@ -92,9 +91,10 @@ export function seek(probeAt: (value: number) => Probe, opts: SeekOptions): Seek
     return { value: good.value, met: true, solves, summary: good.summary, monotonic, met_intervals: intervals, bracket: 0, best: null };
   }
   const bad = scan[outer]!;
-  // a numeric reading on both sides, short by a positive amount on one and past the target on the other, is narrowed
-  // by its slope (regula falsi); otherwise (words, a missing verdict, a target met exactly at the scan point) by halving
-  const bySlope = bad.shortfall !== null && bad.shortfall > 0 && good.shortfall !== null && good.shortfall < 0;
+  // a numeric reading at both ends is narrowed by its slope (regula falsi); otherwise (a target in words, a verdict
+  // missing at an end) by halving. An end reading exactly the target is the edge itself, or a hair beside it for a
+  // strict comparison: the secant lands there and the bracket closes in a run or two
+  const bySlope = bad.shortfall !== null && good.shortfall !== null;
   const sampleOf = (p: Probe): Sample<Probe> => ({ x: p.value, y: slopeY(p), point: p });
   const [lo, hi] = good.value < bad.value ? [good, bad] : [bad, good];
   const found = narrow(sampleOf(lo), sampleOf(hi), (y) => y >= 0, (x) => sampleOf(at(x)), tol, bySlope ? 'regula-falsi' : 'bisection');

@@ -80,11 +80,15 @@ describe('seek() on a numeric reading', () => {
     expect(r.solves).toBeLessThanOrEqual(9 + 16);
   });
 
-  it('halves a bracket whose unmet end reads exactly the target of a strict comparison (v > 5 from the scan point 5)', () => {
-    const r = seek(readingProbe((v) => v, 5, true), { min: 0, max: 10, largest: false, tolerance: 1e-6 });
-    expect(r.value!).toBeGreaterThan(5);
-    assertClose(r.value!, 5, { abs: 1e-6 }, 'smallest v > 5');
-    expect(r.solves).toBe(9 + 21); // bisection: no slope to follow from a reading at the target
+  it('closes at once on an end that reads exactly the target: v > 5 from the unmet scan point 5, v ≥ 5 from the met one', () => {
+    // the scan of 9 values over [0, 10] has 5 itself; bisection would take ⌈log2(1.25e6)⌉ = 21 runs more
+    const strict = seek(readingProbe((v) => v, 5, true), { min: 0, max: 10, largest: false, tolerance: 1e-6 });
+    expect(strict.value!).toBeGreaterThan(5);
+    assertClose(strict.value!, 5, { abs: 1e-6 }, 'smallest v > 5');
+    const atLeast = seek(readingProbe((v) => v, 5), { min: 0, max: 10, largest: false, tolerance: 1e-6 });
+    expect(atLeast.value!).toBe(5);
+    // the secant lands on the end reading the target; the tol/2 guard steps just off it and closes the bracket
+    expect([strict.solves, atLeast.solves]).toEqual([9 + 1, 9 + 1]);
   });
 
   it('keeps to the met side across a stretch where the verdict is missing (null reading, not met)', () => {

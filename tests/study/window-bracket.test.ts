@@ -73,23 +73,26 @@ describe('narrow()', () => {
   });
 
   it('narrow() takes a caller\'s first trial when it lies more than tol/2 inside the bracket, and ignores it otherwise', () => {
-    const f = (x: number) => x - 3.3; // inside (> 0) above 3.3
+    const f = (x: number) => x - 3.3; // inside (> 0) above 3.3; the bracket [0, 10], tol 0.5
     const trace = (first: number | undefined) => {
       const xs: number[] = [];
       const sample = (x: number): Sample<null> => { xs.push(x); return { x, y: f(x), point: null }; };
       const c = narrow(sample(0), sample(10), positive, sample, 0.5, 'regula-falsi', () => first);
       return { xs: xs.slice(2), c };
     };
-    const taken = trace(3.4);
-    expect(taken.xs[0]).toBe(3.4);
-    expect(taken.c.inside.x).toBeGreaterThanOrEqual(3.3);
-    expect(taken.c.outside.x).toBeLessThan(3.3);
-    expect(taken.c.inside.x - taken.c.outside.x).toBeLessThanOrEqual(0.5);
-    // 9.9 is within tol/2 of the end 10, and undefined is none: both narrow as without a first trial
     const none = trace(undefined);
+    // taken: either side of the edge, and just beyond tol/2 from either end (0.5 and 9.6 with tol/2 = 0.25)
+    for (const first of [3.4, 3.0, 0.5, 9.6]) {
+      const { xs, c } = trace(first);
+      expect(xs[0]).toBe(first);
+      // f(3.3) = 0 is outside (f > 0 is inside): a secant of the line may land on it exactly
+      expect(c.inside.x).toBeGreaterThan(3.3);
+      expect(c.outside.x).toBeLessThanOrEqual(3.3);
+      expect(c.inside.x - c.outside.x).toBeLessThanOrEqual(0.5);
+    }
+    // ignored: within tol/2 of an end, outside the bracket, or none; the narrowing is then the method's own
     expect(none.xs[0]).not.toBe(3.4);
-    expect(trace(9.9).xs).toEqual(none.xs);
-    expect(trace(-1).xs).toEqual(none.xs);
+    for (const first of [0.1, 9.9, -1, 11]) expect(trace(first).xs).toEqual(none.xs);
   });
 
   it('narrow() refuses two ends on the same side', () => {
