@@ -3,10 +3,10 @@
  * Method: a coarse scan of evenly spaced values (both ends included), then the bracket where the target changes from
  * unmet to met is narrowed until it is narrower than the tolerance (bracket.ts narrow): by regula falsi with Anderson
  * and Björck's scaling on how far the reading is from the target, when both of its ends have a numeric reading, and
- * by bisection otherwise (a target in words, a verdict missing at an end). The answer is the bracket's met end, so it meets the target by construction. Either method assumes
- * the response is monotonic inside that bracket: when the scan shows the target met on more than one stretch, the
- * result says the response is not monotonic and lists every stretch seen, so the user knows the answer is the edge of
- * the first (or last) one. Measured on eight seeks of the examples: the four narrowed by slope took 12, 14, 13 and 11
+ * by bisection otherwise (a target in words, a verdict missing at an end). The answer is the bracket's met end, so it
+ * meets the target by construction. Either method assumes the response is monotonic inside that bracket: when the
+ * scan shows the target met on more than one stretch, the result says the response is not monotonic and lists every
+ * stretch seen, so the user knows the answer is the edge of the first (or last) one. Measured on eight seeks of the examples: the four narrowed by slope took 12, 14, 13 and 11
  * runs where halving took 16 each (README's margin_K>=100 on the plate temperature: 12, its bracket 0.16 K where
  * halving left 0.31 K); the other four halve or find no met value, as before: 100 runs in all instead of 114.
  * A target met nowhere in the scan is reported as not met, with the value that came closest.
@@ -105,7 +105,8 @@ export function seek(probeAt: (value: number) => Probe, opts: SeekOptions): Seek
 /**
  * The response regula falsi follows: how far past the target a probe is (−shortfall), with its side always the side
  * `met` gives: a met probe reads ≥ 0, one not met < 0 (a reading exactly at a strict target reads just short of it).
- * A missing verdict reads NaN, on the unmet side: it has no slope, and narrow() halves the bracket after it.
+ * A probe with no numeric reading reads 0 if met (a target in words) and NaN if not: a bracket with such an end is
+ * halved (bySlope), and narrow() draws no secant through a NaN met inside a bracket narrowed by slope.
  */
 function slopeY(p: Probe): number {
   if (p.shortfall === null) return p.met ? 0 : Number.NaN;

@@ -17,7 +17,7 @@
  * Measured on the eight searches of the examples (the demo also on an 800 °C plate): 159 solves where bisection of
  * the molten edge took 191 (the demo 23 → 19); on the demo's plate at 650–900 °C, 143 where it took 162. Reach by
  * regula falsi without the first trial took 188 on the eight (the response is flat at −1 for holds that melt
- * nothing), and with a power knob it took 33 solves where bisection takes 27 on each plate, so that edge is halved.
+ * nothing), and with a power knob it took 33–34 solves per search where bisection takes 27–28, so that edge is halved.
  */
 import type { Problem } from '../physics/problem.ts';
 import type { WindowStatus } from '../observe/verdict.ts';
