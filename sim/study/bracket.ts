@@ -48,10 +48,11 @@ export function scanValues(lo: number, hi: number, count: number, extra: readonl
 export type NarrowMethod = 'regula-falsi' | 'bisection';
 
 /**
- * Where a caller knows a better first trial than the method's own (window.ts: the hold at which the molten end of a
- * bracket became molten): x, or undefined for none. Taken only more than tol/2 inside the bracket.
+ * Where a caller knows a better first trial than the method's own (window.ts: the hold at which the bracket's end in
+ * the set, molten, became molten), given the bracket's end inside the set and its end outside: x, or undefined for
+ * none. Taken only more than tol/2 inside the bracket.
  */
-export type FirstTrial<P> = (a: Sample<P>, b: Sample<P>) => number | undefined;
+export type FirstTrial<P> = (inside: Sample<P>, outside: Sample<P>) => number | undefined;
 
 /**
  * Narrows one bracket (a and b on opposite sides of the set's edge, a.x < b.x) until the ends are ≤ tol apart.
@@ -63,7 +64,7 @@ export function narrow<P>(a0: Sample<P>, b0: Sample<P>, inside: (y: number) => b
   let b = b0;
   const aInside = inside(a.y);
   if (aInside === inside(b.y)) throw new RangeError('narrow(): the two ends are on the same side');
-  const x0 = firstTrial?.(a, b);
+  const x0 = firstTrial?.(aInside ? a : b, aInside ? b : a);
   if (x0 !== undefined && x0 > a.x + tol / 2 && x0 < b.x - tol / 2) {
     const s = sample(x0);
     if (inside(s.y) === aInside) a = s;

@@ -109,7 +109,7 @@ function missingWindow(p: WindowPoint): WindowStatus {
  * lies inside the bracket (it melted while still heated). Every hold from that time on heats the stack the same way up
  * to it, so it is molten too, and the edge lies a little below it (heat already in the stack finishes the melt).
  */
-const heldUntilMolten: FirstTrial<WindowPoint> = (a, b) => (a.y >= 0 ? a : b).point.molten_at_s ?? undefined;
+const heldUntilMolten: FirstTrial<WindowPoint> = (molten) => molten.point.molten_at_s ?? undefined;
 
 export function searchWindow(problem: Problem, options: WindowOptions = {}): WindowResult {
   const knob = options.vary === 'power' ? powerKnob(problem) : holdKnob(problem);
