@@ -20,7 +20,7 @@ import { createPlateNode, plateHeatIn } from '../physics/heater.ts';
 import type { EnthalpyCurve } from '../physics/material.ts';
 import { curveSlopes, temperaturesOf } from '../physics/material.ts';
 import { evalTable, type Table } from '../physics/table.ts';
-import { clampedIntegral, clampedValue, conductionFromK, conductionToK, meltMean, splitsConductivity, tableSlopes } from './kirchhoff.ts';
+import { clampedIntegral, conductionFromK, conductionToK, meltMean, splitsConductivity, tableSlopes } from './kirchhoff.ts';
 import type { Grid } from './mesh.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 import type { CellHeatTerm } from '../physics/heat-terms.ts';
@@ -112,6 +112,14 @@ export interface Workspace {
   readonly kRegion: Uint8Array;
   readonly kFloor: Float64Array;
   readonly kCeiling: Float64Array;
+  /**
+   * The clamped table's value below kFloor and above kCeiling, evalTable(kTable, kFloor) and evalTable(kTable,
+   * kCeiling): what a reading below or above the clamp (kirchhoff.ts clampedValue) gives, set with the clamp by the
+   * classification. Read from here, not recomputed: clampedValue() takes doubles, and a call the JIT leaves out of line
+   * boxes each one (a third of the demo's cells read a clamped end in every Newton sweep).
+   */
+  readonly kFloorValue: Float64Array;
+  readonly kCeilingValue: Float64Array;
   readonly kValue: Float64Array;
   readonly kPiece: Int32Array;
   /**
@@ -126,6 +134,9 @@ export interface Workspace {
   readonly kTableId: Int32Array;
   readonly solidTableK: Float64Array;
   readonly liquidTableK: Float64Array;
+  /** Per cell, fixed for the run: its k table's value at solidTableK and at liquidTableK (0 without a melt). */
+  readonly solidCeilingValue: Float64Array;
+  readonly liquidFloorValue: Float64Array;
   readonly meltFromK: Float64Array;
   readonly meltToK: Float64Array;
   /** The half-cell readings' scratch: [∂k̄/∂T_own, ∂k̄/∂T_nb, k̄, a node's clamped k] (meanOf, meltHalf). */
@@ -162,6 +173,7 @@ export function createWorkspace(grid: Grid, bottomContext: FaceContext, topConte
     scratch2: new Float64Array(2),
     kSplits: Uint8Array.from(grid.materials, (mat) => (splitsConductivity(mat) ? 1 : 0)),
     kRegion: new Uint8Array(n), kFloor: new Float64Array(n), kCeiling: new Float64Array(n), kValue: new Float64Array(n),
+    kFloorValue: new Float64Array(n), kCeilingValue: new Float64Array(n),
     kPiece: new Int32Array(n),
     kOut: new Float64Array(4),
     ...cellConstants(grid),
@@ -177,6 +189,8 @@ function cellConstants(grid: Grid) {
   const kTableId = new Int32Array(n);
   const solidTableK = new Float64Array(n);
   const liquidTableK = new Float64Array(n);
+  const solidCeilingValue = new Float64Array(n);
+  const liquidFloorValue = new Float64Array(n);
   const meltFromK = new Float64Array(n).fill(Infinity);
   const meltToK = new Float64Array(n).fill(-Infinity);
   for (let i = 0; i < n; i++) {
@@ -193,10 +207,12 @@ function cellConstants(grid: Grid) {
     if (melt === undefined) continue;
     solidTableK[i] = melt.solidTableK;
     liquidTableK[i] = melt.liquidTableK;
+    solidCeilingValue[i] = evalTable(mat.conductivity, melt.solidTableK);
+    liquidFloorValue[i] = evalTable(mat.conductivity, melt.liquidTableK);
     meltFromK[i] = conductionFromK(melt);
     meltToK[i] = conductionToK(melt);
   }
-  return { kTable, kSlopes, kTableId, solidTableK, liquidTableK, meltFromK, meltToK };
+  return { kTable, kSlopes, kTableId, solidTableK, liquidTableK, solidCeilingValue, liquidFloorValue, meltFromK, meltToK };
 }
 
 /**
@@ -206,7 +222,8 @@ function cellConstants(grid: Grid) {
  * rather than once per cell (the same arithmetic per cell, so the same bits).
  */
 function classifyConductivity(ws: Workspace): void {
-  const { grid, T, kSplits, kRegion, kFloor, kCeiling, kValue, kPiece, kTable, meltFromK, meltToK, solidTableK, liquidTableK, kOut } = ws;
+  const { grid, T, kSplits, kRegion, kFloor, kCeiling, kFloorValue, kCeilingValue, kValue, kPiece, kTable, meltFromK, meltToK,
+    solidTableK, liquidTableK, solidCeilingValue, liquidFloorValue } = ws;
   const { layerStart, layerEnd } = grid;
   for (let l = 0; l < layerStart.length; l++) {
     const first = layerStart[l]!;
@@ -226,15 +243,21 @@ function classifyConductivity(ws: Workspace): void {
     const toK = meltToK[first]!;
     const solidK = solidTableK[first]!;
     const liquidK = liquidTableK[first]!;
+    const yFirst = y[0]!;
+    const yLast = y[last]!;
+    const solidTop = solidCeilingValue[first]!;
+    const liquidBottom = liquidFloorValue[first]!;
     const xFirst = xs[0]!;
     const xLast = xs[last]!;
     for (let i = first; i < end; i++) {
       const t = T[i + 1]!;
       let lo = -Infinity;
       let hi = Infinity;
+      let loValue = yFirst;
+      let hiValue = yLast;
       if (splits) {
-        if (t < fromK) hi = solidK;
-        else if (t > toK) lo = liquidK;
+        if (t < fromK) { hi = solidK; hiValue = solidTop; }
+        else if (t > toK) { lo = liquidK; loValue = liquidBottom; }
         else {
           kRegion[i] = K_MELT;
           continue;
@@ -243,6 +266,8 @@ function classifyConductivity(ws: Workspace): void {
       kRegion[i] = K_TABLE;
       kFloor[i] = lo;
       kCeiling[i] = hi;
+      kFloorValue[i] = loValue;
+      kCeilingValue[i] = hiValue;
       // pieceAt() and valueAt() written out here, the loop's hot path (calls the JIT leaves out of line cost more than
       // their bodies)
       let piece: number;
@@ -255,10 +280,9 @@ function classifyConductivity(ws: Workspace): void {
         while (piece + 1 < last && xs[piece + 1]! <= t) piece++;
       }
       kPiece[i] = piece;
-      if (piece < 0 || piece >= last) {
-        valueAt(ws, i, i + 1, piece);
-        kValue[i] = kOut[3]!;
-      } else {
+      if (piece < 0) kValue[i] = loValue;
+      else if (piece >= last) kValue[i] = hiValue;
+      else {
         const x0 = xs[piece]!;
         const y0 = y[piece]!;
         kValue[i] = y0 + ((y[piece + 1]! - y0) * (t - x0)) / (xs[piece + 1]! - x0);
@@ -297,7 +321,8 @@ function valueAt(ws: Workspace, i: number, node: number, piece: number): void {
   const table = ws.kTable[i]!;
   const xs = table.tK;
   const t = ws.T[node]!;
-  if (piece < 0 || piece >= xs.length - 1) { ws.kOut[3] = clampedValue(table, ws.kFloor[i]!, ws.kCeiling[i]!, t); return; }
+  if (piece < 0) { ws.kOut[3] = ws.kFloorValue[i]!; return; }
+  if (piece >= xs.length - 1) { ws.kOut[3] = ws.kCeilingValue[i]!; return; }
   const y = table.y;
   const x0 = xs[piece]!;
   const y0 = y[piece]!;

@@ -58,9 +58,19 @@ const MELTING_NONE = 0;
 const MELTING_SEPARATOR = 1;
 const MELTING_OTHER = 2;
 
+/*
+ * errorNorm and the helpers below evaluate every comparison of a test before combining them, not `a || b` with b
+ * skipped: a comparison that had never run when the JIT optimised the code has no type feedback, and reaching it later
+ * deoptimised errorNorm, over and over (up to 5862 times in one run of the demo at 1600 cells and ×0.01 tolerances,
+ * which then took 6.9–11.9 s from one process to the next, the unoptimised code's boxed numbers with it).
+ */
+
 /** Whether a value going from a to b over a step crosses `at` or comes within `band` of it at either end. */
 function near(a: number, b: number, at: number, band: number): boolean {
-  return (a - at) * (b - at) <= 0 || Math.abs(a - at) < band || Math.abs(b - at) < band;
+  const crosses = (a - at) * (b - at) <= 0;
+  const startNear = Math.abs(a - at) < band;
+  const endNear = Math.abs(b - at) < band;
+  return crosses || startNear || endNear;
 }
 
 export class LineSystem implements StageSystem {
@@ -87,6 +97,13 @@ export class LineSystem implements StageSystem {
   /** Per layer: its molten thickness Σ Δx·f at the start and at the end of the step being measured, m. */
   private readonly moltenStart: Float64Array;
   private readonly moltenEnd: Float64Array;
+  /**
+   * Per layer, 1 for a separator (ErrorScale.separator), read into a typed array once: errorNorm reads it only on a
+   * step where a layer melts, and an optional array read there went without type feedback, so the JIT's code for
+   * errorNorm deoptimised on it again and again (about a thousand times on the demo at 1600 cells, with the boxed
+   * numbers of the unoptimised code six times as many young-generation collections).
+   */
+  private readonly separatorLayer: Uint8Array;
 
   constructor(readonly ws: Workspace, readonly scale: ErrorScale, private readonly beforeStage: BeforeStage,
     cond: StepConditions) {
@@ -107,6 +124,7 @@ export class LineSystem implements StageSystem {
     this.layerWidth = new Float64Array(layers);
     this.moltenStart = new Float64Array(layers);
     this.moltenEnd = new Float64Array(layers);
+    this.separatorLayer = Uint8Array.from({ length: layers }, (_, l) => (scale.separator?.[l] ? 1 : 0));
     for (let l = 0; l < layers; l++) {
       let thick = 0;
       for (let i = grid.layerStart[l]!; i < grid.layerEnd[l]!; i++) thick += grid.dx[i]!;
@@ -334,9 +352,14 @@ export class LineSystem implements StageSystem {
     // own rule
     const width = this.layerWidth;
     for (let l = 0; l < front.length; l++) {
-      const partial = (molten0[l]! > 0 && molten0[l]! < width[l]!) || (molten1[l]! > 0 && molten1[l]! < width[l]!);
+      const w = width[l]!;
+      const m0 = molten0[l]!;
+      const m1 = molten1[l]!;
+      const partial0 = m0 > 0 && m0 < w;
+      const partial1 = m1 > 0 && m1 < w;
+      const partial = partial0 || partial1;
       if (melting[l] === MELTING_NONE && !partial) continue;
-      melting[l] = scale.separator?.[l] ? MELTING_SEPARATOR : MELTING_OTHER;
+      melting[l] = this.separatorLayer[l] === 1 ? MELTING_SEPARATOR : MELTING_OTHER;
     }
     // the temperature part: a melting separator by its width-weighted RMS, any other melting layer by the larger of
     // that and its hottest cell's, every layer else by its largest cell (above)
@@ -346,7 +369,8 @@ export class LineSystem implements StageSystem {
       if (!(e <= worst)) worst = e;
     }
     for (let l = 0; l < front.length; l++) {
-      if (front[l] === 0 || !this.nearEvent(l)) continue;
+      const held = this.nearEvent(l);
+      if (front[l] === 0 || !held) continue;
       const e = front[l]! / this.levelZeroWidth[l]!;
       if (!(e <= worst)) worst = e;
     }
@@ -362,7 +386,10 @@ export class LineSystem implements StageSystem {
     const width = this.layerWidth[l]!;
     const a = this.moltenStart[l]!;
     const b = this.moltenEnd[l]!;
-    return near(a, b, 0, band) || near(a, b, width / 2, band) || near(a, b, width, band);
+    const none = near(a, b, 0, band);
+    const half = near(a, b, width / 2, band);
+    const all = near(a, b, width, band);
+    return none || half || all;
   }
 
   /** The evaluated state starts the next step: its temperatures for the secant, ρc_p at them for the scales. */

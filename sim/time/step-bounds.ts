@@ -13,14 +13,20 @@
 import type { StepConditions } from '../grid/discretization.ts';
 import type { FaceCondition } from '../physics/problem.ts';
 
+/** Widens [lohi[0], lohi[1]] to hold tK (by min and max: no branch whose first run could come after optimisation). */
+function widen(lohi: Float64Array, tK: number): void {
+  lohi[0] = Math.min(lohi[0]!, tK);
+  lohi[1] = Math.max(lohi[1]!, tK);
+}
+
 /** The range of temperatures a face condition exchanges heat with, widened into [lohi[0], lohi[1]]; false if it puts heat in. */
 function faceRange(c: FaceCondition, lohi: Float64Array): boolean {
-  const add = (tK: number) => { if (tK < lohi[0]!) lohi[0] = tK; if (tK > lohi[1]!) lohi[1] = tK; };
-  if (c.kind === 'fixed') { add(c.tK); return true; }
-  if (c.kind !== 'terms' || c.fluxWPerM2 !== 0) return false;
-  add(c.fluidK);
-  add(c.surroundingsK);
-  if (c.plate) add(c.plate.tK);
+  if (c.kind === 'fixed') { widen(lohi, c.tK); return true; }
+  if (c.kind !== 'terms') return false;
+  if (c.fluxWPerM2 !== 0) return false;
+  widen(lohi, c.fluidK);
+  widen(lohi, c.surroundingsK);
+  if (c.plate) widen(lohi, c.plate.tK);
   return true;
 }
 
@@ -32,14 +38,18 @@ function faceRange(c: FaceCondition, lohi: Float64Array): boolean {
 export function stepBounds(T0: Float64Array, cond: StepConditions, hasCellTerms: boolean, lohi: Float64Array): boolean {
   if (hasCellTerms) return false;
   for (let i = 0; i < cond.source.length; i++) if (cond.source[i] !== 0) return false;
-  lohi[0] = Infinity;
-  lohi[1] = -Infinity;
+  let lo = Infinity;
+  let hi = -Infinity;
   for (let j = 0; j < T0.length; j++) {
     const t = T0[j]!;
-    if (t < lohi[0]!) lohi[0] = t;
-    if (t > lohi[1]!) lohi[1] = t;
+    lo = Math.min(lo, t);
+    hi = Math.max(hi, t);
   }
-  return faceRange(cond.bottom, lohi) && faceRange(cond.top, lohi);
+  lohi[0] = lo;
+  lohi[1] = hi;
+  const bottom = faceRange(cond.bottom, lohi);
+  const top = faceRange(cond.top, lohi);
+  return bottom && top;
 }
 
 /** Whether the temperatures T leave [lohi[0] − slack, lohi[1] + slack]. */
