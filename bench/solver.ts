@@ -61,8 +61,9 @@ function demoProblem(total: number, tolScale: number, rampK: number): Problem {
 
 /** One timed run (the figures benchProblem gives, from a single run without warm-up). */
 /**
- * The heavy rows and the accuracy table time runs of up to a minute on purpose: they lift the run-time ceiling
- * (stepGuardDefaults.maxCellSweeps, about 15 s), which would stop the ×0.01 row at 1600 cells at t = 47 s of 3600 s.
+ * The heavy rows and the accuracy table time long runs on purpose: they lift the run-time ceiling
+ * (stepGuardDefaults.maxCellSweeps, 1e8 cell-sweeps, about 10 s), so that no row is cut short on a slower machine (the
+ * ×0.01 row at 1600 cells takes 7.7e7, as written, on 2026-12-03; 2.3e8 when the ceiling was 4e7 and stopped it).
  */
 const LONG = { maxCellSweeps: Infinity } as const;
 

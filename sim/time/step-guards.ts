@@ -39,12 +39,14 @@ export const stepGuardDefaults = {
   maxCellSteps: 5e7,
   /**
    * The run-time ceiling, cells × Newton sweeps (every sweep of every trial: accepted, rejected, or locating a state
-   * event): a sweep of one cell (evaluate, assemble, one tridiagonal solve) costs 0.2–0.4 µs on one core of this
-   * 2-core machine (measured on the seed 12 fuzz timeouts, DEVELOPERS.md "Robustness"), so a run at the ceiling ends
-   * within about 8–16 s. Per simulated second: a run of n cells over D s may average 4e7/(n·D) cell-sweeps per second
-   * of simulated time. A run needing more ends with a message naming the ceiling and what to change.
+   * event). Per simulated second: a run of n cells over D s may average 1e8/(n·D) cell-sweeps per second of simulated
+   * time. A run needing more ends with a message naming the ceiling and what to change. It is set in seconds: a sweep
+   * of one cell (evaluate, assemble, one tridiagonal solve) cost 0.34–0.47 µs on the seed 12 fuzz timeouts (2 cores
+   * shared, load 3–4.6), which set 4e7 (about 15 s); since the kernels stopped deoptimising in a loop (2026-12-03) it
+   * costs 0.08–0.13 µs, and seed 29's 28 stops at 4e7, replayed at 1e8 two at a time on the 2 cores, took 3.1–10.8 s
+   * (24 finished, 2 stopped for a physical reason, 2 reached 1e8). DEVELOPERS.md, "Bounded run time".
    */
-  maxCellSweeps: 4e7,
+  maxCellSweeps: 1e8,
   /**
    * Fewest Newton sweeps a TR-BDF2 step can take (one per stage): what turns a step count that max_step_s forces into
    * sweeps when the ceiling is checked at validation (scenario-limits.ts).
@@ -124,7 +126,7 @@ export function budgetMessage(cells: number, trials: number, sweeps: number, tS:
   maxCellSweeps: number = stepGuardDefaults.maxCellSweeps): string {
   const g = stepGuardDefaults;
   const sweepsBind = cells * sweeps >= maxCellSweeps;
-  const whose = maxCellSweeps === g.maxCellSweeps ? 'stepGuardDefaults.maxCellSweeps, about 15 s' : 'set by the caller';
+  const whose = maxCellSweeps === g.maxCellSweeps ? 'stepGuardDefaults.maxCellSweeps, about 10 s' : 'set by the caller';
   const spent = sweepsBind
     ? `${cells} cells × ${sweeps} Newton sweeps; the limit is ${maxCellSweeps.toExponential(0)} cell-sweeps (${whose})`
     : `${cells} cells × ${trials} steps tried; the limit is ${g.maxCellSteps.toExponential(0)} cell-steps (stepGuardDefaults.maxCellSteps)`;

@@ -64,7 +64,7 @@ function holds(file: ScenarioFile, accuracyS: number | undefined, what: string):
   const coarse = separatorTimes(file, accuracyS);
   const asked = coarse.plan.eventAccuracyS;
   // two levels beyond; one where two pass the solver's run-time ceiling (insulated-pellet-stack at 1 s stops at cells
-  // ×4 of 144: ×16 is 2304 cells, measured past the 4e7 cell-sweeps ceiling at t = 89 s of 5400 s)
+  // ×4 of 144: ×16 is 2304 cells, measured past the ceiling as it stood then, 4e7 cell-sweeps, at t = 89 s of 5400 s)
   let levels = 2;
   let fine = referenceTimes(coarse.parsed, coarse.plan, levels);
   if (fine === undefined) fine = referenceTimes(coarse.parsed, coarse.plan, --levels);

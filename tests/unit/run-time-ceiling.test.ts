@@ -97,8 +97,8 @@ describe('the ceiling mid-run', () => {
   });
 
   it('budgetMessage() names the time reached, the work spent, the limit and what to change', () => {
-    expect(budgetMessage(2000, 4000, 20_000, 8.75, 78)).toBe('the run reached its work budget at t = 8.75 of 78 s: 2000 cells × 20000 Newton ' +
-      'sweeps; the limit is 4e+7 cell-sweeps (stepGuardDefaults.maxCellSweeps, about 15 s). Use fewer cells, loosen numerics.tolerance_K ' +
+    expect(budgetMessage(2000, 4000, 50_000, 8.75, 78)).toBe('the run reached its work budget at t = 8.75 of 78 s: 2000 cells × 50000 Newton ' +
+      'sweeps; the limit is 1e+8 cell-sweeps (stepGuardDefaults.maxCellSweeps, about 10 s). Use fewer cells, loosen numerics.tolerance_K ' +
       'or numerics.liquid_fraction_tolerance, or shorten duration_s');
     expect(budgetMessage(10, 5e6, 1e6, 1e6, 3e6)).toContain('10 cells × 5000000 steps tried; the limit is 5e+7 cell-steps (stepGuardDefaults.maxCellSteps)');
   });

@@ -16,7 +16,7 @@ import { stepGuardDefaults as GUARD } from '../../../sim/time/step-guards.ts';
 
 /**
  * What one step in flight may add past the ceiling, as a share of it: the check is made before every trial, and a
- * trial of these runs takes 2–20 sweeps of ~2000 cells (≤ 4e4 cell-sweeps, 1e-3 of 4e7); 1 % leaves room for an event
+ * trial of these runs takes 2–20 sweeps of ~2000 cells (≤ 4e4 cell-sweeps, 4e-4 of 1e8); 1 % leaves room for an event
  * search's trials, and a run that ignored the ceiling would pass it by 100 % or more.
  */
 const IN_FLIGHT_SHARE = 0.01;
@@ -39,7 +39,7 @@ describe('fuzz timeouts end within the run-time ceiling', () => {
     expect(out.status).toMatch(/^(ok|failed)$/);
     if (out.status === 'cancelled') return;
     if (out.status === 'failed') {
-      expect(out.message).toMatch(/^the run reached its work budget at t = .* the limit is 4e\+7 cell-sweeps \(stepGuardDefaults\.maxCellSweeps/);
+      expect(out.message).toMatch(/^the run reached its work budget at t = .* the limit is 1e\+8 cell-sweeps \(stepGuardDefaults\.maxCellSweeps/);
       // it stopped because of the ceiling, not before it
       expect(cells * out.stats.newtonIterations).toBeGreaterThanOrEqual(GUARD.maxCellSweeps);
     }
