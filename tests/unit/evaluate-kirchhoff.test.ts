@@ -101,6 +101,41 @@ describe('evaluate() against halfCellConductivity() per half cell', () => {
         }
       }), { numRuns: 300, seed: 20261202 });
   });
+
+  it('reads a cell held at its phase\'s table row to the bit: a solid between that row and the solidus, a liquid between the liquidus and its row', () => {
+    // the random states above seldom put two neighbours there. Salt rows at 400, 415, 445 K: the solid reads k up to
+    // 415 K (the last row at or below the 420 K solidus), the liquid from 445 K (the first at or above the 430 K
+    // liquidus), so cells at 416–419 K and 431–444 K read their table at its clamp, k(415) = 1.5 and k(445) = 0.5,
+    // neither the table's first nor its last value; the plain cell below (418 K) and the top face (443 K) lie in those
+    // gaps too, so the salt's half cells toward them read the clamp at the far end as well
+    const plain = material('plain', [[50, 20], [100, 30]], 900, undefined);
+    const salt = material('salt', [[100, 2], [15, 1.5], [30, 0.5]], 1200, { solidusK: 420, liquidusK: 430, latentJPerKg: 2e5 });
+    expect([salt.melt!.solidTableK, salt.melt!.liquidTableK]).toEqual([415, 445]);
+    const n = 6;
+    const materials = [plain, plain, salt, salt, salt, salt];
+    const dx = Float64Array.from({ length: n }, () => 1e-4);
+    const grid: Grid = {
+      n, dx, xc: new Float64Array(n), totalM: dx.reduce((a, b) => a + b, 0),
+      layerOf: Int32Array.of(0, 0, 1, 1, 1, 1), materials, contactAbove: new Float64Array(n),
+      layerStart: Int32Array.of(0, 2), layerEnd: Int32Array.of(2, 6),
+    };
+    const ws = createWorkspace(grid, { facing: 'down', lengthM: 0.01 }, { facing: 'up', lengthM: 0.01 });
+    const temps = [380, 418, 416, 419, 433, 441];
+    const U = new Float64Array(n + 2);
+    U[0] = 370;
+    U[n + 1] = 443;
+    for (let i = 0; i < n; i++) U[i + 1] = enthalpyAt(materials[i]!.enthalpy, temps[i]!);
+    const cond: StepConditions = { bottom: { kind: 'fixed', tK: 370 }, top: { kind: 'fixed', tK: 443 }, source: new Float64Array(n) };
+    evaluate(ws, U, cond);
+    const ref = reference(grid, ws.T, ws.tau);
+    expect(Array.from(ws.G)).toEqual(Array.from(ref.G));
+    expect(Array.from(ws.dRa)).toEqual(Array.from(ref.dRa));
+    expect(Array.from(ws.dRb)).toEqual(Array.from(ref.dRb));
+    // by hand: the two solid cells share k(415 K) = 1.5 W/(m·K), so the face between them conducts 1.5 / 1e-4 m
+    expect(ws.G[3]).toBeCloseTo(1.5 / 1e-4, 9);
+    // and the two liquid cells k(445 K) = 0.5
+    expect(ws.G[5]).toBeCloseTo(0.5 / 1e-4, 9);
+  });
 });
 
 describe('evaluate() slopes of the series resistances beside two-phase cells', () => {
