@@ -42,9 +42,10 @@ export const stepGuardDefaults = {
    * event). Per simulated second: a run of n cells over D s may average 1e8/(n·D) cell-sweeps per second of simulated
    * time. A run needing more ends with a message naming the ceiling and what to change. It is set in seconds: a sweep
    * of one cell (evaluate, assemble, one tridiagonal solve) cost 0.34–0.47 µs on the seed 12 fuzz timeouts (2 cores
-   * shared, load 3–4.6), which set 4e7 (about 15 s); since the kernels stopped deoptimising in a loop (2026-12-03) it
-   * costs 0.08–0.13 µs, and seed 29's 28 stops at 4e7, replayed at 1e8 two at a time on the 2 cores, took 3.1–10.8 s
-   * (24 finished, 2 stopped for a physical reason, 2 reached 1e8). DEVELOPERS.md, "Bounded run time".
+   * shared, load 3–4.6), which set 4e7 (about 15 s). Measured again on 2026-12-03 without that load: 0.08–0.13 µs
+   * (a 1038-cell stop at 4e7 took 3.1–4.2 s alone, on the code before and after that day's kernel fixes alike), and
+   * seed 29's 28 stops at 4e7, replayed at 1e8 two at a time on the 2 cores, took 3.1–10.8 s (24 finished, 2 stopped
+   * for a physical reason, 2 reached 1e8). DEVELOPERS.md, "Bounded run time".
    */
   maxCellSweeps: 1e8,
   /**
