@@ -59,14 +59,15 @@ function demoProblem(total: number, tolScale: number, rampK: number): Problem {
   return { ...p, numerics: { ...p.numerics, accuracy: { ...p.numerics.accuracy!, gridRefine: total / SCALING_BASE, meltRampK: rampK } } };
 }
 
-/** One timed run (the figures benchProblem gives, from a single run without warm-up). */
 /**
  * The heavy rows and the accuracy table time long runs on purpose: they lift the run-time ceiling
- * (stepGuardDefaults.maxCellSweeps, 1e8 cell-sweeps, about 10 s), so that no row is cut short on a slower machine (the
- * ×0.01 row at 1600 cells takes 7.7e7, as written, on 2026-12-03; 2.3e8 when the ceiling was 4e7 and stopped it).
+ * (stepGuardDefaults.maxCellSweeps, 1e8 cell-sweeps, about 10 s), so that no row is cut short. The ×0.01 row at 1600
+ * cells, as written, takes 7.7e7 cell-sweeps on 2026-12-03, close to the ceiling (earlier code took 2.3e8, and the
+ * ceiling of 4e7 then stopped it at t = 47 s of 3600 s).
  */
 const LONG = { maxCellSweeps: Infinity } as const;
 
+/** One timed run (the figures benchProblem gives, from a single run without warm-up). */
 function onceTimed(problem: Problem): BenchFigures {
   const start = performance.now();
   const out = runProblem(problem, LONG);

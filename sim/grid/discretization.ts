@@ -314,15 +314,16 @@ function pieceAt(ws: Workspace, i: number, node: number): number {
 }
 
 /**
- * Cell i's clamped k at node `node`'s temperature, its piece known (kirchhoff.ts clampedValue: on an inner piece with
- * evalTable()'s arithmetic on the row pair its search finds, so the same bits). Overwrites ws.kOut[3].
+ * Cell i's clamped k at node `node`'s temperature, its piece known (kirchhoff.ts clampedValue: below or above the clamp
+ * the value stored with it, ws.kFloorValue or ws.kCeilingValue; on an inner piece with evalTable()'s arithmetic on the
+ * row pair its search finds, so the same bits). Overwrites ws.kOut[3].
  */
 function valueAt(ws: Workspace, i: number, node: number, piece: number): void {
   const table = ws.kTable[i]!;
   const xs = table.tK;
-  const t = ws.T[node]!;
   if (piece < 0) { ws.kOut[3] = ws.kFloorValue[i]!; return; }
   if (piece >= xs.length - 1) { ws.kOut[3] = ws.kCeilingValue[i]!; return; }
+  const t = ws.T[node]!;
   const y = table.y;
   const x0 = xs[piece]!;
   const y0 = y[piece]!;

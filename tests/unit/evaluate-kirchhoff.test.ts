@@ -131,9 +131,10 @@ describe('evaluate() against halfCellConductivity() per half cell', () => {
     expect(Array.from(ws.G)).toEqual(Array.from(ref.G));
     expect(Array.from(ws.dRa)).toEqual(Array.from(ref.dRa));
     expect(Array.from(ws.dRb)).toEqual(Array.from(ref.dRb));
-    // by hand: the two solid cells share k(415 K) = 1.5 W/(m·K), so the face between them conducts 1.5 / 1e-4 m
+    // by hand: the two solid cells share k(415 K) = 1.5 W/(m·K), so the face between their centres, 1e-4 m apart,
+    // conducts G = 1.5 / 1e-4 = 15 000 W/(m²·K)
     expect(ws.G[3]).toBeCloseTo(1.5 / 1e-4, 9);
-    // and the two liquid cells k(445 K) = 0.5
+    // and the two liquid cells k(445 K) = 0.5 W/(m·K): 5000 W/(m²·K)
     expect(ws.G[5]).toBeCloseTo(0.5 / 1e-4, 9);
   });
 });
