@@ -10,6 +10,7 @@
  *   study/     window search, sweeps, goal seeking, ambient study
  */
 export * from './run.ts';
+export type { StopReason } from './time/drive.ts';
 export * from './scenario/scenario.ts';
 export * from './scenario/field-errors.ts';
 export * from './scenario/json-text.ts';

@@ -5,6 +5,7 @@
  * `detail: 'summary'` records only what the verdicts read (no position–time map, no per-step series): for window
  * searches and sweeps, which run many times and read only the summary.
  */
+import type { StopReason } from './time/drive.ts';
 import type { EvolveEnd, EvolveOptions, EvolveStats } from './time/evolve.ts';
 import { evolve } from './time/evolve.ts';
 import { createStepObserver } from './time/observe-step.ts';
@@ -31,8 +32,20 @@ export interface RunOptions extends EvolveOptions {
 
 export type RunOutcome =
   | { readonly status: 'ok'; readonly problem: Problem; readonly grid: Grid; readonly record: RunRecord; readonly summary: Summary; readonly stats: EvolveStats }
-  | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: EvolveStats }
+  | { readonly status: 'failed'; readonly reason: StopReason; readonly message: string; readonly tS: number; readonly stats: EvolveStats }
   | { readonly status: 'cancelled'; readonly tS: number };
+
+/**
+ * The one sentence every front end (the CLI, a sweep's rows, the studies, the browser view) gives for a run that
+ * stopped before its end, in the solver's words (which name the time, and what to change): a physical stop reads as the
+ * run stopping; the run-time ceiling's own words already say so ("the run reached its work budget at …"); a numerical
+ * stop reads as the solver failing: no physical cause was found, so it is a defect to report, not a property of the
+ * scenario.
+ */
+export function stopSentence(out: { readonly reason: StopReason; readonly message: string }): string {
+  if (out.reason === 'physical') return `the run stopped: ${out.message}`;
+  return out.reason === 'work-budget' ? out.message : `the solver failed: ${out.message}`;
+}
 
 /**
  * The problem as solved: with its accuracy plan's melt ramp applied to every melting layer (scenario/accuracy.ts;

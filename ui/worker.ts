@@ -3,10 +3,9 @@
  * result. The run is synchronous; the page cancels it by terminating this worker.
  */
 import { accuracyLine, parseScenario } from '../sim/index.ts';
-import { runProblem } from '../sim/index.ts';
+import { runProblem, stopSentence } from '../sim/index.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
 import { toWire } from './protocol.ts';
-import { formatNumber } from './format.ts';
 
 const defaults = {
   /** Often enough for a smooth progress bar, rarely enough not to flood the page. */
@@ -42,7 +41,7 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
       post({ type: 'done', job, record: wire, summary: outcome.summary, solveMs: performance.now() - started,
         accuracy: accuracyLine(outcome.problem.numerics.accuracy) }, transfer);
     } else if (outcome.status === 'failed') {
-      post({ type: 'failed', job, message: `the solver stopped at t = ${formatNumber(outcome.tS)} s: ${outcome.message}` });
+      post({ type: 'failed', job, message: stopSentence(outcome) });
     }
   } catch (e) {
     post({ type: 'failed', job, message: `internal error: ${(e as Error).message}` });

@@ -12,7 +12,7 @@ import { SolveFailure } from '../study/point.ts';
 import { searchWindow, windowDefaults, type WindowReport } from '../study/window.ts';
 import { windowWords } from '../study/words.ts';
 import { predictionNotCertification } from '../observe/wording.ts';
-import { InputError, readProblem } from './input.ts';
+import { InputError, readProblem, RunStopped } from './input.ts';
 
 interface WindowFlags { marginK: string; untilLiquid?: string; hold?: string; vary: string; json?: boolean; csv?: string }
 
@@ -101,7 +101,12 @@ export function registerWindow(cli: Command): void {
       try {
         result = searchWindow(problem, { vary: opts.vary, marginK, untilLiquid, ...(at !== undefined ? { at } : {}) });
       } catch (e) {
-        if (e instanceof SolveFailure) throw new Error(e.message);
+        if (e instanceof SolveFailure) {
+          // a run of the search that stopped for a physical reason or at the ceiling ends it the same way as `run`
+          const stop = e.stop;
+          if (stop && stop.reason !== 'numerical') throw new RunStopped(`${file}: ${e.message}`, stop.reason, stop.tS, stop.message);
+          throw new Error(e.message);
+        }
         throw e;
       }
       if (!result.ok) throw new InputError(`${file}: ${result.reason}`);

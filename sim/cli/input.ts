@@ -5,15 +5,34 @@
 import { readFileSync } from 'node:fs';
 import { formatFieldError } from '../scenario/field-errors.ts';
 import type { Problem } from '../physics/problem.ts';
-import { runProblem } from '../run.ts';
+import { runProblem, stopSentence } from '../run.ts';
 import { parseScenarioText } from '../scenario/scenario.ts';
 import type { ScenarioFile } from '../scenario/scenario-schema.ts';
 
 /** A caller error: printed as it is, exit code 2. */
 export class InputError extends Error {}
 
-/** 3: the run finished, but a stated expectation (`expect` block) or a `--require` condition failed. */
-export const EXIT = { ok: 0, internal: 1, invalid: 2, failedCheck: 3 } as const;
+/**
+ * 3: the run finished, but a stated expectation (`expect` block) or a `--require` condition failed. 4: a run stopped
+ * before its end, for a physical reason (heat drawn beyond what the stack holds) or at the run-time ceiling; the
+ * message says which and what to change. 1 stays for a failure of the program itself.
+ */
+export const EXIT = { ok: 0, internal: 1, invalid: 2, failedCheck: 3, stopped: 4 } as const;
+
+/**
+ * A run stopped before its end for a physical reason or at the run-time ceiling (run.ts stopSentence): not a failure
+ * of the program. Printed as it is, exit code EXIT.stopped (4).
+ */
+export class RunStopped extends Error {
+  constructor(message: string, readonly reason: 'physical' | 'work-budget', readonly tS: number, readonly detail: string) {
+    super(message);
+  }
+
+  /** What `run --json` writes on stdout instead of the result document: why and when the run stopped. */
+  document(): { stopped: { reason: string; t_s: number; message: string } } {
+    return { stopped: { reason: this.reason, t_s: this.tS, message: this.detail } };
+  }
+}
 
 export function readText(file: string): string {
   try {
@@ -40,9 +59,16 @@ export function readScenario(file: string): { readonly scenario: ScenarioFile; r
  */
 export class CheckFailed extends Error {}
 
-/** One full run; a solver failure or cancellation is an internal error (exit 1). */
-export function runOrFail(problem: Problem) {
+/**
+ * One full run of the scenario in `file`. A physical stop or the run-time ceiling throws RunStopped (exit 4); a
+ * numerical stop or a cancellation is an internal error (exit 1).
+ */
+export function runOrFail(problem: Problem, file: string) {
   const out = runProblem(problem);
-  if (out.status !== 'ok') throw new Error(out.status === 'failed' ? `the run failed at t = ${out.tS} s: ${out.message}` : 'the run was cancelled');
+  if (out.status === 'cancelled') throw new Error('the run was cancelled');
+  if (out.status === 'failed') {
+    if (out.reason === 'numerical') throw new Error(stopSentence(out));
+    throw new RunStopped(`${file}: ${stopSentence(out)}`, out.reason, out.tS, out.message);
+  }
   return out;
 }

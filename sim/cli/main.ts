@@ -1,6 +1,8 @@
 /**
  * The `freezeline` command. Exit codes: 0 success, 2 invalid input (each message names the field and the value),
- * 1 internal failure, 3 the run finished but a stated expectation (the scenario's `expect` block) or a `run --require` condition failed. `run --json` writes exactly the result document on stdout and nothing else.
+ * 1 internal failure, 3 the run finished but a stated expectation (the scenario's `expect` block) or a `run --require` condition failed,
+ * 4 the run stopped before its end for a physical reason or at the run-time ceiling (the message says which). `run --json` writes
+ * exactly the result document on stdout and nothing else; for a run that stopped, `{ "stopped": { reason, t_s, message } }`.
  */
 import { coefficientTable } from './coefficient-table.ts';
 import { writeFileSync } from 'node:fs';
@@ -8,7 +10,7 @@ import { Command, CommanderError } from 'commander';
 import { libraryFile, libraryNames } from '../scenario/library.ts';
 import { resultDocument } from '../observe/result.ts';
 import { benchProblem } from './bench-run.ts';
-import { CheckFailed, EXIT, InputError, readProblem, readScenario, runOrFail } from './input.ts';
+import { CheckFailed, EXIT, InputError, readProblem, readScenario, RunStopped, runOrFail } from './input.ts';
 import { countExpectations, evaluateExpectations, unmet } from '../scenario/expect.ts';
 import { htmlReport } from './report-html.ts';
 import { collectRequirement, parseRequirements, reportRequirements } from './require-check.ts';
@@ -39,7 +41,14 @@ function program(): Command {
       if (opts.csvAt !== 'series' && opts.csvAt !== 'output') throw new InputError(`--csv-at: must be "series" or "output", got ${JSON.stringify(opts.csvAt)}`);
       const { scenario, problem } = readScenario(file);
       const requirements = parseRequirements(opts.require, problem);
-      const out = runOrFail(problem);
+      let out;
+      try {
+        out = runOrFail(problem, file);
+      } catch (e) {
+        // a machine reading --json gets a document either way: why and when the run stopped
+        if (opts.json && e instanceof RunStopped) process.stdout.write(`${JSON.stringify(e.document())}\n`);
+        throw e;
+      }
       // the accuracy plan as run (an accuracy asked may be met by a rung below the plan: run.ts runProblem)
       const solvedAs = { ...problem, numerics: out.problem.numerics };
       const expectations = evaluateExpectations(scenario.expect, out.summary);
@@ -116,6 +125,7 @@ export function main(argv: readonly string[]): number {
     if (e instanceof CommanderError) return e.exitCode === 0 ? EXIT.ok : EXIT.invalid;
     if (e instanceof InputError) { process.stderr.write(`${e.message}\n`); return EXIT.invalid; }
     if (e instanceof CheckFailed) { process.stderr.write(`${e.message}\n`); return EXIT.failedCheck; }
+    if (e instanceof RunStopped) { process.stderr.write(`${e.message}\n`); return EXIT.stopped; }
     process.stderr.write(`freezeline: internal error: ${(e as Error).message}\n`);
     return EXIT.internal;
   }

@@ -3,7 +3,7 @@
  * Problem and its raw JSON (the paths address the file as written), the --jobs option, repeatable options, and
  * running an asynchronous command body so that its failures end with the same exit codes as the synchronous ones.
  */
-import { EXIT, InputError, readProblem, readText } from './input.ts';
+import { EXIT, InputError, readProblem, readText, RunStopped } from './input.ts';
 import type { Problem } from '../physics/problem.ts';
 import type { Outcome } from '../study/scenario-path.ts';
 import { defaultJobs } from './sweep-pool.ts';
@@ -46,6 +46,7 @@ export function finishAsync(work: Promise<number | void>): void {
     if (typeof code === 'number' && code !== EXIT.ok) process.exitCode = code;
   }, (e: unknown) => {
     if (e instanceof InputError) { process.stderr.write(`${e.message}\n`); process.exitCode = EXIT.invalid; return; }
+    if (e instanceof RunStopped) { process.stderr.write(`${e.message}\n`); process.exitCode = EXIT.stopped; return; }
     process.stderr.write(`freezeline: internal error: ${(e as Error).message}\n`);
     process.exitCode = EXIT.internal;
   });

@@ -17,7 +17,8 @@
  */
 import type { LimitKind } from '../physics/material.ts';
 import type { Problem } from '../physics/problem.ts';
-import { runProblem } from '../run.ts';
+import { runProblem, stopSentence } from '../run.ts';
+import type { StopReason } from '../time/drive.ts';
 import { firstCrossing, type Summary, type WindowStatus } from '../observe/verdict.ts';
 import type { SeparatorTrace } from '../observe/record-trace.ts';
 
@@ -54,7 +55,12 @@ export interface WindowPoint {
 export const keepsMargin = (p: Pick<WindowPoint, 'margin_K'>, requiredK: number): boolean => p.margin_K === null || p.margin_K > requiredK;
 
 /** A run that did not finish: the search cannot judge this value, so it stops and says where. */
-export class SolveFailure extends Error {}
+/** A run of a study that did not finish; `stop` is why and when it stopped (none for a cancelled run). */
+export class SolveFailure extends Error {
+  constructor(message: string, readonly stop?: { readonly reason: StopReason; readonly tS: number; readonly message: string }) {
+    super(message);
+  }
+}
 
 function bindingOf(summary: Summary): Binding | null {
   let best: Binding | null = null;
@@ -85,7 +91,7 @@ function meltReach(molten: boolean, trace: SeparatorTrace): number {
 export function evaluatePoint(problem: Problem, value: number, untilLiquid: number | null): WindowPoint {
   const out = runProblem(problem, { detail: untilLiquid === null ? 'summary' : 'full' });
   if (out.status !== 'ok') {
-    throw new SolveFailure(out.status === 'failed' ? `the run at ${value} failed at t = ${out.tS} s: ${out.message}` : `the run at ${value} was cancelled`);
+    throw out.status === 'failed' ? new SolveFailure(`at ${value}, ${stopSentence(out)}`, out) : new SolveFailure(`the run at ${value} was cancelled`);
   }
   const { summary, record } = out;
   const sep = record.separator;

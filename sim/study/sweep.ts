@@ -11,7 +11,7 @@
 import { formatFieldError } from '../scenario/field-errors.ts';
 import type { Problem } from '../physics/problem.ts';
 import { assertFinite } from '../observe/result.ts';
-import { runProblem } from '../run.ts';
+import { runProblem, stopSentence } from '../run.ts';
 import { parseScenario } from '../scenario/scenario.ts';
 import type { Summary } from '../observe/verdict.ts';
 import { parsePath, resolveLeaf, setAt, type Outcome, type Resolved } from './scenario-path.ts';
@@ -154,7 +154,7 @@ export function runSummary(problem: Problem): { summary: SweepRow['summary']; er
     assertFinite(summary, 'summary'); // JSON would print a NaN as null, a "never" it is not: refuse it (caught as a row error)
     return { summary, error: null };
   }
-  if (out.status === 'failed') return { summary: null, error: `the run failed at t = ${out.tS} s: ${out.message}` };
+  if (out.status === 'failed') return { summary: null, error: stopSentence(out) };
   return { summary: null, error: 'the run was cancelled' };
 }
 

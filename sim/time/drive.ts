@@ -27,10 +27,20 @@ export interface DriveStats {
   newtonIterations: number;
 }
 
+/**
+ * Why a time loop stopped before its end:
+ *   - 'physical': the scenario asks what no stack can give (heat drawn beyond what it holds: a temperature would fall
+ *     below absolute zero); the message names the face or source that draws it;
+ *   - 'work-budget': the run reached the run-time ceiling (or a caller's step budget); the message names the limit;
+ *   - 'numerical': the solver itself could not go on (it found no physical cause: a defect of ours, or a fixed step
+ *     too long for Newton in a convergence study).
+ */
+export type StopReason = 'physical' | 'work-budget' | 'numerical';
+
 /** How a time loop ended (this one, and evolve() with its larger stats). */
 export type DriveEnd<S extends DriveStats = DriveStats> =
   | { readonly status: 'ok'; readonly stats: S }
-  | { readonly status: 'failed'; readonly message: string; readonly tS: number; readonly stats: S };
+  | { readonly status: 'failed'; readonly reason: StopReason; readonly message: string; readonly tS: number; readonly stats: S };
 
 /**
  * Integrates sys from the state in buf.U0 at t = 0 to options.endS, landing on the end. After each accepted step
@@ -57,7 +67,7 @@ export function drive(sys: StageSystem, buf: StepBuffers, options: DriveOptions,
   const chain = noRejectedTrial();
   while (t < endS) {
     if (stats.steps + stats.rejected >= options.maxSteps) {
-      return { status: 'failed', message: `the step budget of ${options.maxSteps} trial steps ran out at t = ${t} s`, tS: t, stats };
+      return { status: 'failed', reason: 'work-budget', message: `the step budget of ${options.maxSteps} trial steps ran out at t = ${t} s`, tS: t, stats };
     }
     let step = Math.min(h, maxStepS);
     let landing = false;
@@ -66,7 +76,7 @@ export function drive(sys: StageSystem, buf: StepBuffers, options: DriveOptions,
     takeStep(sys, buf, step, options.newton, backwardEuler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
     if (outcome.status !== 'ok' || (adaptive && outcome.errorNorm > 1)) {
-      if (!adaptive) return { status: 'failed', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
+      if (!adaptive) return { status: 'failed', reason: 'numerical', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
       stats.rejected++;
       rejectedLast = true;
       h = retryStepS(step, outcome, d, chain);

@@ -28,7 +28,7 @@ import { beginPlateStage, createPlateControl } from './plates.ts';
 import type { FixedStepping } from './step-control.ts';
 import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
 import { leavesBounds, stepBounds } from './step-bounds.ts';
-import { belowAbsoluteZeroMessage, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
+import { belowAbsoluteZeroStop, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
   /**
@@ -224,7 +224,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     if (top) faceQ[1] = -Infinity;
     return {
       status: 'failed', tS, stats,
-      message: bottom || top || cold ? belowAbsoluteZeroMessage(problem, ws, cond, faceQ, tS) : `the face balance did not converge at t = ${tS} s`,
+      ...(bottom || top || cold ? belowAbsoluteZeroStop(problem, ws, cond, faceQ, tS) : { reason: 'numerical', message: `the face balance did not converge at t = ${tS} s` }),
     };
   };
   /**
@@ -261,7 +261,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     /** The time s into this step. */
     const timeInto = (s: number): number => (fine ? t + (lo + s) : t + s);
     if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations, ceiling)) {
-      return { status: 'failed', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling), tS: t, stats };
+      return { status: 'failed', reason: 'work-budget', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling), tS: t, stats };
     }
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
     // (a floored step stretched by rounding to land on a breakpoint is still at the floor)
@@ -276,13 +276,13 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {
       // an iterate below 0 K on a long step may still come back; on the smallest step it is the physics
       if ((atFloor || !adaptive) && coldestK(ws.T) < 0) {
-        return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q0, t), tS: t, stats };
+        return { status: 'failed', ...belowAbsoluteZeroStop(problem, ws, cond, buf.q0, t), tS: t, stats };
       }
       if (!adaptive) {
-        return { status: 'failed', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
+        return { status: 'failed', reason: 'numerical', message: `Newton did not converge with the fixed step ${step} s`, tS: t, stats };
       }
       if (atFloor) {
-        return { status: 'failed', message: `the solver could not converge at t = ${t} s even with its smallest step, ${step.toPrecision(2)} s (${outcome.status})`, tS: t, stats };
+        return { status: 'failed', reason: 'numerical', message: `the solver could not converge at t = ${t} s even with its smallest step, ${step.toPrecision(2)} s (${outcome.status})`, tS: t, stats };
       }
       stats.rejected++;
       rejectedLast = true;
@@ -342,7 +342,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       const before = coldestK(line.T0);
       const after = coldestK(ws.T);
       const at = before > 0 ? t + (step * before) / (before - after) : t;
-      return { status: 'failed', message: belowAbsoluteZeroMessage(problem, ws, cond, buf.q1, at), tS: at, stats };
+      return { status: 'failed', ...belowAbsoluteZeroStop(problem, ws, cond, buf.q1, at), tS: at, stats };
     }
     stats.steps++;
     plates.commit(step, euler ? eulerWeights : WEIGHTS, buf.qg, buf.q1, buf.Ug, buf.U1, plateSteps);

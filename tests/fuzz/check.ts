@@ -66,8 +66,10 @@ export function checkScenario(scenario: ScenarioFile): FuzzOutcome {
   if (out.status === 'cancelled') return { kind: 'violation', message: 'cancelled without being asked', ms, cells: 0, steps: 0 };
   if (out.status === 'failed') {
     const physical = PHYSICAL_STOPS.some((re) => re.test(out.message));
+    // the stop's reason, which the CLI's exit code and the view's words follow, agrees with its message
+    const agrees = physical === (out.reason === 'physical');
     // a stopped run returns no grid: its cells are counted on the plan's grid (a ladder may have stopped on a rung below)
-    return { kind: physical ? 'stopped' : 'violation', message: out.message, ms, cells: buildGrid(parsed.problem, parsed.problem.numerics.accuracy?.gridRefine ?? 1).n, steps: out.stats.steps };
+    return { kind: physical && agrees ? 'stopped' : 'violation', message: agrees ? out.message : `stop reason ${out.reason} for: ${out.message}`, ms, cells: buildGrid(parsed.problem, parsed.problem.numerics.accuracy?.gridRefine ?? 1).n, steps: out.stats.steps };
   }
   const { record, summary, grid, stats } = out;
   const base = { ms, cells: grid.n, steps: stats.steps };

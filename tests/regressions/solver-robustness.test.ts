@@ -10,7 +10,7 @@ import type { InlineMaterialFile, ScenarioFile } from '../../sim/scenario/scenar
 import { checkScenario } from '../fuzz/check.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { parseOk, runOk, scenario, toK } from '../support/scenarios.ts';
-import { runProblem } from '../../sim/run.ts';
+import { runProblem, stopSentence } from '../../sim/run.ts';
 
 const salt = (latent: number, solidus = 350, liquidus = 354): InlineMaterialFile =>
   ({ k_W_mK: 1, rho_kg_m3: 2000, cp_J_kgK: 1100, melt: { solidus_C: solidus, liquidus_C: liquidus, latent_J_kg: latent } });
@@ -103,6 +103,8 @@ describe('heat drawn beyond what the stack holds', () => {
     expect(out.status).toBe('failed');
     if (out.status !== 'failed') return;
     expect(out.message).toMatch(/^the heat drawn from the bottom face exceeds what the stack holds: its temperature would fall below absolute zero at t = /);
+    expect(out.reason).toBe('physical');
+    expect(stopSentence(out)).toBe(`the run stopped: ${out.message}`);
     const exact = (rho * c * L * (toK(t0C) - (q * L) / (3 * k))) / q;
     // the stop time is interpolated linearly inside one step, and the steps here are a few seconds: 1 %
     assertClose(out.tS, exact, { rel: 1e-2 }, 'time the bottom face reaches 0 K, s');
@@ -127,7 +129,9 @@ describe('the face named when the stack would fall below absolute zero', () => {
     // its temperature; the bottom face is held at −60 °C and can cool nothing below that
     const out = runProblem(parseOk(kept.scenario));
     expect(out.status).toBe('failed');
-    if (out.status === 'failed') expect(out.message).toMatch(/^the heat drawn from the top face exceeds what the stack holds/);
+    if (out.status !== 'failed') return;
+    expect(out.message).toMatch(/^the heat drawn from the top face exceeds what the stack holds/);
+    expect(out.reason).toBe('physical');
   });
 });
 

@@ -10,7 +10,7 @@ import { accuracyDefaults } from '../../sim/scenario/accuracy.ts';
 import { parseScenario, scenarioDefaults } from '../../sim/scenario/scenario.ts';
 import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario/scenario-limits.ts';
 import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
-import { runProblem } from '../../sim/run.ts';
+import { runProblem, stopSentence } from '../../sim/run.ts';
 import { evolveDefaults } from '../../sim/time/evolve.ts';
 import { budgetMessage, budgetSpent, stepGuardDefaults as GUARD } from '../../sim/time/step-guards.ts';
 import { PLAIN, scenario } from '../support/scenarios.ts';
@@ -114,6 +114,9 @@ describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)'
     expect(out.status).toBe('failed');
     if (out.status !== 'failed') return;
     expect(out.message).toMatch(/^the run reached its work budget at t = [0-9.e+]+ of 1000 s: 40 cells × \d+ Newton sweeps; the limit is 4e\+3 cell-sweeps \(set by the caller\)\. /);
+    // a stop at the ceiling is its own kind (the CLI exits 4, not 1), in its own words
+    expect(out.reason).toBe('work-budget');
+    expect(stopSentence(out)).toBe(out.message);
     expect(40 * out.stats.newtonIterations).toBeGreaterThanOrEqual(4000);
     // the check is made before each trial; one TR-BDF2 trial takes at most 2 × maxNewtonIterations sweeps
     expect(out.stats.newtonIterations).toBeLessThanOrEqual(100 + 2 * evolveDefaults.maxNewtonIterations);

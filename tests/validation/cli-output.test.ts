@@ -88,6 +88,29 @@ describe('freezeline check (the bundle)', () => {
     expect(r.stderr).toContain('layers[1].thickness_mm: must be > 0, got -1.5');
   });
 
+  it('reports a run stopped for a physical reason in words, with exit code 4, and with --json as a stopped document', () => {
+    // a 2 mm steel-like slab drained by 5 kW/m² from below, adiabatic above: its face reaches 0 K at
+    // t* = ρcL·(T₀ − qL/(3k))/q = 469 s (the quasi-steady closed form of tests/regressions/solver-robustness.test.ts),
+    // inside a 3 h run
+    const file = {
+      freezeline: 1, name: 'drained slab', ambient_C: 20, duration_s: 10800,
+      materials: { m: { k_W_mK: 50, rho_kg_m3: 8000, cp_J_kgK: 500 } },
+      layers: [{ id: 'slab', material: 'm', thickness_mm: 2 }], bottom: [{ from_s: 0, flux_W_m2: -5000 }], top: [{ from_s: 0, flux_W_m2: 0 }],
+    };
+    const path = join(work, 'drained.json');
+    writeFileSync(path, JSON.stringify(file));
+    const words = freezeline('run', path);
+    expect(words.code).toBe(4);
+    expect(words.err).toMatch(/drained\.json: the run stopped: the heat drawn from the bottom face exceeds what the stack holds: its temperature would fall below absolute zero at t = \d+(\.\d+)? s\n$/);
+    expect(words.err).not.toContain('internal error');
+    const json = freezeline('run', path, '--json');
+    expect(json.code).toBe(4);
+    const doc = JSON.parse(json.out) as { stopped: { reason: string; t_s: number; message: string } };
+    expect(doc.stopped.reason).toBe('physical');
+    expect(doc.stopped.message).toMatch(/^the heat drawn from the bottom face exceeds/);
+    expect(Math.abs(doc.stopped.t_s - 469) / 469).toBeLessThan(0.01); // measured 468.9 s
+  });
+
   it('ships every worker entry sim/cli/*-worker.ts as its own file beside the bundle, where tinypool looks for it', () => {
     freezeline('check', demo);
     const workers = readdirSync(join(root, 'sim/cli')).filter((f) => f.endsWith('-worker.ts'));
