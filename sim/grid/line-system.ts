@@ -104,6 +104,12 @@ export class LineSystem implements StageSystem {
    * numbers of the unoptimised code six times as many young-generation collections).
    */
   private readonly separatorLayer: Uint8Array;
+  /**
+   * The layer whose error set the last errorNorm() (−1 before the first), and whether it was melting over that step:
+   * the time loop counts them on rejected steps, for the run-time ceiling's message (which layer held the steps back).
+   */
+  binding = -1;
+  bindingMelting = false;
 
   constructor(readonly ws: Workspace, readonly scale: ErrorScale, private readonly beforeStage: BeforeStage,
     cond: StepConditions) {
@@ -363,17 +369,20 @@ export class LineSystem implements StageSystem {
     }
     // the temperature part: a melting separator by its width-weighted RMS, any other melting layer by the larger of
     // that and its hottest cell's, every layer else by its largest cell (above)
+    let binding = -1;
     for (let l = 0; l < front.length; l++) {
       const rms = melting[l] === MELTING_NONE ? 0 : Math.sqrt(sq[l]! / width[l]!);
       const e = melting[l] === MELTING_SEPARATOR ? rms : melting[l] === MELTING_OTHER ? Math.max(rms, hottestError[l]!) : most[l]!;
-      if (!(e <= worst)) worst = e;
+      if (!(e <= worst)) { worst = e; binding = l; }
     }
     for (let l = 0; l < front.length; l++) {
       const held = this.nearEvent(l);
       if (front[l] === 0 || !held) continue;
       const e = front[l]! / this.levelZeroWidth[l]!;
-      if (!(e <= worst)) worst = e;
+      if (!(e <= worst)) { worst = e; binding = l; }
     }
+    this.binding = binding;
+    this.bindingMelting = binding >= 0 && melting[binding] !== MELTING_NONE;
     return worst;
   }
 

@@ -28,7 +28,7 @@ import { beginPlateStage, createPlateControl } from './plates.ts';
 import type { FixedStepping } from './step-control.ts';
 import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
 import { leavesBounds, stepBounds } from './step-bounds.ts';
-import { belowAbsoluteZeroStop, budgetMessage, budgetSpent, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
+import { belowAbsoluteZeroStop, budgetMessage, budgetSpent, heldBackSentence, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
   /**
@@ -159,6 +159,9 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const newtonAtFloor: NewtonSettings = { ...newton, maxIterations: d.maxNewtonIterations + d.floorIterationsPerCell * grid.n };
   const stats: EvolveStats = { steps: 0, rejected: 0, newtonIterations: 0, forced: 0, events: 0, eventTrials: 0 };
   const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
+  // per layer, the steps rejected on its error, and those of them over which it was melting (the ceiling's message)
+  const rejectedBy = new Uint32Array(problem.layers.length);
+  const rejectedMelting = new Uint32Array(problem.layers.length);
   const stepping: Stepping = options.stepping ?? { kind: 'adaptive' };
   const fixedStepS = stepping.kind === 'fixed' ? stepping.stepS : undefined;
   const backwardEuler = stepping.kind === 'fixed' && stepping.scheme === 'backward-euler';
@@ -261,7 +264,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     /** The time s into this step. */
     const timeInto = (s: number): number => (fine ? t + (lo + s) : t + s);
     if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations, ceiling)) {
-      return { status: 'failed', reason: 'work-budget', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling), tS: t, stats };
+      const heldBack = heldBackSentence(problem.layers.map((l) => l.id), rejectedBy, rejectedMelting, stats.rejected);
+      return { status: 'failed', reason: 'work-budget', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling, heldBack), tS: t, stats };
     }
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)
     // (a floored step stretched by rounding to land on a breakpoint is still at the floor)
@@ -285,6 +289,10 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
         return { status: 'failed', reason: 'numerical', message: `the solver could not converge at t = ${t} s even with its smallest step, ${step.toPrecision(2)} s (${outcome.status})`, tS: t, stats };
       }
       stats.rejected++;
+      if (outcome.status === 'ok' && line.binding >= 0) {
+        rejectedBy[line.binding] = rejectedBy[line.binding]! + 1;
+        if (line.bindingMelting) rejectedMelting[line.binding] = rejectedMelting[line.binding]! + 1;
+      }
       rejectedLast = true;
       h = retryStepS(step, outcome, d, chain);
       continue;

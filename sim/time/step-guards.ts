@@ -128,16 +128,34 @@ export function budgetSpent(cells: number, trials: number, sweeps: number, maxCe
   return cells * trials >= stepGuardDefaults.maxCellSteps || cells * sweeps >= maxCellSweeps;
 }
 
-/** The message for a run that has used its work budget (budgetSpent), naming the ceiling that bound. */
+/**
+ * The sentence of the ceiling's message that names the layer that held the steps back, or '' when no layer set the
+ * error of at least half of the rejected steps. `rejectedBy[l]` counts the steps rejected on layer l's error,
+ * `rejectedMelting[l]` those of them over which it was melting (a melt front crossing a finely cut layer cell by cell
+ * is what costs most: DEVELOPERS.md, Robustness).
+ */
+export function heldBackSentence(layerIds: readonly string[], rejectedBy: Uint32Array, rejectedMelting: Uint32Array, rejected: number): string {
+  let most = 0;
+  for (let l = 1; l < rejectedBy.length; l++) if (rejectedBy[l]! > rejectedBy[most]!) most = l;
+  const n = rejectedBy[most] ?? 0;
+  if (rejected === 0 || 2 * n < rejected) return '';
+  const melting = 2 * rejectedMelting[most]! >= n ? ' while a melt front crossed it' : '';
+  return `${n} of the ${rejected} rejected steps were held back by layer ${JSON.stringify(layerIds[most])}${melting}. `;
+}
+
+/**
+ * The message for a run that has used its work budget (budgetSpent), naming the ceiling that bound, and the layer
+ * that held the steps back when one did (heldBackSentence).
+ */
 export function budgetMessage(cells: number, trials: number, sweeps: number, tS: number, durationS: number,
-  maxCellSweeps: number = stepGuardDefaults.maxCellSweeps): string {
+  maxCellSweeps: number = stepGuardDefaults.maxCellSweeps, heldBack = ''): string {
   const g = stepGuardDefaults;
   const sweepsBind = cells * sweeps >= maxCellSweeps;
   const whose = maxCellSweeps === g.maxCellSweeps ? 'stepGuardDefaults.maxCellSweeps, about 10 s' : 'set by the caller';
   const spent = sweepsBind
     ? `${cells} cells × ${sweeps} Newton sweeps; the limit is ${maxCellSweeps.toExponential(0)} cell-sweeps (${whose})`
     : `${cells} cells × ${trials} steps tried; the limit is ${g.maxCellSteps.toExponential(0)} cell-steps (stepGuardDefaults.maxCellSteps)`;
-  return `the run reached its work budget at t = ${formatTime(tS)} of ${formatTime(durationS)} s: ${spent}. ` +
+  return `the run reached its work budget at t = ${formatTime(tS)} of ${formatTime(durationS)} s: ${spent}. ${heldBack}` +
     'Use fewer cells, loosen numerics.tolerance_K or numerics.liquid_fraction_tolerance, or shorten duration_s';
 }
 

@@ -12,8 +12,9 @@ import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario/scenario-limi
 import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { runProblem, stopSentence } from '../../sim/run.ts';
 import { evolveDefaults } from '../../sim/time/evolve.ts';
-import { budgetMessage, budgetSpent, stepGuardDefaults as GUARD } from '../../sim/time/step-guards.ts';
-import { PLAIN, scenario } from '../support/scenarios.ts';
+import { budgetMessage, budgetSpent, heldBackSentence, stepGuardDefaults as GUARD } from '../../sim/time/step-guards.ts';
+import demo from '../../examples/bench-coupon.json' with { type: 'json' };
+import { parseOk, PLAIN, scenario } from '../support/scenarios.ts';
 
 /** One 10 mm layer of an invented material (40 cells at the default 4 cells/mm), held hot below, cooled above. */
 const plate = (numerics: ScenarioFile['numerics'] = {}): ScenarioFile => scenario({
@@ -102,6 +103,19 @@ describe('the ceiling mid-run', () => {
       'or numerics.liquid_fraction_tolerance, or shorten duration_s');
     expect(budgetMessage(10, 5e6, 1e6, 1e6, 3e6)).toContain('10 cells × 5000000 steps tried; the limit is 5e+7 cell-steps (stepGuardDefaults.maxCellSteps)');
   });
+
+  it('heldBackSentence() names the layer on whose error at least half of the rejected steps failed, and whether it melted', () => {
+    const ids = ['collector', 'separator', 'anode'];
+    expect(heldBackSentence(ids, Uint32Array.of(1, 7, 2), Uint32Array.of(0, 6, 0), 10))
+      .toBe('7 of the 10 rejected steps were held back by layer "separator" while a melt front crossed it. ');
+    // melting over fewer than half of its own rejections: no front named
+    expect(heldBackSentence(ids, Uint32Array.of(1, 7, 2), Uint32Array.of(0, 3, 0), 10)).toBe('7 of the 10 rejected steps were held back by layer "separator". ');
+    // exactly half still names it; less than half of all rejections (the rest on Newton failures, or spread) does not
+    expect(heldBackSentence(ids, Uint32Array.of(5, 0, 0), Uint32Array.of(0, 0, 0), 10)).toBe('5 of the 10 rejected steps were held back by layer "collector". ');
+    expect(heldBackSentence(ids, Uint32Array.of(4, 3, 3), Uint32Array.of(4, 3, 3), 10)).toBe('');
+    expect(heldBackSentence(ids, Uint32Array.of(0, 0, 0), Uint32Array.of(0, 0, 0), 0)).toBe('');
+    expect(budgetMessage(2000, 4000, 50_000, 8.75, 78, 1e8, 'X. ')).toContain('about 10 s). X. Use fewer cells');
+  });
 });
 
 describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)', () => {
@@ -122,5 +136,17 @@ describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)'
     expect(out.stats.newtonIterations).toBeLessThanOrEqual(100 + 2 * evolveDefaults.maxNewtonIterations);
     // the same run without the lowered ceiling finishes
     expect(runProblem(parsed.problem).status).toBe('ok');
+  });
+
+  it('runProblem() stopped at a ceiling while the demo\'s separator melts names it as what held the steps back', () => {
+    // the demo at 20 000 cell-sweeps (of the 66 000 it takes) stops at t ≈ 56 s, while its salt melts (molten at
+    // 85 s): measured, 31 of its 34 rejected steps failed on the separator's error, each while the layer was melting
+    const out = runProblem(parseOk(demo as unknown as ScenarioFile), { maxCellSweeps: 20_000 });
+    expect(out.status).toBe('failed');
+    if (out.status !== 'failed') return;
+    const held = /(\d+) of the (\d+) rejected steps were held back by layer "separator" while a melt front crossed it\. Use fewer cells/.exec(out.message);
+    expect(held, out.message).not.toBeNull();
+    expect(Number(held![2])).toBe(out.stats.rejected);
+    expect(2 * Number(held![1])).toBeGreaterThanOrEqual(out.stats.rejected);
   });
 });
