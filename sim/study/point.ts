@@ -54,8 +54,10 @@ export interface WindowPoint {
 /** Whether a run keeps more than the required margin (K) below every limit; a layer without limits keeps any. */
 export const keepsMargin = (p: Pick<WindowPoint, 'margin_K'>, requiredK: number): boolean => p.margin_K === null || p.margin_K > requiredK;
 
-/** A run that did not finish: the search cannot judge this value, so it stops and says where. */
-/** A run of a study that did not finish; `stop` is why and when it stopped (none for a cancelled run). */
+/**
+ * A run that did not finish: the search cannot judge this value, so it stops and says where; `stop` is why and when
+ * the run stopped (none for a cancelled run).
+ */
 export class SolveFailure extends Error {
   constructor(message: string, readonly stop?: { readonly reason: StopReason; readonly tS: number; readonly message: string }) {
     super(message);

@@ -264,7 +264,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     /** The time s into this step. */
     const timeInto = (s: number): number => (fine ? t + (lo + s) : t + s);
     if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations, ceiling)) {
-      const heldBack = heldBackSentence(problem.layers.map((l) => l.id), rejectedBy, rejectedMelting, stats.rejected);
+      const cellsOf = problem.layers.map((_, l) => grid.layerEnd[l]! - grid.layerStart[l]!);
+      const heldBack = heldBackSentence(problem.layers.map((l) => l.id), cellsOf, rejectedBy, rejectedMelting, stats.rejected);
       return { status: 'failed', reason: 'work-budget', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling, heldBack), tS: t, stats };
     }
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)

@@ -130,17 +130,18 @@ export function budgetSpent(cells: number, trials: number, sweeps: number, maxCe
 
 /**
  * The sentence of the ceiling's message that names the layer that held the steps back, or '' when no layer set the
- * error of at least half of the rejected steps. `rejectedBy[l]` counts the steps rejected on layer l's error,
- * `rejectedMelting[l]` those of them over which it was melting (a melt front crossing a finely cut layer cell by cell
- * is what costs most: DEVELOPERS.md, Robustness).
+ * error of at least half of the rejected steps, with its cell count (`layerCells`). `rejectedBy[l]` counts the steps
+ * rejected on layer l's error, `rejectedMelting[l]` those of them over which it was melting (a melt front crossing a
+ * finely cut layer cell by cell is what costs most: DEVELOPERS.md, Robustness).
  */
-export function heldBackSentence(layerIds: readonly string[], rejectedBy: Uint32Array, rejectedMelting: Uint32Array, rejected: number): string {
+export function heldBackSentence(layerIds: readonly string[], layerCells: readonly number[], rejectedBy: Uint32Array, rejectedMelting: Uint32Array,
+  rejected: number): string {
   let most = 0;
   for (let l = 1; l < rejectedBy.length; l++) if (rejectedBy[l]! > rejectedBy[most]!) most = l;
   const n = rejectedBy[most] ?? 0;
   if (rejected === 0 || 2 * n < rejected) return '';
   const melting = 2 * rejectedMelting[most]! >= n ? ' while a melt front crossed it' : '';
-  return `${n} of the ${rejected} rejected steps were held back by layer ${JSON.stringify(layerIds[most])}${melting}. `;
+  return `${n} of the ${rejected} rejected steps were held back by layer ${JSON.stringify(layerIds[most])} (${layerCells[most]} cells)${melting}. `;
 }
 
 /**

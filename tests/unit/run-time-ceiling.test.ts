@@ -106,14 +106,15 @@ describe('the ceiling mid-run', () => {
 
   it('heldBackSentence() names the layer on whose error at least half of the rejected steps failed, and whether it melted', () => {
     const ids = ['collector', 'separator', 'anode'];
-    expect(heldBackSentence(ids, Uint32Array.of(1, 7, 2), Uint32Array.of(0, 6, 0), 10))
-      .toBe('7 of the 10 rejected steps were held back by layer "separator" while a melt front crossed it. ');
+    const cells = [4, 24, 8];
+    expect(heldBackSentence(ids, cells, Uint32Array.of(1, 7, 2), Uint32Array.of(0, 6, 0), 10))
+      .toBe('7 of the 10 rejected steps were held back by layer "separator" (24 cells) while a melt front crossed it. ');
     // melting over fewer than half of its own rejections: no front named
-    expect(heldBackSentence(ids, Uint32Array.of(1, 7, 2), Uint32Array.of(0, 3, 0), 10)).toBe('7 of the 10 rejected steps were held back by layer "separator". ');
+    expect(heldBackSentence(ids, cells, Uint32Array.of(1, 7, 2), Uint32Array.of(0, 3, 0), 10)).toBe('7 of the 10 rejected steps were held back by layer "separator" (24 cells). ');
     // exactly half still names it; less than half of all rejections (the rest on Newton failures, or spread) does not
-    expect(heldBackSentence(ids, Uint32Array.of(5, 0, 0), Uint32Array.of(0, 0, 0), 10)).toBe('5 of the 10 rejected steps were held back by layer "collector". ');
-    expect(heldBackSentence(ids, Uint32Array.of(4, 3, 3), Uint32Array.of(4, 3, 3), 10)).toBe('');
-    expect(heldBackSentence(ids, Uint32Array.of(0, 0, 0), Uint32Array.of(0, 0, 0), 0)).toBe('');
+    expect(heldBackSentence(ids, cells, Uint32Array.of(5, 0, 0), Uint32Array.of(0, 0, 0), 10)).toBe('5 of the 10 rejected steps were held back by layer "collector" (4 cells). ');
+    expect(heldBackSentence(ids, cells, Uint32Array.of(4, 3, 3), Uint32Array.of(4, 3, 3), 10)).toBe('');
+    expect(heldBackSentence(ids, cells, Uint32Array.of(0, 0, 0), Uint32Array.of(0, 0, 0), 0)).toBe('');
     expect(budgetMessage(2000, 4000, 50_000, 8.75, 78, 1e8, 'X. ')).toContain('about 10 s). X. Use fewer cells');
   });
 });
@@ -144,7 +145,7 @@ describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)'
     const out = runProblem(parseOk(demo as unknown as ScenarioFile), { maxCellSweeps: 20_000 });
     expect(out.status).toBe('failed');
     if (out.status !== 'failed') return;
-    const held = /(\d+) of the (\d+) rejected steps were held back by layer "separator" while a melt front crossed it\. Use fewer cells/.exec(out.message);
+    const held = /(\d+) of the (\d+) rejected steps were held back by layer "separator" \(24 cells\) while a melt front crossed it\. Use fewer cells/.exec(out.message);
     expect(held, out.message).not.toBeNull();
     expect(Number(held![2])).toBe(out.stats.rejected);
     expect(2 * Number(held![1])).toBeGreaterThanOrEqual(out.stats.rejected);
