@@ -60,6 +60,24 @@ describe('the browser view while a run is long or an input is wrong', () => {
     await page.context().close();
   });
 
+  it('a scenario that draws more heat than the stack holds stops with the physical reason, not as an internal error', async () => {
+    const page = await freshPage();
+    const halfFrozen = await text(page, 'verdict-half-frozen-at');
+    // the demo with its bottom drained at 50 kW/m² from the start: the 4.5 mm stack (about 11 kJ/m²K of heat capacity)
+    // would fall from 22 °C to 0 K within a minute or so
+    const demo = JSON.parse(readFileSync(`${repoRoot}examples/bench-coupon.json`, 'utf8')) as Record<string, unknown>;
+    writeFileSync(`${artifacts}/drained-demo.json`, JSON.stringify({ ...demo, bottom: [{ from_s: 0, flux_W_m2: -50000 }] }));
+    await page.setInputFiles('[data-testid="load-json"]', `${artifacts}/drained-demo.json`);
+    await statusIs(page, 'failed');
+    const detail = await page.$eval('#run-detail', (e) => e.textContent ?? '');
+    expect(detail).toMatch(/^the run stopped: the heat drawn from the bottom face exceeds what the stack holds: its temperature would fall below absolute zero at t = [\d.]+ s$/);
+    // the last good result stays, marked as such
+    expect(await text(page, 'verdict-half-frozen-at')).toBe(halfFrozen);
+    expect(await page.$eval('#stale-note', (e) => (e as HTMLElement).hidden)).toBe(false);
+    expect(await page.evaluate(() => document.body.innerText)).not.toMatch(/internal error|NaN/);
+    await page.context().close();
+  });
+
   it('without a separator the verdict says so and nothing shows NaN', async () => {
     const page = await freshPage();
     await page.uncheck('[data-testid="layer-row-1"] input[type="checkbox"]');
