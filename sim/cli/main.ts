@@ -26,7 +26,11 @@ function program(): Command {
   const cli = new Command('freezeline')
     .description('Transient thermal simulator for a heated molten-salt cell: when does the separator freeze, and how close does each layer come to its limit?')
     .exitOverride()
-    .configureOutput({ writeErr: (s) => process.stderr.write(s) });
+    .configureOutput({ writeErr: (s) => process.stderr.write(s) })
+    .addHelpText('after', `
+Exit codes: ${EXIT.ok} done; ${EXIT.invalid} invalid input (the message names the field and the value); ${EXIT.failedCheck} a stated
+expectation or a --require condition not met; ${EXIT.stopped} the run stopped before its end, for a physical reason
+(heat drawn beyond what the stack holds) or at the run-time ceiling; ${EXIT.internal} an internal failure.`);
 
   cli.command('run').argument('<file>', 'scenario file (JSON)')
     .description('simulate a scenario and print the verdicts')

@@ -109,6 +109,10 @@ describe('freezeline check (the bundle)', () => {
     expect(doc.stopped.reason).toBe('physical');
     expect(doc.stopped.message).toMatch(/^the heat drawn from the bottom face exceeds/);
     expect(Math.abs(doc.stopped.t_s - 469) / 469).toBeLessThan(0.01); // measured 468.9 s
+    // the help lists every exit code, this one with it
+    const help = freezeline('--help');
+    expect(help.code).toBe(0);
+    expect(help.out.replace(/\s+/g, ' ')).toContain('Exit codes: 0 done; 2 invalid input (the message names the field and the value); 3 a stated expectation or a --require condition not met; 4 the run stopped before its end, for a physical reason (heat drawn beyond what the stack holds) or at the run-time ceiling; 1 an internal failure.');
   });
 
   it('ships every worker entry sim/cli/*-worker.ts as its own file beside the bundle, where tinypool looks for it', () => {
