@@ -32,7 +32,11 @@ export interface RunOptions extends EvolveOptions {
 
 export type RunOutcome =
   | { readonly status: 'ok'; readonly problem: Problem; readonly grid: Grid; readonly record: RunRecord; readonly summary: Summary; readonly stats: EvolveStats }
-  | { readonly status: 'failed'; readonly reason: StopReason; readonly message: string; readonly tS: number; readonly stats: EvolveStats }
+  | {
+    readonly status: 'failed'; readonly reason: StopReason; readonly message: string; readonly tS: number; readonly stats: EvolveStats;
+    /** What was recorded up to the last accepted step before the stop: the curves to look at, no verdicts. */
+    readonly record: RunRecord;
+  }
   | { readonly status: 'cancelled'; readonly tS: number };
 
 /**
@@ -111,7 +115,7 @@ function runOnce(asWritten: Problem, options: RunOptions): RunOutcome {
       return { status: 'cancelled', tS: next.value.t1 };
     }
   }
-  if (end.status === 'failed') return end;
+  if (end.status === 'failed') return { ...end, record: recorder.finish() };
   const record = recorder.finish();
   return { status: 'ok', problem, grid, record, summary: summarize(problem, record), stats: end.stats };
 }

@@ -5,6 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { formatFieldError } from '../scenario/field-errors.ts';
 import type { Problem } from '../physics/problem.ts';
+import type { RunRecord } from '../observe/record.ts';
 import { runProblem, stopSentence } from '../run.ts';
 import { parseScenarioText } from '../scenario/scenario.ts';
 import type { ScenarioFile } from '../scenario/scenario-schema.ts';
@@ -24,13 +25,11 @@ export const EXIT = { ok: 0, internal: 1, invalid: 2, failedCheck: 3, stopped: 4
  * of the program. Printed as it is, exit code EXIT.stopped (4).
  */
 export class RunStopped extends Error {
+  /** What the run recorded up to its last accepted step (none from a study, whose runs keep nothing). */
+  record?: RunRecord;
+
   constructor(message: string, readonly reason: 'physical' | 'work-budget', readonly tS: number, readonly detail: string) {
     super(message);
-  }
-
-  /** What `run --json` writes on stdout instead of the result document: why and when the run stopped. */
-  document(): { stopped: { reason: string; t_s: number; message: string } } {
-    return { stopped: { reason: this.reason, t_s: this.tS, message: this.detail } };
   }
 }
 
@@ -68,7 +67,9 @@ export function runOrFail(problem: Problem, file: string) {
   if (out.status === 'cancelled') throw new Error('the run was cancelled');
   if (out.status === 'failed') {
     if (out.reason === 'numerical') throw new Error(stopSentence(out));
-    throw new RunStopped(`${file}: ${stopSentence(out)}`, out.reason, out.tS, out.message);
+    const stopped = new RunStopped(`${file}: ${stopSentence(out)}`, out.reason, out.tS, out.message);
+    stopped.record = out.record;
+    throw stopped;
   }
   return out;
 }

@@ -2,13 +2,14 @@
  * The `freezeline` command. Exit codes: 0 success, 2 invalid input (each message names the field and the value),
  * 1 internal failure, 3 the run finished but a stated expectation (the scenario's `expect` block) or a `run --require` condition failed,
  * 4 the run stopped before its end for a physical reason or at the run-time ceiling (the message says which). `run --json` writes
- * exactly the result document on stdout and nothing else; for a run that stopped, `{ "stopped": { reason, t_s, message } }`.
+ * exactly the result document on stdout and nothing else; for a run that stopped, `{ "stopped": { reason, t_s, message }, "series" }`,
+ * the series recorded up to the stop (and `--csv` writes that series).
  */
 import { coefficientTable } from './coefficient-table.ts';
 import { writeFileSync } from 'node:fs';
 import { Command, CommanderError } from 'commander';
 import { libraryFile, libraryNames } from '../scenario/library.ts';
-import { resultDocument } from '../observe/result.ts';
+import { resultDocument, seriesDocument } from '../observe/result.ts';
 import { benchProblem } from './bench-run.ts';
 import { CheckFailed, EXIT, InputError, readProblem, readScenario, RunStopped, runOrFail } from './input.ts';
 import { countExpectations, evaluateExpectations, unmet } from '../scenario/expect.ts';
@@ -20,6 +21,7 @@ import { registerAmbient } from './cmd-ambient.ts';
 import { registerWindow } from './cmd-window.ts';
 import { registerSalt } from './cmd-salt.ts';
 import { outputTimesCsv, seriesCsv } from '../observe/series-csv.ts';
+import type { RunRecord } from '../observe/record.ts';
 import { summaryTable } from './table.ts';
 
 function program(): Command {
@@ -45,22 +47,33 @@ expectation or a --require condition not met; ${EXIT.stopped} the run stopped be
       if (opts.csvAt !== 'series' && opts.csvAt !== 'output') throw new InputError(`--csv-at: must be "series" or "output", got ${JSON.stringify(opts.csvAt)}`);
       const { scenario, problem } = readScenario(file);
       const requirements = parseRequirements(opts.require, problem);
+      // the CSV of a record: every recorded point, or the output times it reached
+      const writeCsv = (csvFile: string, record: RunRecord) => {
+        const reached = record.tS[record.tS.length - 1] ?? 0;
+        writeFileSync(csvFile, opts.csvAt === 'output'
+          ? outputTimesCsv(record, problem.outputTimesS.filter((t) => t <= reached), { labels: problem.probeLabels, probes: record.probes })
+          : seriesCsv(record));
+      };
       let out;
       try {
         out = runOrFail(problem, file);
       } catch (e) {
-        // a machine reading --json gets a document either way: why and when the run stopped
-        if (opts.json && e instanceof RunStopped) process.stdout.write(`${JSON.stringify(e.document())}\n`);
+        if (e instanceof RunStopped && e.record) {
+          // what the run recorded before it stopped is still worth a look: the CSV up to there, and with --json a
+          // document either way, why and when the run stopped with its series so far
+          const record = e.record;
+          if (opts.csv) {
+            writeCsv(opts.csv, record);
+            e.message += `\n${file}: the series up to t = ${Number((record.tS[record.tS.length - 1] ?? 0).toPrecision(6))} s is in ${opts.csv}`;
+          }
+          if (opts.json) process.stdout.write(`${JSON.stringify({ stopped: { reason: e.reason, t_s: e.tS, message: e.detail }, series: seriesDocument(problem, record) })}\n`);
+        }
         throw e;
       }
       // the accuracy plan as run (an accuracy asked may be met by a rung below the plan: run.ts runProblem)
       const solvedAs = { ...problem, numerics: out.problem.numerics };
       const expectations = evaluateExpectations(scenario.expect, out.summary);
-      if (opts.csv) {
-        writeFileSync(opts.csv, opts.csvAt === 'output'
-          ? outputTimesCsv(out.record, problem.outputTimesS, { labels: problem.probeLabels, probes: out.record.probes })
-          : seriesCsv(out.record));
-      }
+      if (opts.csv) writeCsv(opts.csv, out.record);
       if (opts.report) writeFileSync(opts.report, htmlReport({ file, description: scenario.description, problem, summary: out.summary, record: out.record, expectations }));
       // requirement lines go beside the expectations, before the hazard list that closes the table (stderr with --json)
       const requirementLines: string[] = [];

@@ -45,24 +45,29 @@ export interface ResultDocument {
 export interface SolverCounts { readonly steps: number; readonly rejected: number; readonly newtonIterations: number }
 
 export function resultDocument(problem: Problem, grid: Grid, record: RunRecord, summary: Summary, stats: SolverCounts): ResultDocument {
-  // keyed by layer id with own properties (Object.fromEntries), so any id, "__proto__" included, is kept
-  const layers = Object.fromEntries(record.layers.map((l, li) => [l.id, {
-    min_C: Array.from(l.minC), mean_C: Array.from(l.meanC), max_C: Array.from(l.maxC),
-    ...(l.liquidFraction && problem.layers[li]!.separator ? { liquid_fraction: Array.from(l.liquidFraction) } : {}),
-  }]));
   const doc: ResultDocument = {
     summary: { ...summary, warnings: record.warnings },
     probes: { x_mm: record.probes.xMm, label: problem.probeLabels, t_s: record.probes.tS, T_C: record.probes.tC },
-    series: {
-      t_s: Array.from(record.tS), layers, faces: { bottom_C: Array.from(record.bottomC), top_C: Array.from(record.topC) },
-      ...(record.heater ? { heater: { power_W: Array.from(record.heater.powerW), plate_C: Array.from(record.heater.plateC, (c) => (Number.isNaN(c) ? null : c)) } } : {}),
-    },
+    series: seriesDocument(problem, record),
     solver: { cells: grid.n, steps: stats.steps, rejected_steps: stats.rejected, newton_iterations: stats.newtonIterations },
     numerics: numericsKeys(problem),
     coefficients: coefficientTrace(problem),
   };
   assertFinite(doc, 'result');
   return doc;
+}
+
+/** The document's `series`: every recorded time, each layer's min, mean and max (and a separator's liquid fraction), the faces, the heater. */
+export function seriesDocument(problem: Problem, record: RunRecord): ResultDocument['series'] {
+  // keyed by layer id with own properties (Object.fromEntries), so any id, "__proto__" included, is kept
+  const layers = Object.fromEntries(record.layers.map((l, li) => [l.id, {
+    min_C: Array.from(l.minC), mean_C: Array.from(l.meanC), max_C: Array.from(l.maxC),
+    ...(l.liquidFraction && problem.layers[li]!.separator ? { liquid_fraction: Array.from(l.liquidFraction) } : {}),
+  }]));
+  return {
+    t_s: Array.from(record.tS), layers, faces: { bottom_C: Array.from(record.bottomC), top_C: Array.from(record.topC) },
+    ...(record.heater ? { heater: { power_W: Array.from(record.heater.powerW), plate_C: Array.from(record.heater.plateC, (c) => (Number.isNaN(c) ? null : c)) } } : {}),
+  };
 }
 
 function numericsKeys(problem: Problem): ResultDocument['numerics'] {

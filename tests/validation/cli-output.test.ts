@@ -102,12 +102,26 @@ describe('freezeline check (the bundle)', () => {
     const words = freezeline('run', path);
     expect(words.code).toBe(4);
     expect(words.err).toMatch(/drained\.json: the run stopped: the heat drawn from the bottom face exceeds what the stack holds: its temperature would fall below absolute zero at t = \d+(\.\d+)? s\n$/);
+    expect(words.out).toBe('');
     expect(words.err).not.toContain('internal error');
     const json = freezeline('run', path, '--json');
     expect(json.code).toBe(4);
-    const doc = JSON.parse(json.out) as { stopped: { reason: string; t_s: number; message: string } };
+    const doc = JSON.parse(json.out) as { stopped: { reason: string; t_s: number; message: string }; series: { t_s: number[]; layers: { slab: { mean_C: number[] } }; faces: { bottom_C: number[] } } };
     expect(doc.stopped.reason).toBe('physical');
     expect(doc.stopped.message).toMatch(/^the heat drawn from the bottom face exceeds/);
+    // the series recorded up to the stop: from t = 0, the slab at 20 °C, to the last step before it, its bottom face
+    // near 0 K (−273.15 °C)
+    const t = doc.series.t_s;
+    expect(t[0]).toBe(0);
+    expect(t[t.length - 1]!).toBeLessThanOrEqual(doc.stopped.t_s);
+    expect(doc.series.layers.slab.mean_C[0]).toBe(20);
+    expect(doc.series.faces.bottom_C[t.length - 1]!).toBeLessThan(-200);
+    // --csv writes the same rows, and says where
+    const csvPath = join(work, 'drained.csv');
+    const withCsv = freezeline('run', path, '--csv', csvPath);
+    expect(withCsv.code).toBe(4);
+    expect(withCsv.err).toContain(`the series up to t = ${Number(t[t.length - 1]!.toPrecision(6))} s is in ${csvPath}`);
+    expect(readFileSync(csvPath, 'utf8').trim().split('\n')).toHaveLength(t.length + 1);
     expect(Math.abs(doc.stopped.t_s - 469) / 469).toBeLessThan(0.01); // measured 468.9 s
     // the help lists every exit code, this one with it
     const help = freezeline('--help');
