@@ -9,7 +9,7 @@ import { coefficientTable } from './coefficient-table.ts';
 import { writeFileSync } from 'node:fs';
 import { Command, CommanderError } from 'commander';
 import { libraryFile, libraryNames } from '../scenario/library.ts';
-import { resultDocument, seriesDocument } from '../observe/result.ts';
+import { assertFinite, resultDocument, seriesDocument } from '../observe/result.ts';
 import { benchProblem } from './bench-run.ts';
 import { CheckFailed, EXIT, InputError, readProblem, readScenario, RunStopped, runOrFail } from './input.ts';
 import { countExpectations, evaluateExpectations, unmet } from '../scenario/expect.ts';
@@ -66,7 +66,11 @@ expectation or a --require condition not met; ${EXIT.stopped} the run stopped be
             writeCsv(opts.csv, record);
             e.message += `\n${file}: the series up to t = ${Number((record.tS[record.tS.length - 1] ?? 0).toPrecision(6))} s is in ${opts.csv}`;
           }
-          if (opts.json) process.stdout.write(`${JSON.stringify({ stopped: { reason: e.reason, t_s: e.tS, message: e.detail }, series: seriesDocument(problem, record) })}\n`);
+          if (opts.json) {
+            const doc = { stopped: { reason: e.reason, t_s: e.tS, message: e.detail }, series: seriesDocument(problem, record) };
+            assertFinite(doc, 'stopped run'); // as the result document: a NaN here is a defect, not a value to print
+            process.stdout.write(`${JSON.stringify(doc)}\n`);
+          }
         }
         throw e;
       }
