@@ -55,8 +55,15 @@ export function registerSeek(cli: Command): void {
         lines.push(`${which} ${opts.adjust} meeting ${target.text}: ${formatSignificant(result.value)}${within}`);
         lines.push(`  there ${target.pathText} = ${reading}`);
       } else {
-        lines.push(`${target.text} is not met for any ${opts.adjust} in [${opts.min}, ${opts.max}]`);
+        const none = result.unfinished.length === result.solves ? ': none of its runs finished' : '';
+        lines.push(`${target.text} is not met for any ${opts.adjust} in [${opts.min}, ${opts.max}]${none}`);
         if (result.best) lines.push(`  closest: ${opts.adjust} = ${formatSignificant(result.best.value)} gives ${target.pathText} = ${readingText(result.best.reading)}`);
+      }
+      // a run that did not finish counts as not meeting the target: say how many, and why the first one stopped
+      const first = result.unfinished[0];
+      if (first) {
+        lines.push(`  ${result.unfinished.length} of the ${result.solves} runs did not finish (counted as not meeting the target); ` +
+          `the first, at ${opts.adjust} = ${formatSignificant(first.value)}: ${first.error}`);
       }
       if (!result.monotonic) {
         lines.push(`  the response is not monotonic: the target is met on ${result.met_intervals.map(([a, b]) => (a === b ? formatSignificant(a) : `${formatSignificant(a)}…${formatSignificant(b)}`)).join(', ')} (scan points); the answer is the ${which} edge`);

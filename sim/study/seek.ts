@@ -64,13 +64,24 @@ export interface SeekResult {
   readonly bracket: number;
   /** When not met: the value that came closest and what the target read there. */
   readonly best: { readonly value: number; readonly reading: number | string | null } | null;
+  /**
+   * The runs that did not finish (a stop, or a value the scenario refuses), in the order run, with why: each counts as
+   * not meeting the target, so a search that met it nowhere because its runs stopped says so instead of "not met".
+   */
+  readonly unfinished: readonly { readonly value: number; readonly error: string }[];
 }
 
 export function seek(probeAt: (value: number) => Probe, opts: SeekOptions): SeekResult {
   const n = opts.scanCount ?? seekDefaults.scanCount;
   const tol = opts.tolerance ?? seekDefaults.relativeTolerance * (opts.max - opts.min);
   let solves = 0;
-  const at = (v: number) => { solves++; return probeAt(v); };
+  const unfinished: { value: number; error: string }[] = [];
+  const at = (v: number) => {
+    solves++;
+    const p = probeAt(v);
+    if (p.error !== null) unfinished.push({ value: p.value, error: p.error });
+    return p;
+  };
   const scan = Array.from({ length: n }, (_, i) => at(i === n - 1 ? opts.max : opts.min + ((opts.max - opts.min) * i) / (n - 1)));
   const intervals: [number, number][] = [];
   scan.forEach((p, i) => {
@@ -81,14 +92,14 @@ export function seek(probeAt: (value: number) => Probe, opts: SeekOptions): Seek
   const monotonic = intervals.length <= 1;
   if (intervals.length === 0) {
     const best = scan.reduce<Probe | null>((b, p) => (p.shortfall !== null && (b === null || p.shortfall < b.shortfall!) ? p : b), null);
-    return { value: null, met: false, solves, summary: best?.summary ?? null, monotonic, met_intervals: [], bracket: 0, best: best ? { value: best.value, reading: best.reading } : null };
+    return { value: null, met: false, solves, summary: best?.summary ?? null, monotonic, met_intervals: [], bracket: 0, best: best ? { value: best.value, reading: best.reading } : null, unfinished };
   }
   const metAt = scan.flatMap((p, i) => (p.met ? [i] : []));
   const edge = opts.largest ? metAt[metAt.length - 1]! : metAt[0]!;
   const outer = opts.largest ? edge + 1 : edge - 1;
   let good = scan[edge]!;
   if (outer < 0 || outer >= n) {
-    return { value: good.value, met: true, solves, summary: good.summary, monotonic, met_intervals: intervals, bracket: 0, best: null };
+    return { value: good.value, met: true, solves, summary: good.summary, monotonic, met_intervals: intervals, bracket: 0, best: null, unfinished };
   }
   const bad = scan[outer]!;
   // a numeric reading at both ends is narrowed by its slope (regula falsi); otherwise (a target in words, a verdict
@@ -99,7 +110,7 @@ export function seek(probeAt: (value: number) => Probe, opts: SeekOptions): Seek
   const [lo, hi] = good.value < bad.value ? [good, bad] : [bad, good];
   const found = narrow(sampleOf(lo), sampleOf(hi), (y) => y >= 0, (x) => sampleOf(at(x)), tol, bySlope ? 'regula-falsi' : 'bisection');
   good = found.inside.point;
-  return { value: good.value, met: true, solves, summary: good.summary, monotonic, met_intervals: intervals, bracket: Math.abs(good.value - found.outside.x), best: null };
+  return { value: good.value, met: true, solves, summary: good.summary, monotonic, met_intervals: intervals, bracket: Math.abs(good.value - found.outside.x), best: null, unfinished };
 }
 
 /**

@@ -120,5 +120,20 @@ describe('seek() on known step functions', () => {
   it('returns an end of the range with a zero bracket when the target is met there', () => {
     const r = seek(ruleProbe((v) => v <= 4), { min: 0, max: 10, largest: false });
     expect([r.value, r.bracket, r.solves]).toEqual([0, 0, 9]);
+    expect(r.unfinished).toEqual([]);
+  });
+
+  it('lists the runs that did not finish, in the order run, and counts them as not meeting the target', () => {
+    // runs below 2 stop; the target holds from 5 up: the scan at 0, 1.25, …, 10 has two that stop (0 and 1.25)
+    const stopsBelow2 = (value: number): Probe => (value < 2
+      ? { value, met: false, reading: null, shortfall: null, summary: null, error: `the run stopped at ${value}` }
+      : { value, met: value >= 5, reading: value, shortfall: null, summary: null, error: null });
+    const r = seek(stopsBelow2, { min: 0, max: 10, largest: false, tolerance: 1e-6 });
+    assertClose(r.value!, 5, { abs: 1e-6 }, 'smallest value meeting the target');
+    expect(r.unfinished).toEqual([{ value: 0, error: 'the run stopped at 0' }, { value: 1.25, error: 'the run stopped at 1.25' }]);
+    // every run stopping: not met, and every run listed
+    const all = seek((value) => ({ value, met: false, reading: null, shortfall: null, summary: null, error: 'stopped' }), { min: 0, max: 10, largest: false });
+    expect(all.met).toBe(false);
+    expect(all.unfinished).toHaveLength(all.solves);
   });
 });

@@ -85,6 +85,22 @@ describe('freezeline sweep / seek / ambient', () => {
     expect(range.err).toContain('--min must be below --max');
   });
 
+  it('seek says when its runs did not finish, rather than only that the target is not met', () => {
+    // a 2 mm slab drained at 5 kW/m² from below stops when its face would reach 0 K (about 8 min) at every ambient
+    const drained = join(work, 'drained.json');
+    writeFileSync(drained, JSON.stringify({
+      freezeline: 1, name: 'drained slab', ambient_C: 20, duration_s: 10800, materials: { m: { k_W_mK: 50, rho_kg_m3: 8000, cp_J_kgK: 500 } },
+      layers: [{ id: 'slab', material: 'm', thickness_mm: 2 }], bottom: [{ from_s: 0, flux_W_m2: -5000 }], top: [{ from_s: 0, flux_W_m2: 0 }],
+    }));
+    const r = freezeline('seek', drained, '--adjust', 'ambient_C', '--min', '0', '--max', '40', '--target', 'margin_K>=10');
+    expect(r.code, r.err).toBe(0);
+    expect(r.out).toContain('margin_K>=10 is not met for any ambient_C in [0, 40]: none of its runs finished');
+    expect(r.out).toMatch(/ 9 of the 9 runs did not finish \(counted as not meeting the target\); the first, at ambient_C = 0: the run stopped: the heat drawn from the bottom face exceeds what the stack holds/);
+    const j = JSON.parse(freezeline('seek', drained, '--adjust', 'ambient_C', '--min', '0', '--max', '40', '--target', 'margin_K>=10', '--json').out) as { unfinished: { value: number; error: string }[]; solves: number };
+    expect(j.unfinished).toHaveLength(j.solves);
+    expect(j.unfinished[0]!.value).toBe(0);
+  });
+
   it('ambient --json lists each ambient with its verdicts and the stretches that pass', () => {
     const r = freezeline('ambient', demo, '--from', '0', '--to', '40', '--count', '3', '--json', '--jobs', '1');
     expect(r.code, r.err).toBe(0);
