@@ -6,6 +6,7 @@ import { readFileSync } from 'node:fs';
 import { formatFieldError } from '../scenario/field-errors.ts';
 import type { Problem } from '../physics/problem.ts';
 import type { RunRecord } from '../observe/record.ts';
+import type { StopReason } from '../time/drive.ts';
 import { runProblem, stopSentence } from '../run.ts';
 import { parseScenarioText } from '../scenario/scenario.ts';
 import type { ScenarioFile } from '../scenario/scenario-schema.ts';
@@ -25,10 +26,9 @@ export const EXIT = { ok: 0, internal: 1, invalid: 2, failedCheck: 3, stopped: 4
  * of the program. Printed as it is, exit code EXIT.stopped (4).
  */
 export class RunStopped extends Error {
-  /** What the run recorded up to its last accepted step (none from a study, whose runs keep nothing). */
-  record?: RunRecord;
-
-  constructor(message: string, readonly reason: 'physical' | 'work-budget', readonly tS: number, readonly detail: string) {
+  /** `record`: what the run recorded up to its last accepted step (none from a study, whose runs keep nothing). */
+  constructor(message: string, readonly reason: Exclude<StopReason, 'numerical'>, readonly tS: number, readonly detail: string,
+    readonly record?: RunRecord) {
     super(message);
   }
 }
@@ -67,9 +67,7 @@ export function runOrFail(problem: Problem, file: string) {
   if (out.status === 'cancelled') throw new Error('the run was cancelled');
   if (out.status === 'failed') {
     if (out.reason === 'numerical') throw new Error(stopSentence(out));
-    const stopped = new RunStopped(`${file}: ${stopSentence(out)}`, out.reason, out.tS, out.message);
-    stopped.record = out.record;
-    throw stopped;
+    throw new RunStopped(`${file}: ${stopSentence(out)}`, out.reason, out.tS, out.message, out.record);
   }
   return out;
 }
