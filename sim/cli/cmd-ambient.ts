@@ -56,11 +56,15 @@ function ambientText(study: ReturnType<typeof ambientStudy>, o: AmbientOptions):
     '',
     `  ambient °C   ${verdictTerms.safe_window_s.term.padEnd(26)}  binding margin             pass`,
   ];
+  // a run that did not finish is marked in the table and its reason given below it, so the columns stay aligned
+  const unfinished: string[] = [];
   for (const p of study.points) {
-    const windowText = p.error !== null ? `error: ${p.error}` : p.window_s !== null ? formatTime(p.window_s, '') : windowStatusWords[p.window_status as WindowStatus]?.label ?? '';
+    if (p.error !== null) unfinished.push(`    at ${c(p.ambient_C)}: ${p.error}`);
+    const windowText = p.error !== null ? 'did not finish (below)' : p.window_s !== null ? formatTime(p.window_s, '') : windowStatusWords[p.window_status as WindowStatus]?.label ?? '';
     const margin = p.error !== null ? '' : p.binding_layer !== null ? `${p.binding_layer} ${formatMargin(p.margin_K, noValueWords.margin_K)}` : noValueWords.margin_K;
     lines.push(`  ${formatNumber(p.ambient_C, { decimals: 1 }).padStart(10)}   ${windowText.padEnd(26)}  ${margin.padEnd(25)}  ${p.pass ? 'yes' : 'NO'}`);
   }
+  if (unfinished.length > 0) lines.push('', `  ${unfinished.length} of the ${study.points.length} runs did not finish:`, ...unfinished);
   lines.push('');
   if (study.passing.length === 0) lines.push('  both pass nowhere in this range');
   else {

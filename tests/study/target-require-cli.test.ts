@@ -99,6 +99,11 @@ describe('freezeline sweep / seek / ambient', () => {
     const j = JSON.parse(freezeline('seek', drained, '--adjust', 'ambient_C', '--min', '0', '--max', '40', '--target', 'margin_K>=10', '--json').out) as { unfinished: { value: number; error: string }[]; solves: number };
     expect(j.unfinished).toHaveLength(j.solves);
     expect(j.unfinished[0]!.value).toBe(0);
+    // ambient marks each such run in its table and gives the reasons below it, the columns kept aligned
+    const a = freezeline('ambient', drained, '--from', '0', '--to', '40', '--count', '3', '--jobs', '1');
+    expect(a.code, a.err).toBe(0);
+    expect(a.out).toMatch(/\n {9}0\.0 {3}did not finish \(below\) {5}/);
+    expect(a.out).toContain('  3 of the 3 runs did not finish:\n    at 0.0 °C: the run stopped: the heat drawn from the bottom face exceeds what the stack holds');
   });
 
   it('ambient --json lists each ambient with its verdicts and the stretches that pass', () => {
