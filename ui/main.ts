@@ -91,7 +91,7 @@ const runner = createRunner({
     performance.mark('freezeline:verdict');
     void drawn.then(() => performance.mark('freezeline:plotted'));
     // the window search (many runs) starts once the charts are drawn, in its own worker
-    void drawn.then(() => operating.request(scenario));
+    void drawn.then(() => { if (results.current()?.job === job) operating.request(scenario); });
   },
   onErrors: (errors) => {
     lastErrors = errors;
@@ -100,8 +100,18 @@ const runner = createRunner({
     if (results.current()) results.stale('Showing the last good result: the scenario as edited cannot be computed yet.');
     else results.placeholder('Nothing computed yet: fix the fields marked in red.');
   },
-  onFailed: (message) => {
+  onFailed: (message, stopped) => {
     status.set('failed', message);
+    if (stopped && isObject(stopped.scenario) && firstNonFinite(stopped.record) === undefined) {
+      // a run that stopped for a physical reason or at the ceiling: its curves up to the stop, its verdicts marked as
+      // such; no operating-duration search (its runs would stop too, each at the same cost)
+      lastErrors = [];
+      clearFieldErrors(editorRoot, generalErrors);
+      results.stale(undefined);
+      void results.show(shownResult(stopped.job, stopped.scenario as JsonObject, stopped.record, stopped.summary, undefined, { tS: stopped.tS, message }));
+      operating.clear('No operating duration: the run of this scenario stopped before its end (see the verdict).');
+      return;
+    }
     if (results.current()) results.stale('Showing the last good result: the last run did not finish.');
     else results.placeholder(`Nothing computed: ${message}`);
   },

@@ -7,6 +7,8 @@ import type { FromOperating, ToOperating } from './operating-protocol.ts';
 
 export interface OperatingRunner {
   request(scenario: unknown): void;
+  /** Stops a search still going, and drops its answer. */
+  stop(): void;
 }
 
 export function createOperatingRunner(onStart: () => void, onReply: (msg: FromOperating) => void): OperatingRunner {
@@ -40,6 +42,11 @@ export function createOperatingRunner(onStart: () => void, onReply: (msg: FromOp
       onStart();
       const msg: ToOperating = { type: 'window', job, scenario: structuredClone(scenario) };
       worker.postMessage(msg);
+    },
+    stop() {
+      if (busy && worker) { worker.terminate(); worker = undefined; }
+      busy = false;
+      job += 1;
     },
   };
 }

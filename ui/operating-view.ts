@@ -29,7 +29,7 @@ function allFinite(r: WindowReport): boolean {
   return nums.every(Number.isFinite);
 }
 
-export function createOperatingPanel(root: HTMLElement): { request: (scenario: unknown) => void } {
+export function createOperatingPanel(root: HTMLElement): { request: (scenario: unknown) => void; clear: (text: string) => void } {
   const status = h('p', { class: 'note', 'data-testid': 'operating-status', 'data-state': 'idle', 'data-job': '0' }, 'The operating duration is computed after the first run.');
   const cards = h('div', { class: 'cards' });
   const chart = h('div', { class: 'chart', 'data-testid': 'plot-operating' });
@@ -69,21 +69,29 @@ export function createOperatingPanel(root: HTMLElement): { request: (scenario: u
     }).then(() => { if (mine === drawn) setStatus('done', `${r.solves} runs in ${formatNumber(ms, { decimals: 0 })} ms`); });
   }
 
+  /** No answer for the scenario shown: the cards, details and chart go, and the status says why. */
+  const clear = (state: string, text: string): void => {
+    drawn++;
+    cards.replaceChildren();
+    details.replaceChildren();
+    chart.hidden = true;
+    setStatus(state, text);
+  };
+
   const onReply = (msg: FromOperating): void => {
     if (msg.type === 'done') {
       if (!allFinite(msg.report)) { setStatus('failed', 'internal error: the search gave a non-finite value; nothing shown'); return; }
       performance.mark('freezeline:window');
       show(msg.report, msg.words, msg.searchMs);
     } else if (msg.type === 'none') {
-      drawn++;
-      cards.replaceChildren();
-      details.replaceChildren();
-      chart.hidden = true;
-      setStatus('none', `No operating duration: ${msg.reason}.`);
+      clear('none', `No operating duration: ${msg.reason}.`);
     } else {
       setStatus('failed', `The search did not finish: ${msg.message}`);
     }
   };
   const runner = createOperatingRunner(() => { job += 1; setStatus('running', 'searching the hold times… (the answer shown is for the previous scenario)'); }, onReply);
-  return { request: (scenario) => runner.request(scenario) };
+  return {
+    request: (scenario) => runner.request(scenario),
+    clear: (text) => { runner.stop(); clear('none', text); },
+  };
 }

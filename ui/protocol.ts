@@ -16,7 +16,14 @@ export type FromWorker =
     readonly accuracy: string;
   }
   | { readonly type: 'error'; readonly job: number; readonly errors: readonly FieldError[] }
-  | { readonly type: 'failed'; readonly job: number; readonly message: string };
+  | {
+    readonly type: 'failed'; readonly job: number; readonly message: string;
+    /**
+     * A run that stopped for a physical reason or at the run-time ceiling: what it recorded up to its last step, the
+     * verdicts of that part, and the time it stopped at, s (a numerical stop or an internal error sends none).
+     */
+    readonly stopped?: { readonly record: WireRecord; readonly summary: Summary; readonly tS: number };
+  };
 
 /** A RunRecord with its ndarray map unpacked: `map.data[step * nodes + node]`, °C. */
 export interface WireRecord extends Omit<RunRecord, 'map'> {

@@ -31,9 +31,15 @@ export interface ShownResult {
   readonly areaM2: number | undefined;
   /** The accuracy the run was solved to, in words (the worker's accuracyLine); undefined where none was sent. */
   readonly accuracy?: string;
+  /**
+   * A run that stopped before its end (a physical reason or the run-time ceiling): when, and the sentence that says
+   * why. The record and the verdicts then cover the run up to that time only.
+   */
+  readonly stopped?: { readonly tS: number; readonly message: string };
 }
 
-export function shownResult(job: number, scenario: JsonObject, record: WireRecord, summary: Summary, accuracy?: string): ShownResult {
+export function shownResult(job: number, scenario: JsonObject, record: WireRecord, summary: Summary, accuracy?: string,
+  stopped?: ShownResult['stopped']): ShownResult {
   let at = 0;
   const idOf = (l: unknown, index: number): string => asString(asObject(l as JsonObject).id) ?? `layer ${index + 1}`;
   const colours = layerColours(asList(scenario.layers).map(idOf));
@@ -50,7 +56,7 @@ export function shownResult(job: number, scenario: JsonObject, record: WireRecor
   });
   const fp = asObject(scenario.footprint);
   return { job, scenario, record, summary, layers, widthMm: asNumber(fp.diameter_mm) ?? asNumber(fp.width_mm), areaM2: footprintAreaM2(scenario),
-    ...(accuracy === undefined ? {} : { accuracy }) };
+    ...(accuracy === undefined ? {} : { accuracy }), ...(stopped === undefined ? {} : { stopped }) };
 }
 
 /** Index of the recorded step nearest to t (s). */

@@ -20,7 +20,8 @@ export interface RunHandlers {
   readonly onProgress: (tS: number) => void;
   readonly onDone: (job: number, scenario: unknown, record: WireRecord, summary: Summary, solveMs: number, accuracy: string) => void;
   readonly onErrors: (errors: readonly FieldError[]) => void;
-  readonly onFailed: (message: string) => void;
+  /** `stopped`: a run that stopped before its end, with what it recorded (protocol.ts); `scenario` is the one sent. */
+  readonly onFailed: (message: string, stopped?: { readonly job: number; readonly scenario: unknown; readonly record: WireRecord; readonly summary: Summary; readonly tS: number }) => void;
   readonly onCancelled: () => void;
 }
 
@@ -77,7 +78,7 @@ export function createRunner(handlers: RunHandlers): Runner {
       case 'progress': handlers.onProgress(msg.t_s); return;
       case 'done': running = false; handlers.onDone(msg.job, sent, msg.record, msg.summary, msg.solveMs, msg.accuracy); return;
       case 'error': running = false; handlers.onErrors(msg.errors); return;
-      case 'failed': running = false; handlers.onFailed(msg.message); return;
+      case 'failed': running = false; handlers.onFailed(msg.message, msg.stopped && { ...msg.stopped, job: msg.job, scenario: sent }); return;
     }
   }
 

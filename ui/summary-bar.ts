@@ -17,9 +17,12 @@ export function renderSummaryBar(bar: HTMLElement, r: ShownResult, cautions: rea
   const v = binding === null ? undefined : s.layers[binding];
   const reached = v?.margin_K !== null && v?.margin_K !== undefined && v.margin_K <= 0;
   const item = (label: string, value: string, cls = '') => h('span', { class: `summary-item${cls}` }, h('span', { class: 'summary-label' }, label), ' ', h('strong', {}, value));
+  // a stopped run (ShownResult.stopped) has no window verdict, and an event it did not reach may lie past the stop
   const parts = [
-    item(verdictTerms.safe_window_s.term, s.safe_window_s === null ? words.label : formatTime(s.safe_window_s, words.label), s.safe_window_s === null ? ' muted' : ' good'),
-    item(verdictTerms.half_frozen_at_s.term, formatTime(s.separator.half_frozen_at_s, noValueWords.half_frozen_at_s)),
+    r.stopped ? item(verdictTerms.safe_window_s.term, `run stopped at ${formatTime(r.stopped.tS, '')}`, ' warn')
+      : item(verdictTerms.safe_window_s.term, s.safe_window_s === null ? words.label : formatTime(s.safe_window_s, words.label), s.safe_window_s === null ? ' muted' : ' good'),
+    item(verdictTerms.half_frozen_at_s.term, r.stopped && s.separator.half_frozen_at_s === null ? 'not reached'
+      : formatTime(s.separator.half_frozen_at_s, noValueWords.half_frozen_at_s)),
     binding === null || !v ? item(verdictTerms.margin_K.term, noValueWords.margin_K)
       : item(`${binding} ${verdictTerms.margin_K.term} (${reached ? marginWords.reached : marginWords.binding})`, formatMargin(v.margin_K, noValueWords.margin_K), reached ? ' warn' : ''),
     cautions.length > 0 ? h('span', { class: 'summary-item warn' }, `⚠ ${cautions.length} caution${cautions.length === 1 ? '' : 's'} for this scenario`) : undefined,

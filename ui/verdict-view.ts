@@ -17,16 +17,22 @@ type EventKey = 'molten_at_s' | 'half_frozen_at_s' | 'frozen_at_s';
 
 const sentenceCase = (line: string): string => `${line.charAt(0).toUpperCase()}${line.slice(1)}.`;
 
-function timeCard(key: EventKey, testid: string, s: Summary): HTMLElement {
+/** What a card says of an event with no time: not within the run, or not before a stopped run stopped. */
+const notReached = (stoppedS: number | undefined): string =>
+  (stoppedS === undefined ? 'does not happen within the run' : `not reached before the run stopped at ${formatTime(stoppedS, '')}`);
+
+function timeCard(key: EventKey, testid: string, s: Summary, stoppedS: number | undefined): HTMLElement {
   const value = s.separator[key];
+  // a stopped run never says "never": the event may lie past the stop
+  const shown = value === null && stoppedS !== undefined ? 'not reached' : formatTime(value, noValueWords[key]);
   return h('div', { class: `card${value === null ? ' muted' : ''}`, title: verdictTerms[key].definition },
     h('div', { class: 'card-label' }, verdictTerms[key].term),
-    h('div', { class: 'card-value' }, h('span', { 'data-testid': testid }, formatTime(value, noValueWords[key]))),
-    h('div', { class: 'card-note' }, sinceHeatOff(value, s)));
+    h('div', { class: 'card-value' }, h('span', { 'data-testid': testid }, shown)),
+    h('div', { class: 'card-note' }, sinceHeatOff(value, s, stoppedS)));
 }
 
-function sinceHeatOff(t: number | null, s: Summary): string {
-  if (t === null) return 'does not happen within the run';
+function sinceHeatOff(t: number | null, s: Summary, stoppedS: number | undefined): string {
+  if (t === null) return notReached(stoppedS);
   if (s.heat_off_s === null || t < s.heat_off_s) return 'while the heat is on';
   return `${formatTime(t - s.heat_off_s, '')} after ${verdictTerms.heat_off_s.term.replace(/ at$/, '')}`;
 }
@@ -64,18 +70,28 @@ export function renderVerdict(root: HTMLElement, cautionList: HTMLElement, r: Sh
   const cautions = scenarioCautions(r.layers, s);
   renderScenarioCautions(cautionList, cautions);
   const words = windowStatusWords[s.safe_window_status];
-  const window = h('div', { class: `card window${s.safe_window_s === null ? ' muted' : ' good'}${s.safe_window_status === 'limit-crossed' ? ' crossed' : ''}`,
-    title: verdictTerms.safe_window_s.definition },
-  h('div', { class: 'card-label' }, verdictTerms.safe_window_s.term),
-  h('div', { class: 'card-value' }, h('span', { 'data-testid': 'verdict-window' }, s.safe_window_s === null ? words.label : formatTime(s.safe_window_s, words.label))),
-  h('div', { class: 'card-note' }, words.sentence,
-    s.heat_off_s === null ? ` (${noValueWords.heat_off_s})` : ` (${verdictTerms.heat_off_s.term} ${formatTime(s.heat_off_s, '')})`));
+  const stoppedS = r.stopped?.tS;
+  // a stopped run has no window to judge: what it would be depends on the part that did not run
+  const window = r.stopped
+    ? h('div', { class: 'card window muted crossed', title: verdictTerms.safe_window_s.definition },
+      h('div', { class: 'card-label' }, verdictTerms.safe_window_s.term),
+      h('div', { class: 'card-value' }, h('span', { 'data-testid': 'verdict-window' }, 'run stopped')),
+      h('div', { class: 'card-note' }, `no verdict: the run stopped at ${formatTime(r.stopped.tS, '')}`))
+    : h('div', { class: `card window${s.safe_window_s === null ? ' muted' : ' good'}${s.safe_window_status === 'limit-crossed' ? ' crossed' : ''}`,
+      title: verdictTerms.safe_window_s.definition },
+    h('div', { class: 'card-label' }, verdictTerms.safe_window_s.term),
+    h('div', { class: 'card-value' }, h('span', { 'data-testid': 'verdict-window' }, s.safe_window_s === null ? words.label : formatTime(s.safe_window_s, words.label))),
+    h('div', { class: 'card-note' }, words.sentence,
+      s.heat_off_s === null ? ` (${noValueWords.heat_off_s})` : ` (${verdictTerms.heat_off_s.term} ${formatTime(s.heat_off_s, '')})`));
   root.replaceChildren(
+    // why the run stopped, above everything it did record
+    ...(r.stopped ? [h('p', { class: 'card-warning', role: 'alert', 'data-testid': 'verdict-stopped' },
+      `⚠ ${sentenceCase(r.stopped.message)} The cards and charts show the run up to then.`)] : []),
     h('div', { class: 'cards' },
       window,
-      timeCard('molten_at_s', 'verdict-molten-at', s),
-      timeCard('half_frozen_at_s', 'verdict-half-frozen-at', s),
-      timeCard('frozen_at_s', 'verdict-frozen-at', s)),
+      timeCard('molten_at_s', 'verdict-molten-at', s, stoppedS),
+      timeCard('half_frozen_at_s', 'verdict-half-frozen-at', s, stoppedS),
+      timeCard('frozen_at_s', 'verdict-frozen-at', s, stoppedS)),
     h('div', { class: 'cards layers' }, ...r.layers.map((l) => layerCard(r, l.id, cautions))),
     // the accuracy the event times were solved to (numerics.event_accuracy_s; the CLI prints the same line)
     ...(r.accuracy === undefined ? [] : [h('p', { class: 'note accuracy-line', 'data-testid': 'verdict-accuracy' }, sentenceCase(r.accuracy))]));

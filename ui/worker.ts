@@ -3,7 +3,7 @@
  * result. The run is synchronous; the page cancels it by terminating this worker.
  */
 import { accuracyLine, parseScenario } from '../sim/index.ts';
-import { runProblem, stopSentence } from '../sim/index.ts';
+import { runProblem, stopSentence, summarize } from '../sim/index.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
 import { toWire } from './protocol.ts';
 
@@ -41,7 +41,14 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
       post({ type: 'done', job, record: wire, summary: outcome.summary, solveMs: performance.now() - started,
         accuracy: accuracyLine(outcome.problem.numerics.accuracy) }, transfer);
     } else if (outcome.status === 'failed') {
-      post({ type: 'failed', job, message: stopSentence(outcome) });
+      if (outcome.reason === 'numerical') {
+        post({ type: 'failed', job, message: stopSentence(outcome) });
+      } else {
+        // the curves up to the stop show which layer plunged, or how far a long run came
+        const { wire, transfer } = toWire(outcome.record);
+        post({ type: 'failed', job, message: stopSentence(outcome),
+          stopped: { record: wire, summary: summarize(parsed.problem, outcome.record), tS: outcome.tS } }, transfer);
+      }
     }
   } catch (e) {
     post({ type: 'failed', job, message: `internal error: ${(e as Error).message}` });

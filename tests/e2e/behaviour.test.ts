@@ -60,9 +60,8 @@ describe('the browser view while a run is long or an input is wrong', () => {
     await page.context().close();
   });
 
-  it('a scenario that draws more heat than the stack holds stops with the physical reason, not as an internal error', async () => {
+  it('a scenario that draws more heat than the stack holds stops with the physical reason, and shows the run up to the stop', async () => {
     const page = await freshPage();
-    const halfFrozen = await text(page, 'verdict-half-frozen-at');
     // the demo with its bottom drained at 50 kW/m² from the start: the 4.5 mm stack (about 11 kJ/m²K of heat capacity)
     // would fall from 22 °C to 0 K within a minute or so
     const demo = JSON.parse(readFileSync(`${repoRoot}examples/bench-coupon.json`, 'utf8')) as Record<string, unknown>;
@@ -71,10 +70,29 @@ describe('the browser view while a run is long or an input is wrong', () => {
     await statusIs(page, 'failed');
     const detail = await page.$eval('#run-detail', (e) => e.textContent ?? '');
     expect(detail).toMatch(/^the run stopped: the heat drawn from the bottom face exceeds what the stack holds: its temperature would fall below absolute zero at t = [\d.]+ s$/);
-    // the last good result stays, marked as such
-    expect(await text(page, 'verdict-half-frozen-at')).toBe(halfFrozen);
-    expect(await page.$eval('#stale-note', (e) => (e as HTMLElement).hidden)).toBe(false);
+    const stopS = Number(/t = ([\d.]+) s$/.exec(detail)![1]);
+    // the verdict says why above what the run did record, and claims nothing past the stop
+    await page.waitForSelector('[data-testid="verdict-stopped"]');
+    expect(await text(page, 'verdict-stopped')).toContain('The run stopped: the heat drawn from the bottom face');
+    expect(await text(page, 'verdict-window')).toBe('run stopped');
+    expect(await text(page, 'verdict-half-frozen-at')).toBe('not reached');
+    // the temperature chart is this run's, up to its last accepted step before the stop (the stop time itself is
+    // interpolated inside the step that went below 0 K): a time axis in seconds that ends at or before the stop
+    await page.waitForFunction((s) => {
+      const el = document.querySelector('[data-testid="plot-temperatures"]') as (HTMLElement & { data?: { x?: number[] }[] }) | null;
+      const x = el?.data?.[0]?.x;
+      return x !== undefined && x.length > 1 && x[x.length - 1]! > 0 && x[x.length - 1]! <= s;
+    }, stopS);
+    // (a trace's y may be a typed array: Array.from makes it a list of numbers; limit lines carry nulls)
+    const coldest = await page.$eval('[data-testid="plot-temperatures"]', (el) => Math.min(...((el as HTMLElement & { data: { y?: ArrayLike<number | null> }[] }).data
+      .flatMap((t) => Array.from(t.y ?? []).filter((v): v is number => typeof v === 'number')))));
+    // the coldest cell drawn has fallen far below the 22 °C the stack started at (measured −141.6 °C at 29.9 s)
+    expect(coldest).toBeLessThan(-100);
+    // not the last good result: nothing is marked stale, and no operating-duration search runs for it
+    expect(await page.$eval('#stale-note', (e) => (e as HTMLElement).hidden)).toBe(true);
+    expect(await page.$eval('[data-testid="operating-status"]', (e) => (e as HTMLElement).dataset.state)).toBe('none');
     expect(await page.evaluate(() => document.body.innerText)).not.toMatch(/internal error|NaN/);
+    await page.screenshot({ path: `${artifacts}/view-stopped.png`, fullPage: true });
     await page.context().close();
   });
 
