@@ -49,8 +49,10 @@ export function renderLedger(root: HTMLElement, r: ShownResult): void {
 export function renderWarnings(root: HTMLElement, r: ShownResult): void {
   const items = [...r.record.warnings];
   const s = r.summary;
-  // the two statuses a user can act on, in the wording table's sentences (the CLI prints the same)
-  if (s.safe_window_status === 'still-molten-at-end' || s.safe_window_status === 'never-molten') items.push(windowStatusWords[s.safe_window_status].sentence);
+  // the two statuses a user can act on, in the wording table's sentences (the CLI prints the same); a stopped run has
+  // no window status to act on (its verdict says why it stopped)
+  const actionable = s.safe_window_status === 'still-molten-at-end' || s.safe_window_status === 'never-molten';
+  if (actionable && !r.stopped) items.push(windowStatusWords[s.safe_window_status].sentence);
   root.replaceChildren(items.length === 0 ? h('p', { class: 'note' }, 'No warnings.')
     : h('ul', { class: 'warnings' }, ...items.map((w) => h('li', {}, w))));
 }
