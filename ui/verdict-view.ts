@@ -7,7 +7,7 @@
  * `verdict-frozen-at`, `verdict-margin-<layer id>`.
  */
 import type { Summary } from '../sim/index.ts';
-import { marginWords, noValueWords, verdictTerms, windowStatusWords } from '../sim/index.ts';
+import { marginWords, noValueWords, stoppedWords, verdictTerms, windowStatusWords } from '../sim/index.ts';
 import { scenarioCautions, type Caution } from './cautions.ts';
 import { h } from './dom.ts';
 import { formatMargin, formatNumber, formatTemperature, formatTime } from './format.ts';
@@ -19,12 +19,12 @@ const sentenceCase = (line: string): string => `${line.charAt(0).toUpperCase()}$
 
 /** What a card says of an event with no time: not within the run, or not before a stopped run stopped. */
 const notReached = (stoppedS: number | undefined): string =>
-  (stoppedS === undefined ? 'does not happen within the run' : `not reached before the run stopped at ${formatTime(stoppedS, '')}`);
+  (stoppedS === undefined ? 'does not happen within the run' : `${stoppedWords.notReached} before the run stopped at ${formatTime(stoppedS, '')}`);
 
 function timeCard(key: EventKey, testid: string, s: Summary, stoppedS: number | undefined): HTMLElement {
   const value = s.separator[key];
   // a stopped run never says "never": the event may lie past the stop
-  const shown = value === null && stoppedS !== undefined ? 'not reached' : formatTime(value, noValueWords[key]);
+  const shown = value === null && stoppedS !== undefined ? stoppedWords.notReached : formatTime(value, noValueWords[key]);
   return h('div', { class: `card${value === null ? ' muted' : ''}`, title: verdictTerms[key].definition },
     h('div', { class: 'card-label' }, verdictTerms[key].term),
     h('div', { class: 'card-value' }, h('span', { 'data-testid': testid }, shown)),
@@ -75,7 +75,7 @@ export function renderVerdict(root: HTMLElement, cautionList: HTMLElement, r: Sh
   const window = r.stopped
     ? h('div', { class: 'card window muted crossed', title: verdictTerms.safe_window_s.definition },
       h('div', { class: 'card-label' }, verdictTerms.safe_window_s.term),
-      h('div', { class: 'card-value' }, h('span', { 'data-testid': 'verdict-window' }, 'run stopped')),
+      h('div', { class: 'card-value' }, h('span', { 'data-testid': 'verdict-window' }, stoppedWords.window)),
       h('div', { class: 'card-note' }, `no verdict: the run stopped at ${formatTime(r.stopped.tS, '')}`))
     : h('div', { class: `card window${s.safe_window_s === null ? ' muted' : ' good'}${s.safe_window_status === 'limit-crossed' ? ' crossed' : ''}`,
       title: verdictTerms.safe_window_s.definition },

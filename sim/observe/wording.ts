@@ -79,6 +79,16 @@ export const windowStatusWords: Readonly<Record<WindowStatus, {
     at: () => 'the separator is still at least half molten at the end of the run' },
 };
 
+/**
+ * The words for a run that stopped before its end (a physical reason or the run-time ceiling), as the view shows the
+ * part that ran: its window has no verdict, and an event it did not reach may lie past the stop, so it is never
+ * "never".
+ */
+export const stoppedWords = {
+  window: 'run stopped',
+  notReached: 'not reached',
+} as const;
+
 /** Words for a verdict that has no value (null in the result document). */
 export const noValueWords = {
   heat_off_s: 'heat stays on to the end',

@@ -5,7 +5,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { noValueWords, windowStatusWords } from '../../sim/observe/wording.ts';
+import { noValueWords, stoppedWords, windowStatusWords } from '../../sim/observe/wording.ts';
 import { artifacts, freshPage as openPage, repoRoot, startHarness, text, type Harness } from './harness.ts';
 
 let harness: Harness;
@@ -74,8 +74,8 @@ describe('the browser view while a run is long or an input is wrong', () => {
     // the verdict says why above what the run did record, and claims nothing past the stop
     await page.waitForSelector('[data-testid="verdict-stopped"]');
     expect(await text(page, 'verdict-stopped')).toContain('The run stopped: the heat drawn from the bottom face');
-    expect(await text(page, 'verdict-window')).toBe('run stopped');
-    expect(await text(page, 'verdict-half-frozen-at')).toBe('not reached');
+    expect(await text(page, 'verdict-window')).toBe(stoppedWords.window);
+    expect(await text(page, 'verdict-half-frozen-at')).toBe(stoppedWords.notReached);
     // the temperature chart is this run's, up to its last accepted step before the stop (the stop time itself is
     // interpolated inside the step that went below 0 K): a time axis in seconds that ends at or before the stop
     await page.waitForFunction((s) => {
