@@ -9,7 +9,7 @@ import { recordDefaults } from '../../sim/observe/record.ts';
 import type { InlineMaterialFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { checkScenario } from '../fuzz/check.ts';
 import { assertClose } from '../support/assert-close.ts';
-import { parseOk, runOk, scenario, toK } from '../support/scenarios.ts';
+import { drainedSlab, drainedSlabZeroKelvinS, parseOk, runOk, scenario } from '../support/scenarios.ts';
 import { runProblem, stopSentence } from '../../sim/run.ts';
 
 const salt = (latent: number, solidus = 350, liquidus = 354): InlineMaterialFile =>
@@ -91,21 +91,15 @@ describe('bounded memory', () => {
 
 describe('heat drawn beyond what the stack holds', () => {
   it('runProblem() stops a slab drained by a constant flux when its face reaches 0 K, at the time of the closed form', () => {
-    // Slab of thickness L, adiabatic on top, drained at q below. Past a few L²/α the profile is the quasi-steady
-    // parabola (Carslaw & Jaeger, Conduction of Heat in Solids, 1959, §3.8): mean T(t) = T₀ − q·t/(ρcL), face below the
-    // mean by q·L/(3k). The face reaches 0 K at t* = ρcL·(T₀ − qL/(3k))/q.
-    const rho = 8000; const c = 500; const k = 50; const L = 0.002; const q = 5000; const t0C = 20;
-    const problem = parseOk(scenario({
-      duration_s: 3600, materials: { m: { k_W_mK: k, rho_kg_m3: rho, cp_J_kgK: c } },
-      layers: [{ id: 'slab', material: 'm', thickness_mm: L * 1000 }], bottom: [{ from_s: 0, flux_W_m2: -q }], initial_C: t0C,
-    }));
+    // the closed form t* = ρcL·(T₀ − qL/(3k))/q of the quasi-steady parabola: tests/support/scenarios.ts drainedSlab()
+    const problem = parseOk(drainedSlab(3600));
     const out = runProblem(problem);
     expect(out.status).toBe('failed');
     if (out.status !== 'failed') return;
     expect(out.message).toMatch(/^the heat drawn from the bottom face exceeds what the stack holds: its temperature would fall below absolute zero at t = /);
     expect(out.reason).toBe('physical');
     expect(stopSentence(out)).toBe(`the run stopped: ${out.message}`);
-    const exact = (rho * c * L * (toK(t0C) - (q * L) / (3 * k))) / q;
+    const exact = drainedSlabZeroKelvinS();
     // the stop time is interpolated linearly inside one step, and the steps here are a few seconds: 1 %
     assertClose(out.tS, exact, { rel: 1e-2 }, 'time the bottom face reaches 0 K, s');
   });

@@ -10,6 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { assertClose } from '../support/assert-close.ts';
 import { hForEndC, slabFile } from './lumped-slab.ts';
+import { drainedSlab } from '../support/scenarios.ts';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const demo = join(root, 'examples/bench-coupon.json');
@@ -88,10 +89,7 @@ describe('freezeline sweep / seek / ambient', () => {
   it('seek says when its runs did not finish, rather than only that the target is not met', () => {
     // a 2 mm slab drained at 5 kW/m² from below stops when its face would reach 0 K (about 8 min) at every ambient
     const drained = join(work, 'drained.json');
-    writeFileSync(drained, JSON.stringify({
-      freezeline: 1, name: 'drained slab', ambient_C: 20, duration_s: 10800, materials: { m: { k_W_mK: 50, rho_kg_m3: 8000, cp_J_kgK: 500 } },
-      layers: [{ id: 'slab', material: 'm', thickness_mm: 2 }], bottom: [{ from_s: 0, flux_W_m2: -5000 }], top: [{ from_s: 0, flux_W_m2: 0 }],
-    }));
+    writeFileSync(drained, JSON.stringify(drainedSlab()));
     const r = freezeline('seek', drained, '--adjust', 'ambient_C', '--min', '0', '--max', '40', '--target', 'margin_K>=10');
     expect(r.code, r.err).toBe(0);
     expect(r.out).toContain('margin_K>=10 is not met for any ambient_C in [0, 40]: none of its runs finished');

@@ -78,6 +78,29 @@ export function slab(parts: Omit<ScenarioParts, 'materials' | 'layers'> & {
   });
 }
 
+/**
+ * A slab drained beyond what it holds: 2 mm of an invented steel-like material (k = 50 W/m·K, ρ = 8000 kg/m³,
+ * cp = 500 J/kg·K) from 20 °C, drained by q = 5 kW/m² from below, adiabatic above. Past a few L²/α the profile is the
+ * quasi-steady parabola (Carslaw & Jaeger, Conduction of Heat in Solids, 1959, §3.8): mean T(t) = T₀ − q·t/(ρcL), the
+ * face below the mean by q·L/(3k), so the face reaches 0 K at t* = ρcL·(T₀ − qL/(3k))/q (drainedSlabZeroKelvinS,
+ * 469 s). Every run of it stops for a physical reason.
+ */
+export const DRAINED_SLAB = { kWmK: 50, rhoKgM3: 8000, cpJKgK: 500, thicknessM: 0.002, fluxWm2: 5000, startC: 20 } as const;
+
+export function drainedSlab(durationS = 10_800): ScenarioFile {
+  const d = DRAINED_SLAB;
+  return slab({
+    name: 'drained slab', duration_s: durationS, initial_C: d.startC, thickness_mm: d.thicknessM * 1000,
+    material: { k_W_mK: d.kWmK, rho_kg_m3: d.rhoKgM3, cp_J_kgK: d.cpJKgK }, bottom: [{ from_s: 0, flux_W_m2: -d.fluxWm2 }],
+  });
+}
+
+/** The closed-form time at which drainedSlab()'s bottom face reaches 0 K, s (see there). */
+export function drainedSlabZeroKelvinS(): number {
+  const d = DRAINED_SLAB;
+  return (d.rhoKgM3 * d.cpJKgK * d.thicknessM * (toK(d.startC) - (d.fluxWm2 * d.thicknessM) / (3 * d.kWmK))) / d.fluxWm2;
+}
+
 /** parseScenario() that must succeed: throws with every field error otherwise. */
 export function parseOk(value: unknown): Problem {
   const parsed = parseScenario(value);

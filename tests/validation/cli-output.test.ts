@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { hazards, predictionNotCertification, verdictTerms } from '../../sim/observe/wording.ts';
+import { drainedSlab, drainedSlabZeroKelvinS } from '../support/scenarios.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const demo = join(root, 'examples/bench-coupon.json');
@@ -90,13 +91,8 @@ describe('freezeline check (the bundle)', () => {
 
   it('reports a run stopped for a physical reason in words, with exit code 4, and with --json as a stopped document', () => {
     // a 2 mm steel-like slab drained by 5 kW/m² from below, adiabatic above: its face reaches 0 K at
-    // t* = ρcL·(T₀ − qL/(3k))/q = 469 s (the quasi-steady closed form of tests/regressions/solver-robustness.test.ts),
-    // inside a 3 h run
-    const file = {
-      freezeline: 1, name: 'drained slab', ambient_C: 20, duration_s: 10800,
-      materials: { m: { k_W_mK: 50, rho_kg_m3: 8000, cp_J_kgK: 500 } },
-      layers: [{ id: 'slab', material: 'm', thickness_mm: 2 }], bottom: [{ from_s: 0, flux_W_m2: -5000 }], top: [{ from_s: 0, flux_W_m2: 0 }],
-    };
+    // t* = ρcL·(T₀ − qL/(3k))/q = 469 s (the quasi-steady closed form, tests/support/scenarios.ts drainedSlab), inside a 3 h run
+    const file = drainedSlab();
     const path = join(work, 'drained.json');
     writeFileSync(path, JSON.stringify(file));
     const words = freezeline('run', path);
@@ -122,7 +118,7 @@ describe('freezeline check (the bundle)', () => {
     expect(withCsv.code).toBe(4);
     expect(withCsv.err).toContain(`the series up to t = ${Number(t[t.length - 1]!.toPrecision(6))} s is in ${csvPath}`);
     expect(readFileSync(csvPath, 'utf8').trim().split('\n')).toHaveLength(t.length + 1);
-    expect(Math.abs(doc.stopped.t_s - 469) / 469).toBeLessThan(0.01); // measured 468.9 s
+    expect(Math.abs(doc.stopped.t_s - drainedSlabZeroKelvinS()) / drainedSlabZeroKelvinS()).toBeLessThan(0.01); // 469 s; measured 468.9 s
     // the help lists every exit code, this one with it
     const help = freezeline('--help');
     expect(help.code).toBe(0);
