@@ -12,6 +12,7 @@ import { SolveFailure } from '../study/point.ts';
 import { searchWindow, windowDefaults, type WindowReport } from '../study/window.ts';
 import { windowWords } from '../study/words.ts';
 import { predictionNotCertification } from '../observe/wording.ts';
+import { assertFinite } from '../observe/result.ts';
 import { InputError, readProblem, RunStopped } from './input.ts';
 
 interface WindowFlags { marginK: string; untilLiquid?: string; hold?: string; vary: string; json?: boolean; csv?: string }
@@ -104,7 +105,15 @@ export function registerWindow(cli: Command): void {
         if (e instanceof SolveFailure) {
           // a run of the search that stopped for a physical reason or at the ceiling ends it the same way as `run`
           const stop = e.stop;
-          if (stop && stop.reason !== 'numerical') throw new RunStopped(`${file}: ${e.message}`, stop.reason, stop.tS, stop.message);
+          if (stop && stop.reason !== 'numerical') {
+            // --json promises a document on stdout: why and where the search stopped (as `run --json` does for a run)
+            if (opts.json) {
+              const doc = { stopped: { reason: stop.reason, t_s: stop.tS, message: stop.message, vary: opts.vary, at: e.at ?? null } };
+              assertFinite(doc, 'stopped search');
+              process.stdout.write(`${JSON.stringify(doc)}\n`);
+            }
+            throw new RunStopped(`${file}: ${e.message}`, stop.reason, stop.tS, stop.message);
+          }
           throw new Error(e.message);
         }
         throw e;

@@ -59,7 +59,9 @@ export const keepsMargin = (p: Pick<WindowPoint, 'margin_K'>, requiredK: number)
  * the run stopped (none for a cancelled run).
  */
 export class SolveFailure extends Error {
-  constructor(message: string, readonly stop?: { readonly reason: StopReason; readonly tS: number; readonly message: string }) {
+  /** `at`: the value of the knob (hold in s, or the heat input's strength) whose run failed. */
+  constructor(message: string, readonly stop?: { readonly reason: StopReason; readonly tS: number; readonly message: string },
+    readonly at?: number) {
     super(message);
   }
 }
@@ -93,7 +95,7 @@ function meltReach(molten: boolean, trace: SeparatorTrace): number {
 export function evaluatePoint(problem: Problem, value: number, untilLiquid: number | null): WindowPoint {
   const out = runProblem(problem, { detail: untilLiquid === null ? 'summary' : 'full' });
   if (out.status !== 'ok') {
-    throw out.status === 'failed' ? new SolveFailure(`at ${value}, ${stopSentence(out)}`, out) : new SolveFailure(`the run at ${value} was cancelled`);
+    throw out.status === 'failed' ? new SolveFailure(`at ${value}, ${stopSentence(out)}`, out, value) : new SolveFailure(`the run at ${value} was cancelled`, undefined, value);
   }
   const { summary, record } = out;
   const sep = record.separator;

@@ -125,6 +125,27 @@ describe('freezeline check (the bundle)', () => {
     expect(help.out.replace(/\s+/g, ' ')).toContain('Exit codes: 0 done; 2 invalid input (the message names the field and the value); 3 a stated expectation or a --require condition not met; 4 the run stopped before its end, for a physical reason (heat drawn beyond what the stack holds) or at the run-time ceiling; 1 an internal failure.');
   });
 
+  it('ends a window search whose run stops for a physical reason with exit code 4, and with --json as a stopped document', () => {
+    // the drained slab of the test above, warmed from above for its first 100 s (the hold the search varies): every
+    // run of the search drains it to 0 K near t* = 469 s (the heating adds 1000 W/m² × 100 s at most, a shift < 3 %)
+    const file = { ...drainedSlab(), top: [{ from_s: 0, flux_W_m2: 1000 }, { from_s: 100, flux_W_m2: 0 }] };
+    const path = join(work, 'drained-window.json');
+    writeFileSync(path, JSON.stringify(file));
+    const json = freezeline('window', path, '--json');
+    expect(json.code).toBe(4);
+    const doc = JSON.parse(json.out) as { stopped: { reason: string; t_s: number; message: string; vary: string; at: number } };
+    expect(doc.stopped.reason).toBe('physical');
+    expect(doc.stopped.vary).toBe('time');
+    expect(doc.stopped.at).toBeGreaterThanOrEqual(0);
+    expect(doc.stopped.at).toBeLessThanOrEqual(100);
+    expect(doc.stopped.message).toMatch(/^the heat drawn from the bottom face exceeds what the stack holds/);
+    expect(Math.abs(doc.stopped.t_s - drainedSlabZeroKelvinS()) / drainedSlabZeroKelvinS()).toBeLessThan(0.03);
+    expect(json.err).toMatch(/drained-window\.json: at \d+(\.\d+)?, the run stopped: the heat drawn from the bottom face/);
+    const words = freezeline('window', path);
+    expect(words.code).toBe(4);
+    expect(words.out).toBe('');
+  });
+
   it('ships every worker entry sim/cli/*-worker.ts as its own file beside the bundle, where tinypool looks for it', () => {
     freezeline('check', demo);
     const workers = readdirSync(join(root, 'sim/cli')).filter((f) => f.endsWith('-worker.ts'));
