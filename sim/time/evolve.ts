@@ -341,8 +341,11 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       }
       const found = locateRise(trial, armed, step, gEnd, d.eventToleranceS, d.maxEventTrials, firstS);
       if (found.lastS !== found.s) trial(found.s);
+      // a crossing located at the very end of a step that lands on a breakpoint still lands there: the schedule
+      // changes at that instant as well (a heat off set to the separator's own molten time was skipped, and the heat
+      // stayed on to the end of the run: window fuzz, tests/regressions/event-at-breakpoint.test.ts)
+      landing = landing && found.s === step;
       step = found.s;
-      landing = false;
       stats.events++;
     }
     const t1 = landing ? target : timeInto(step);
