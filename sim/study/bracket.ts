@@ -111,6 +111,28 @@ export function crossings<P>(scan: readonly Sample<P>[], inside: (y: number) => 
   return found;
 }
 
+/**
+ * Each crossing with its bracket closed onto the nearest values already run (`known`, e.g. those another search's
+ * narrowing ran): walking from the outside end toward the inside end, the first known value inside the set becomes the
+ * inside end and the last one before it the outside end. No run is made; the edges only come closer to what is known,
+ * so no value that was run and found inside lies between an edge and its outside neighbour (the operating chart and
+ * the intervals agree).
+ */
+export function tighten<P>(found: readonly Crossing<P>[], known: readonly Sample<P>[], inside: (y: number) => boolean): Crossing<P>[] {
+  return found.map((c) => {
+    const up = c.inside.x > c.outside.x;
+    const between = known
+      .filter((s) => (up ? s.x > c.outside.x && s.x < c.inside.x : s.x < c.outside.x && s.x > c.inside.x))
+      .sort((a, b) => (up ? a.x - b.x : b.x - a.x));
+    let outside = c.outside;
+    for (const s of between) {
+      if (inside(s.y)) return { ...c, inside: s, outside };
+      outside = s;
+    }
+    return { ...c, outside };
+  });
+}
+
 /** The intervals of the set, from the scan's first and last samples and the crossings between them (in order). */
 export function intervals<P>(scan: readonly Sample<P>[], found: readonly Crossing<P>[], inside: (y: number) => boolean): Interval[] {
   const first = scan[0];

@@ -21,7 +21,7 @@
  */
 import type { Problem } from '../physics/problem.ts';
 import type { WindowStatus } from '../observe/verdict.ts';
-import { crossings, intervals, scanValues, type FirstTrial, type Interval, type Sample } from './bracket.ts';
+import { crossings, intervals, scanValues, tighten, type FirstTrial, type Interval, type Sample } from './bracket.ts';
 import { holdKnob, powerKnob, type Knob, type Vary } from './knob.ts';
 import { windowStatusWords } from '../observe/wording.ts';
 import { showValue } from './words.ts';
@@ -146,8 +146,10 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
   const meltEdges = knob.vary === 'time'
     ? crossings(meltScan, isMolten, samplesOf(meltY), tol, 'regula-falsi', heldUntilMolten)
     : crossings(meltScan, isMolten, samplesOf(meltY), tol, 'bisection');
-  const safe = intervals(marginScan, safeEdges, isSafe);
-  const molten = intervals(meltScan, meltEdges, isMolten);
+  // each edge closed onto the nearest values the other narrowing ran (bracket.ts tighten; no further runs)
+  const known = (f: (p: WindowPoint) => number) => [...cache.values()].map((p) => ({ x: p.value, y: f(p), point: p }));
+  const safe = intervals(marginScan, tighten(safeEdges, known(marginY), isSafe), isSafe);
+  const molten = intervals(meltScan, tighten(meltEdges, known(meltY), isMolten), isMolten);
 
   const first = scan[0]!;
   const top = scan[scan.length - 1]!;

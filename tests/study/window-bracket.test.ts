@@ -2,7 +2,7 @@
 // known exactly: a line, a cubic, a step (bisection only), and a function with two intervals.
 
 import { describe, expect, it } from 'vitest';
-import { crossings, intervals, narrow, scanValues, type Sample } from '../../sim/study/bracket.ts';
+import { crossings, intervals, narrow, scanValues, tighten, type Sample } from '../../sim/study/bracket.ts';
 import { assertClose } from '../support/assert-close.ts';
 
 /** A sampler of f that counts its calls. */
@@ -128,5 +128,37 @@ describe('crossings() and intervals()', () => {
     const none = [0, 1, 2].map((x) => ({ x, y: -1, point: null }));
     expect(intervals(none, [], positive)).toEqual([]);
     expect(intervals([], [], positive)).toEqual([]);
+  });
+});
+
+describe('tighten()', () => {
+  it('tighten() closes a crossing onto the nearest known values on either side of a step edge, without a run', () => {
+    // a yes/no step at x = 3 (inside above): narrowing from (0, 10) to 0.5 leaves some bracket around 3; values known
+    // from elsewhere at 2.9 (outside) and 3.05 (inside) are closer to the edge than its ends, 1 and 5 (outside, inside)
+    // are not
+    const step = (x: number) => (x >= 3 ? 1 : -1);
+    const s = sampler(step);
+    const c = narrow(s.sample(0), s.sample(10), positive, s.sample, 0.5, 'bisection');
+    const known = [1, 2.9, 3.05, 5].map((x) => ({ x, y: step(x), point: null }));
+    const calls = s.calls();
+    const [t] = tighten([c], known, positive);
+    expect(s.calls()).toBe(calls);
+    expect(t!.direction).toBe('enter');
+    expect(t!.inside.x).toBe(Math.min(c.inside.x, 3.05));
+    expect(t!.outside.x).toBe(Math.max(c.outside.x, 2.9));
+    expect(t!.outside.x).toBeLessThan(3);
+    expect(t!.inside.x).toBeGreaterThanOrEqual(3);
+  });
+
+  it('tighten() walks a leaving edge from its outside end, and keeps a crossing with no known value inside its bracket', () => {
+    // inside below x = 4; bracket (inside 3.8, outside 4.3); known 4.1 (outside), 3.9 (inside)
+    const f = (x: number) => 4 - x;
+    const at = (x: number): Sample<null> => ({ x, y: f(x), point: null });
+    const [t] = tighten([{ inside: at(3.8), outside: at(4.3), direction: 'leave' }], [at(3.9), at(4.1), at(7)], positive);
+    expect(t!.inside.x).toBe(3.9);
+    expect(t!.outside.x).toBe(4.1);
+    const [u] = tighten([{ inside: at(3.8), outside: at(4.3), direction: 'leave' }], [at(0), at(7)], positive);
+    expect(u!.inside.x).toBe(3.8);
+    expect(u!.outside.x).toBe(4.3);
   });
 });
