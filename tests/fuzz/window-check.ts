@@ -18,13 +18,18 @@ import { keepsMargin, SolveFailure } from '../../sim/study/point.ts';
 import { searchWindow, type WindowReport } from '../../sim/study/window.ts';
 
 /**
- * How far a margin may rise from one hold to a longer one, K: the peak temperatures carry the solver's error at the
- * default accuracy. Measured worst 0.007 K over 300 fuzzed searches (seed 3, 2026-12-04); a heat left on past its
- * hold moved it by 344 K.
+ * How far a margin may rise from one hold to a longer one, K: the peaks carry the solver's error, each step's held to
+ * tolerance_K (0.2 K at the defaults); 1 K is five times that. Measured worst 0.007 K over 300 fuzzed searches (seed 3,
+ * 2026-12-04); a heat left on past its hold made it rise by 344–6120 K.
  */
-const MARGIN_RISE_K = 0.1;
-/** How far melt_reach (spans of the latent heat) may fall from one hold to a longer one: measured worst 1.9e-4. */
-const REACH_FALL = 1e-3;
+const MARGIN_RISE_K = 1;
+/**
+ * How far melt_reach may fall from one hold to a longer one. Once molten it is the least-melted cell's highest
+ * superheat over the span of its melt, ρL for these eutectics and pure salts, so 1 K of superheat is c_p/L: at most
+ * 1/161 over the library's salts (L/c_p = 161–513 K, licl-kcl-eutectic the smallest). Measured: 1.1e-3 (0.23 K on
+ * libr-kbr-lif-eutectic, two holds 0.25 s apart next to the molten edge; seed 6 case 130).
+ */
+const REACH_FALL = 1 / 161;
 /**
  * The energy in from a constant flux against q × hold. The ledger integrates a constant by TR-BDF2's weights, exactly
  * but for round-off; what else counts as heat in is the cooling face's return while the cooled stack dips below the
