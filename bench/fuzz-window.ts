@@ -1,5 +1,5 @@
 /**
- * `npm run fuzz:window [-- --count N --seed S --save DIR]`: the long tier of the window search's fuzz. N random stacks
+ * `npm run fuzz:window [-- --count N --seed S --vary time|power --save DIR]`: the long tier of the window search's fuzz. N random stacks
  * heated once and cooled (tests/fuzz/window-arbitrary.ts) through the search's properties (tests/fuzz/window-check.ts),
  * one after another in this process; prints the count by outcome, the slowest search and its solves, and the largest
  * figures behind the allowances. Every scenario that breaks a property is written to DIR as JSON with what it broke.
@@ -20,7 +20,9 @@ const windowFuzzDefaults = {
   progressEvery: 50,
 } as const;
 
-const { values } = parseArgs({ options: { count: { type: 'string' }, seed: { type: 'string' }, save: { type: 'string' } } });
+const { values } = parseArgs({ options: { count: { type: 'string' }, seed: { type: 'string' }, save: { type: 'string' }, vary: { type: 'string' } } });
+const vary = values.vary ?? 'time';
+if (vary !== 'time' && vary !== 'power') throw new Error(`--vary: must be time or power, got ${vary}`);
 const count = Number(values.count ?? windowFuzzDefaults.count);
 const seed = Number(values.seed ?? windowFuzzDefaults.seed);
 const save = values.save ?? windowFuzzDefaults.save;
@@ -35,7 +37,7 @@ let solves = 0;
 const slowest = { ms: 0, index: -1, solves: 0 };
 const worst = { marginRiseK: -Infinity, reachFall: -Infinity, fluxEnergyRel: 0 };
 scenarios.forEach((scenario, index) => {
-  const c = checkWindow(scenario);
+  const c = checkWindow(scenario, vary);
   solves += c.solves;
   if (c.ms > slowest.ms) Object.assign(slowest, { ms: c.ms, index, solves: c.solves });
   if (c.worst) {
@@ -55,7 +57,7 @@ scenarios.forEach((scenario, index) => {
   }
 });
 const seconds = (performance.now() - start) / 1000;
-console.log(`freezeline window fuzz — ${count} searches, seed ${seed}, ${seconds.toFixed(0)} s`);
+console.log(`freezeline window fuzz — ${count} searches varying the ${vary === 'time' ? 'hold' : 'strength of the heat input'}, seed ${seed}, ${seconds.toFixed(0)} s`);
 console.log(`  ${String(ok).padStart(6)}  kept every property`);
 console.log(`  ${String(broken).padStart(6)}  broke one${broken > 0 ? ` (written to ${save})` : ''}`);
 console.log(`  runs: ${solves} in all; slowest search: case ${slowest.index}, ${slowest.ms.toFixed(0)} ms (${slowest.solves} runs)`);

@@ -40,7 +40,9 @@ export interface Interval {
 
 /** Evenly spaced values from lo to hi, both included, plus extra values; sorted, duplicates removed. */
 export function scanValues(lo: number, hi: number, count: number, extra: readonly number[] = []): number[] {
-  const xs = Array.from({ length: count }, (_, i) => (count === 1 ? lo : lo + ((hi - lo) * i) / (count - 1)));
+  // the last value is hi itself: lo + (hi − lo)·i/(count − 1) can round past hi (a plate's range in kelvin, 330.85 to
+  // 1173.15, ended on 1173.1500000000003), which a knob that checks its range then refuses
+  const xs = Array.from({ length: count }, (_, i) => (count === 1 ? lo : i === count - 1 ? hi : lo + ((hi - lo) * i) / (count - 1)));
   return [...new Set([...xs, ...extra.filter((x) => x >= lo && x <= hi)])].sort((a, b) => a - b);
 }
 

@@ -56,14 +56,14 @@ const finiteProblems = (r: WindowReport): string[] => {
   return out;
 };
 
-export function checkWindow(scenario: ScenarioFile): WindowCheck {
+export function checkWindow(scenario: ScenarioFile, vary: 'time' | 'power' = 'time'): WindowCheck {
   const parsed = parseScenario(scenario);
   if (!parsed.ok) return { problems: [`refused: ${parsed.errors.map((e) => `${e.path}: ${e.message}`).join('; ')}`], solves: 0, ms: 0 };
   const problem = parsed.problem;
   const start = performance.now();
   let result;
   try {
-    result = searchWindow(problem);
+    result = searchWindow(problem, { vary });
   } catch (e) {
     return { problems: [`threw: ${(e as Error).message}${e instanceof SolveFailure && e.stop ? ` (${e.stop.reason})` : ''}`], solves: 0, ms: performance.now() - start };
   }
@@ -99,7 +99,7 @@ export function checkWindow(scenario: ScenarioFile): WindowCheck {
   }
   const flux = scenario.bottom[0]?.flux_W_m2;
   const hold = r.shortest?.value ?? r.longest?.value;
-  if (flux !== undefined && hold !== undefined && hold > 0) {
+  if (vary === 'time' && flux !== undefined && hold !== undefined && hold > 0) {
     const knob = holdKnob(problem);
     if (typeof knob !== 'string') {
       const out = runProblem(knob.apply(hold), { detail: 'summary' });

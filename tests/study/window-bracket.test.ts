@@ -20,6 +20,18 @@ describe('scanValues()', () => {
     expect(scanValues(2, 4, 1)).toEqual([2]);
     expect(scanValues(2, 10, 5)).toEqual([2, 4, 6, 8, 10]);
   });
+
+  it('scanValues() ends on hi itself where the evenly spaced last value rounds past it', () => {
+    // a plate's range from 57.7 °C to 900 °C, in kelvin: lo + (hi − lo)·11/11 = 1173.1500000000003 in double precision,
+    // which the power knob refused as outside its range (an internal error from `window --vary power`)
+    const lo = 330.84999999999997;
+    const hi = 1173.15;
+    expect(lo + ((hi - lo) * 11) / 11).toBeGreaterThan(hi);
+    const xs = scanValues(lo, hi, 12);
+    expect(xs[0]).toBe(lo);
+    expect(xs[xs.length - 1]).toBe(hi);
+    expect(xs).toHaveLength(12);
+  });
 });
 
 describe('narrow()', () => {
