@@ -1,7 +1,7 @@
 /**
- * `npm run fuzz:window [-- --count N --seed S --vary time|power --save DIR]`: the long tier of the window search's fuzz. N random stacks
- * heated once and cooled (tests/fuzz/window-arbitrary.ts) through the search's properties (tests/fuzz/window-check.ts),
- * one after another in this process; prints the count by outcome, the slowest search and its solves, and the largest
+ * `npm run fuzz:window [-- --count N --seed S --vary time|power --save DIR]`: the long tier of the window search's
+ * fuzz. N random stacks heated once and cooled (tests/fuzz/window-arbitrary.ts) through the search's properties
+ * (tests/fuzz/window-check.ts), searching the hold or the heat input's strength, one after another in this process; prints the count by outcome, the slowest search and its solves, and the largest
  * figures behind the allowances. Every scenario that breaks a property is written to DIR as JSON with what it broke.
  * Bundled by esbuild before it runs (package.json). Figures only: it asserts nothing.
  */

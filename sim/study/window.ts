@@ -147,7 +147,7 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
     ? crossings(meltScan, isMolten, samplesOf(meltY), tol, 'regula-falsi', heldUntilMolten)
     : crossings(meltScan, isMolten, samplesOf(meltY), tol, 'bisection');
   // each edge closed onto the nearest values the other narrowing ran (bracket.ts tighten; no further runs)
-  const known = (f: (p: WindowPoint) => number) => [...cache.values()].map((p) => ({ x: p.value, y: f(p), point: p }));
+  const known = (f: (p: WindowPoint) => number) => [...cache.keys()].map(samplesOf(f));
   const safe = intervals(marginScan, tighten(safeEdges, known(marginY), isSafe), isSafe);
   const molten = intervals(meltScan, tighten(meltEdges, known(meltY), isMolten), isMolten);
 
