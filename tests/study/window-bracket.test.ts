@@ -160,6 +160,12 @@ describe('tighten()', () => {
     expect(t!.outside.x).toBe(Math.max(c.outside.x, 2.9));
     expect(t!.outside.x).toBeLessThan(3);
     expect(t!.inside.x).toBeGreaterThanOrEqual(3);
+    // the same values in any order; and a known value beyond the bracket's inside end is not the edge
+    const [r] = tighten([c], [...known].reverse(), positive);
+    expect([r!.outside.x, r!.inside.x]).toEqual([t!.outside.x, t!.inside.x]);
+    const [v] = tighten([c], [5, 2.9].map((x) => ({ x, y: step(x), point: null })), positive);
+    expect(v!.inside.x).toBe(c.inside.x);
+    expect(v!.outside.x).toBe(Math.max(c.outside.x, 2.9));
   });
 
   it('tighten() walks a leaving edge from its outside end, and keeps a crossing with no known value inside its bracket', () => {
