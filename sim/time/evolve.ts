@@ -28,7 +28,7 @@ import { beginPlateStage, createPlateControl } from './plates.ts';
 import type { FixedStepping } from './step-control.ts';
 import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
 import { leavesBounds, stepBounds } from './step-bounds.ts';
-import { belowAbsoluteZeroStop, budgetMessage, budgetSpent, heldBackSentence, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
+import { belowAbsoluteZeroStop, budgetMessage, budgetSpent, heldBackSentence, switchingSentence, coldestK, faceBelowAbsoluteZero, smallestRelaxationS, stepGuardDefaults } from './step-guards.ts';
 
 export const evolveDefaults = {
   /**
@@ -265,7 +265,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     const timeInto = (s: number): number => (fine ? t + (lo + s) : t + s);
     if (budgetSpent(grid.n, stats.steps + stats.rejected, stats.newtonIterations, ceiling)) {
       const cellsOf = problem.layers.map((_, l) => grid.layerEnd[l]! - grid.layerStart[l]!);
-      const heldBack = heldBackSentence(problem.layers.map((l) => l.id), cellsOf, rejectedBy, rejectedMelting, stats.rejected);
+      const heldBack = switchingSentence(stats.events, stats.steps, t) +
+        heldBackSentence(problem.layers.map((l) => l.id), cellsOf, rejectedBy, rejectedMelting, stats.rejected);
       return { status: 'failed', reason: 'work-budget', message: budgetMessage(grid.n, stats.steps + stats.rejected, stats.newtonIterations, t, durationS, ceiling, heldBack), tS: t, stats };
     }
     // at the floor the step is taken whatever the error estimate says (see step-guards.ts)

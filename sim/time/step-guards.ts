@@ -39,6 +39,12 @@ export const stepGuardDefaults = {
    */
   maxCellSteps: 5e7,
   /**
+   * A run stopped at the ceiling after at least this many state events landed on, and as many as a fifth of its steps,
+   * says the switching held it back (switchingSentence): a run with a thermostat switches about once a minute to once
+   * a second (the examples: 1907 in an hour at most), a separator melts and freezes a few times.
+   */
+  switchingEvents: 5000,
+  /**
    * The run-time ceiling, cells × Newton sweeps (every sweep of every trial: accepted, rejected, or locating a state
    * event). Per simulated second: a run of n cells over D s may average 1e8/(n·D) cell-sweeps per second of simulated
    * time. A run needing more ends with a message naming the ceiling and what to change. It is set in seconds: a sweep
@@ -145,8 +151,21 @@ export function heldBackSentence(layerIds: readonly string[], layerCells: readon
 }
 
 /**
- * The message for a run that has used its work budget (budgetSpent), naming the ceiling that bound, and the layer
- * that held the steps back when one did (heldBackSentence).
+ * The sentence of the ceiling's message that names frequent switching, or '' when the state events landed on (a
+ * thermostat's switches, the separator's melt and freeze) were fewer than a fifth of the accepted steps or fewer than
+ * stepGuardDefaults.switchingEvents. An on-off thermostat whose plate crosses its band in milliseconds switches every
+ * few milliseconds, and each switch is a step landed on (a 0.01 K band on heater-plate-lift-off.json: 94 000 switches
+ * in an hour, 5 s; a 0.7 K band on a 1.9 mm insulating-board plate under 1 MW/m²: 200 a second).
+ */
+export function switchingSentence(events: number, steps: number, tS: number): string {
+  if (events < stepGuardDefaults.switchingEvents || 5 * events < steps) return '';
+  return `The heat switched ${events} times before then (a thermostat crossing its band), every ${formatTime(tS / events)} s on average: ` +
+    'widen band_K, give the heater a heavier plate or less power_W, or use control kind "pi". ';
+}
+
+/**
+ * The message for a run that has used its work budget (budgetSpent), naming the ceiling that bound, and what held the
+ * steps back when something did: frequent switching (switchingSentence), a layer (heldBackSentence).
  */
 export function budgetMessage(cells: number, trials: number, sweeps: number, tS: number, durationS: number,
   maxCellSweeps: number = stepGuardDefaults.maxCellSweeps, heldBack = ''): string {

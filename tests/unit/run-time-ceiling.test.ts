@@ -12,8 +12,9 @@ import { scenarioLimitDefaults as LIMIT } from '../../sim/scenario/scenario-limi
 import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { runProblem, stopSentence } from '../../sim/run.ts';
 import { evolveDefaults } from '../../sim/time/evolve.ts';
-import { budgetMessage, budgetSpent, heldBackSentence, stepGuardDefaults as GUARD } from '../../sim/time/step-guards.ts';
+import { budgetMessage, budgetSpent, heldBackSentence, switchingSentence, stepGuardDefaults as GUARD } from '../../sim/time/step-guards.ts';
 import demo from '../../examples/bench-coupon.json' with { type: 'json' };
+import heaterDemo from '../../examples/heater-plate-lift-off.json' with { type: 'json' };
 import { parseOk, PLAIN, scenario } from '../support/scenarios.ts';
 
 /** One 10 mm layer of an invented material (40 cells at the default 4 cells/mm), held hot below, cooled above. */
@@ -117,6 +118,14 @@ describe('the ceiling mid-run', () => {
     expect(heldBackSentence(ids, cells, Uint32Array.of(0, 0, 0), Uint32Array.of(0, 0, 0), 0)).toBe('');
     expect(budgetMessage(2000, 4000, 50_000, 8.75, 78, 1e8, 'X. ')).toContain('about 10 s). X. Use fewer cells');
   });
+
+  it('switchingSentence() names frequent switching only when the events are many and a fifth of the steps or more', () => {
+    expect(switchingSentence(GUARD.switchingEvents, 5 * GUARD.switchingEvents, 50)).toBe(`The heat switched ${GUARD.switchingEvents} times before ` +
+      'then (a thermostat crossing its band), every 0.01 s on average: widen band_K, give the heater a heavier plate or less power_W, or use ' +
+      'control kind "pi". ');
+    expect(switchingSentence(GUARD.switchingEvents - 1, GUARD.switchingEvents, 50)).toBe('');
+    expect(switchingSentence(GUARD.switchingEvents, 5 * GUARD.switchingEvents + 1, 50)).toBe('');
+  });
 });
 
 describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)', () => {
@@ -149,5 +158,23 @@ describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)'
     expect(held, out.message).not.toBeNull();
     expect(Number(held![2])).toBe(out.stats.rejected);
     expect(2 * Number(held![1])).toBeGreaterThanOrEqual(out.stats.rejected);
+  });
+
+  it('runProblem() stopped at a ceiling while a thermostat with a 0.001 K band switches says so, with how often', () => {
+    // heater-plate-lift-off.json with its 5 K band narrowed to 0.001 K: its 11.8 J/K stainless plate (8000 kg/m³ ×
+    // 500 J/(kg·K) × 6 mm × 491 mm²) crosses the band in 0.08 ms at 150 W, so the thermostat switches every few
+    // milliseconds once at its set-point (measured: 167 958 switches in the hour, which it finishes in 8.6 s); a ceiling
+    // of 4e6 cell-sweeps stops it among them
+    const file = structuredClone(heaterDemo) as unknown as ScenarioFile;
+    const heater = file.bottom[0]!.heater!;
+    (heater.control as { band_K: number }).band_K = 0.001;
+    const out = runProblem(parseOk(file), { maxCellSweeps: 4e6 });
+    expect(out.status).toBe('failed');
+    if (out.status !== 'failed') return;
+    expect(out.stats.events).toBeGreaterThanOrEqual(GUARD.switchingEvents);
+    const said = /The heat switched (\d+) times before then \(a thermostat crossing its band\), every ([0-9.e-]+) s on average: widen band_K/.exec(out.message);
+    expect(said, out.message).not.toBeNull();
+    expect(Number(said![1])).toBe(out.stats.events);
+    expect(Number(said![2])).toBeLessThan(0.1);
   });
 });
