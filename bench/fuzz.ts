@@ -1,7 +1,7 @@
 /**
- * `npm run fuzz [-- --count N --seed S --timeout-s T --threads J --save DIR]`: runs N random valid scenarios
- * (tests/fuzz/arbitrary.ts) through the fuzz properties (tests/fuzz/check.ts) on worker threads, each with a time and
- * a heap limit, and prints the count by outcome, the slowest case and its time, and the peak memory. Every scenario
+ * `npm run fuzz [-- --count N --seed S --timeout-s T --threads J --save DIR --bodies]`: runs N random valid
+ * scenarios (tests/fuzz/arbitrary.ts; with --bodies, heater bodies, benches and side walls: tests/fuzz/body-arbitrary.ts)
+ * through the fuzz properties (tests/fuzz/check.ts) on worker threads, each with a time and a heap limit, and prints the count by outcome, the slowest case and its time, and the peak memory. Every scenario
  * that breaks a property, stops at the run-time ceiling, times out or runs out of memory is written to DIR as JSON, with
  * the property it broke.
  * Bundled by esbuild before it runs (package.json), like the benchmark. Figures only: it asserts nothing.
@@ -11,6 +11,7 @@ import { parseArgs } from 'node:util';
 import fc from 'fast-check';
 import { Tinypool } from 'tinypool';
 import { scenarioArbitrary } from '../tests/fuzz/arbitrary.ts';
+import { bodyScenarios } from '../tests/fuzz/body-arbitrary.ts';
 import type { FuzzReply, FuzzTask } from './fuzz-worker.ts';
 
 const fuzzDefaults = {
@@ -31,7 +32,7 @@ const fuzzDefaults = {
 const { values } = parseArgs({
   options: {
     count: { type: 'string' }, seed: { type: 'string' }, 'timeout-s': { type: 'string' },
-    threads: { type: 'string' }, save: { type: 'string' },
+    threads: { type: 'string' }, save: { type: 'string' }, bodies: { type: 'boolean' },
   },
 });
 const count = Number(values.count ?? fuzzDefaults.count);
@@ -43,7 +44,8 @@ for (const [name, v] of [['--count', count], ['--seed', seed], ['--timeout-s', t
   if (!Number.isFinite(v) || v < 0) { console.error(`${name}: expected a number ≥ 0, got ${String(v)}`); process.exit(2); }
 }
 
-const scenarios = fc.sample(scenarioArbitrary, { seed, numRuns: count });
+// --bodies: heater bodies, benches and side walls (tests/fuzz/body-arbitrary.ts) instead of the full-range stacks
+const scenarios = fc.sample(values.bodies ? bodyScenarios : scenarioArbitrary, { seed, numRuns: count });
 const pool = new Tinypool({
   filename: new URL('./fuzz-worker.js', import.meta.url).href,
   minThreads: threads, maxThreads: threads,
@@ -107,7 +109,7 @@ await Promise.all(Array.from({ length: Math.max(1, threads) }, async () => {
 await pool.destroy();
 
 const seconds = (performance.now() - started) / 1000;
-console.log(`freezeline fuzz — ${count} scenarios, seed ${seed}, ${threads} thread(s), ${seconds.toFixed(0)} s`);
+console.log(`freezeline fuzz — ${count} ${values.bodies ? 'body ' : ''}scenarios, seed ${seed}, ${threads} thread(s), ${seconds.toFixed(0)} s`);
 for (const [key, n] of [...counts].sort((a, b) => b[1] - a[1])) console.log(`  ${String(n).padStart(6)}  ${key}`);
 console.log(`  slowest: case ${slowest.index}, ${slowest.ms.toFixed(0)} ms (${slowest.cells} cells, ${slowest.steps} steps)`);
 console.log(`  peak memory: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB resident (process), ${heapPeakMb.toFixed(0)} MB heap after a case (worker)`);

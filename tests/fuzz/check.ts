@@ -50,8 +50,9 @@ const MAX_PRINCIPLE_SHARE = 0.1;
 function bounds(s: ScenarioFile): [number, number] | undefined {
   const temps = [s.initial_C ?? s.ambient_C, s.ambient_C];
   for (const seg of [...s.bottom, ...s.top]) {
-    if ((seg.flux_W_m2 ?? 0) !== 0 || (seg.power_W ?? 0) !== 0) return undefined;
-    for (const t of [seg.fixed_C, seg.fluid_C, seg.surroundings_C, seg.plate?.temperature_C]) if (t !== undefined) temps.push(t);
+    // a heater body is heat input whatever its control (body-arbitrary.ts draws them)
+    if ((seg.flux_W_m2 ?? 0) !== 0 || (seg.power_W ?? 0) !== 0 || seg.heater !== undefined) return undefined;
+    for (const t of [seg.fixed_C, seg.fluid_C, seg.surroundings_C, seg.plate?.temperature_C, seg.bench?.start_C]) if (t !== undefined) temps.push(t);
   }
   for (const l of s.layers) if (l.source_W_m3 !== undefined) return undefined;
   return [Math.min(...temps), Math.max(...temps)];
