@@ -1,9 +1,9 @@
 /**
  * `npm run fuzz [-- --count N --seed S --timeout-s T --threads J --save DIR --bodies]`: runs N random valid
  * scenarios (tests/fuzz/arbitrary.ts; with --bodies, heater bodies, benches and side walls: tests/fuzz/body-arbitrary.ts)
- * through the fuzz properties (tests/fuzz/check.ts) on worker threads, each with a time and a heap limit, and prints the count by outcome, the slowest case and its time, and the peak memory. Every scenario
- * that breaks a property, stops at the run-time ceiling, times out or runs out of memory is written to DIR as JSON, with
- * the property it broke.
+ * through the fuzz properties (tests/fuzz/check.ts) on worker threads, each with a time and a heap limit, and prints
+ * the count by outcome, the slowest case and its time, and the peak memory. Every scenario that breaks a property,
+ * stops at the run-time ceiling, times out or runs out of memory is written to DIR as JSON, with the property it broke.
  * Bundled by esbuild before it runs (package.json), like the benchmark. Figures only: it asserts nothing.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
