@@ -159,7 +159,7 @@ export function heldBackSentence(layerIds: readonly string[], layerCells: readon
  */
 export function switchingSentence(events: number, steps: number, tS: number): string {
   if (events < stepGuardDefaults.switchingEvents || 5 * events < steps) return '';
-  return `The heat switched ${events} times before then (a thermostat crossing its band), every ${formatTime(tS / events)} s on average: ` +
+  return `The heat switched ${events} times before then (a thermostat crossing its band), every ${Number((tS / events).toPrecision(2))} s on average: ` +
     'widen band_K, give the heater a heavier plate or less power_W, or use control kind "pi". ';
 }
 
