@@ -113,26 +113,40 @@ export function crossings<P>(scan: readonly Sample<P>[], inside: (y: number) => 
   return found;
 }
 
+/** One response for completeEdges(): how a run becomes a sample, which samples are in the set, how to narrow. */
+export interface EdgeResponse<P> {
+  readonly sample: (x: number) => Sample<P>;
+  readonly inside: (y: number) => boolean;
+  readonly method: NarrowMethod;
+}
+
 /**
- * Each crossing with its bracket closed onto the nearest values already run (`known`, e.g. those another search's
- * narrowing ran): walking from the outside end toward the inside end, the first known value inside the set becomes the
- * inside end and the last one before it the outside end. No run is made; the edges only come closer to what is known,
- * so no value that was run and found inside lies between an edge and its outside neighbour (the operating chart and
- * the intervals agree).
+ * The crossings of each response between neighbouring values run so far (`values()`, sorted, read afresh after each
+ * narrowing), every one narrowed to tol: a change between two neighbours further apart than tol (a stretch that one
+ * response's narrowing ran into, between scan values where the other agreed) is narrowed, and the values are read
+ * again, until none is left. The result has one list per response, in order; each crossing's ends are neighbouring
+ * values run, so no run lies between an edge and its other side.
  */
-export function tighten<P>(found: readonly Crossing<P>[], known: readonly Sample<P>[], inside: (y: number) => boolean): Crossing<P>[] {
-  return found.map((c) => {
-    const up = c.inside.x > c.outside.x;
-    const between = known
-      .filter((s) => (up ? s.x > c.outside.x && s.x < c.inside.x : s.x < c.outside.x && s.x > c.inside.x))
-      .sort((a, b) => (up ? a.x - b.x : b.x - a.x));
-    let outside = c.outside;
-    for (const s of between) {
-      if (inside(s.y)) return { ...c, inside: s, outside };
-      outside = s;
+export function completeEdges<P>(values: () => readonly number[], responses: readonly EdgeResponse<P>[], tol: number): Crossing<P>[][] {
+  const changes = (r: EdgeResponse<P>): [Sample<P>, Sample<P>][] => {
+    const xs = values().map(r.sample);
+    const out: [Sample<P>, Sample<P>][] = [];
+    for (let i = 1; i < xs.length; i++) if (r.inside(xs[i - 1]!.y) !== r.inside(xs[i]!.y)) out.push([xs[i - 1]!, xs[i]!]);
+    return out;
+  };
+  for (let wide = true; wide;) {
+    wide = false;
+    for (const r of responses) {
+      for (const [a, b] of changes(r)) {
+        if (b.x - a.x <= tol) continue;
+        narrow(a, b, r.inside, r.sample, tol, r.method);
+        wide = true;
+      }
     }
-    return { ...c, outside };
-  });
+  }
+  return responses.map((r) => changes(r).map(([a, b]): Crossing<P> => (r.inside(a.y)
+    ? { inside: a, outside: b, direction: 'leave' }
+    : { inside: b, outside: a, direction: 'enter' })));
 }
 
 /** The intervals of the set, from the scan's first and last samples and the crossings between them (in order). */

@@ -21,7 +21,7 @@
  */
 import type { Problem } from '../physics/problem.ts';
 import type { WindowStatus } from '../observe/verdict.ts';
-import { crossings, intervals, scanValues, tighten, type FirstTrial, type Interval, type Sample } from './bracket.ts';
+import { completeEdges, crossings, intervals, scanValues, type Crossing, type FirstTrial, type Interval, type Sample } from './bracket.ts';
 import { holdKnob, powerKnob, type Knob, type Vary } from './knob.ts';
 import { windowStatusWords } from '../observe/wording.ts';
 import { showValue } from './words.ts';
@@ -140,16 +140,27 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
   };
 
   const scan = scanValues(knob.lo, knob.hi, count, [knob.own]).map(pointAt);
+  // the value asked for is run first, so the intervals below account for it like every other run
+  if (at !== undefined) pointAt(at);
   const marginScan = scan.map((p) => samplesOf(marginY)(p.value));
   const meltScan = scan.map((p) => samplesOf(meltY)(p.value));
-  const safeEdges = crossings(marginScan, isSafe, samplesOf(marginY), tol);
-  const meltEdges = knob.vary === 'time'
-    ? crossings(meltScan, isMolten, samplesOf(meltY), tol, 'regula-falsi', heldUntilMolten)
-    : crossings(meltScan, isMolten, samplesOf(meltY), tol, 'bisection');
-  // each edge closed onto the nearest values the other narrowing ran (bracket.ts tighten; no further runs)
-  const known = (f: (p: WindowPoint) => number) => [...cache.keys()].map(samplesOf(f));
-  const safe = intervals(marginScan, tighten(safeEdges, known(marginY), isSafe), isSafe);
-  const molten = intervals(meltScan, tighten(meltEdges, known(meltY), isMolten), isMolten);
+  crossings(marginScan, isSafe, samplesOf(marginY), tol);
+  if (knob.vary === 'time') crossings(meltScan, isMolten, samplesOf(meltY), tol, 'regula-falsi', heldUntilMolten);
+  else crossings(meltScan, isMolten, samplesOf(meltY), tol, 'bisection');
+  // every change between neighbouring runs is an edge: one that a narrowing ran into between two scan values that
+  // agree (a stretch narrower than the scan spacing) is narrowed too, until every edge is within the tolerance, so
+  // the intervals agree with every run made (bracket.ts completeEdges)
+  const [safeEdges, meltEdges] = completeEdges(
+    () => [...cache.keys()].sort((a, b) => a - b),
+    [
+      { sample: samplesOf(marginY), inside: isSafe, method: 'regula-falsi' },
+      { sample: samplesOf(meltY), inside: isMolten, method: knob.vary === 'time' ? 'regula-falsi' : 'bisection' },
+    ],
+    tol,
+  ) as [Crossing<WindowPoint>[], Crossing<WindowPoint>[]];
+  const all = [...cache.keys()].sort((a, b) => a - b);
+  const safe = intervals(all.map(samplesOf(marginY)), safeEdges, isSafe);
+  const molten = intervals(all.map(samplesOf(meltY)), meltEdges, isMolten);
 
   const first = scan[0]!;
   const top = scan[scan.length - 1]!;

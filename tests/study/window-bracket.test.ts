@@ -2,7 +2,7 @@
 // known exactly: a line, a cubic, a step (bisection only), and a function with two intervals.
 
 import { describe, expect, it } from 'vitest';
-import { crossings, intervals, narrow, scanValues, tighten, type Sample } from '../../sim/study/bracket.ts';
+import { completeEdges, crossings, intervals, narrow, scanValues, type Sample } from '../../sim/study/bracket.ts';
 import { assertClose } from '../support/assert-close.ts';
 
 /** A sampler of f that counts its calls. */
@@ -143,40 +143,58 @@ describe('crossings() and intervals()', () => {
   });
 });
 
-describe('tighten()', () => {
-  it('tighten() closes a crossing onto the nearest known values on either side of a step edge, without a run', () => {
-    // a yes/no step at x = 3 (inside above): narrowing from (0, 10) to 0.5 leaves some bracket around 3; values known
-    // from elsewhere at 2.9 (outside) and 3.05 (inside) are closer to the edge than its ends, 1 and 5 (outside, inside)
-    // are not
-    const step = (x: number) => (x >= 3 ? 1 : -1);
-    const s = sampler(step);
-    const c = narrow(s.sample(0), s.sample(10), positive, s.sample, 0.5, 'bisection');
-    const known = [1, 2.9, 3.05, 5].map((x) => ({ x, y: step(x), point: null }));
-    const calls = s.calls();
-    const [t] = tighten([c], known, positive);
-    expect(s.calls()).toBe(calls);
-    expect(t!.direction).toBe('enter');
-    expect(t!.inside.x).toBe(Math.min(c.inside.x, 3.05));
-    expect(t!.outside.x).toBe(Math.max(c.outside.x, 2.9));
-    expect(t!.outside.x).toBeLessThan(3);
-    expect(t!.inside.x).toBeGreaterThanOrEqual(3);
-    // the same values in any order; and a known value beyond the bracket's inside end is not the edge
-    const [r] = tighten([c], [...known].reverse(), positive);
-    expect([r!.outside.x, r!.inside.x]).toEqual([t!.outside.x, t!.inside.x]);
-    const [v] = tighten([c], [5, 2.9].map((x) => ({ x, y: step(x), point: null })), positive);
-    expect(v!.inside.x).toBe(c.inside.x);
-    expect(v!.outside.x).toBe(Math.max(c.outside.x, 2.9));
+describe('completeEdges()', () => {
+  /** Two responses over one shared set of runs (as the window search's margin and melt share its cache). */
+  function shared(f: (x: number) => number, g: (x: number) => number) {
+    const runs = new Set<number>();
+    let calls = 0;
+    const run = (x: number) => { if (!runs.has(x)) { runs.add(x); calls++; } };
+    const sampleF = (x: number): Sample<null> => { run(x); return { x, y: f(x), point: null }; };
+    const sampleG = (x: number): Sample<null> => { run(x); return { x, y: g(x), point: null }; };
+    return { runs, sampleF, sampleG, calls: () => calls, values: () => [...runs].sort((p, q) => p - q) };
+  }
+
+  it('completeEdges() narrows each response\'s change between scan values to the tolerance, the ends neighbouring runs', () => {
+    // f inside above 3, g inside above 7, a scan of 0, 5, 10
+    const s = shared((x) => x - 3, (x) => x - 7);
+    for (const x of [0, 5, 10]) s.sampleF(x);
+    const [ef, eg] = completeEdges(s.values, [
+      { sample: s.sampleF, inside: positive, method: 'regula-falsi' },
+      { sample: s.sampleG, inside: positive, method: 'bisection' },
+    ], 0.25);
+    expect(ef).toHaveLength(1);
+    expect(eg).toHaveLength(1);
+    expect(ef![0]!.direction).toBe('enter');
+    expect(ef![0]!.outside.x).toBeLessThanOrEqual(3);
+    expect(ef![0]!.inside.x).toBeGreaterThan(3);
+    expect(ef![0]!.inside.x - ef![0]!.outside.x).toBeLessThanOrEqual(0.25);
+    expect(eg![0]!.outside.x).toBeLessThanOrEqual(7);
+    expect(eg![0]!.inside.x).toBeGreaterThan(7);
+    expect(eg![0]!.inside.x - eg![0]!.outside.x).toBeLessThanOrEqual(0.25);
+    // neighbours: no run lies strictly between an edge's two ends
+    for (const c of [ef![0]!, eg![0]!]) {
+      const [lo, hi] = [Math.min(c.inside.x, c.outside.x), Math.max(c.inside.x, c.outside.x)];
+      expect(s.values().filter((x) => x > lo && x < hi)).toEqual([]);
+    }
   });
 
-  it('tighten() walks a leaving edge from its outside end, and keeps a crossing with no known value inside its bracket', () => {
-    // inside below x = 4; bracket (inside 3.8, outside 4.3); known 4.1 (outside), 3.9 (inside)
-    const f = (x: number) => 4 - x;
-    const at = (x: number): Sample<null> => ({ x, y: f(x), point: null });
-    const [t] = tighten([{ inside: at(3.8), outside: at(4.3), direction: 'leave' }], [at(3.9), at(4.1), at(7)], positive);
-    expect(t!.inside.x).toBe(3.9);
-    expect(t!.outside.x).toBe(4.1);
-    const [u] = tighten([{ inside: at(3.8), outside: at(4.3), direction: 'leave' }], [at(0), at(7)], positive);
-    expect(u!.inside.x).toBe(3.8);
-    expect(u!.outside.x).toBe(4.3);
+  it('completeEdges() finds and narrows a stretch narrower than the scan that the other response\'s narrowing ran into', () => {
+    // f inside on (4, 6) only, which the scan 0, 10 misses (outside at both); g inside above 5: g's bisection from
+    // (0, 10) runs 5 first, inside f's stretch, and f's two edges are then narrowed from there
+    const s = shared((x) => (x > 4 && x < 6 ? 1 : -1), (x) => x - 5);
+    for (const x of [0, 10]) s.sampleF(x);
+    const [ef, eg] = completeEdges(s.values, [
+      { sample: s.sampleF, inside: positive, method: 'bisection' },
+      { sample: s.sampleG, inside: (y) => y >= 0, method: 'bisection' },
+    ], 0.1);
+    expect(eg).toHaveLength(1);
+    expect(ef!.map((c) => c.direction)).toEqual(['enter', 'leave']);
+    assertClose(ef![0]!.inside.x, 4, { abs: 0.1 }, 'stretch start');
+    assertClose(ef![1]!.inside.x, 6, { abs: 0.1 }, 'stretch end');
+    const set = intervals(s.values().map((x) => ({ x, y: (x > 4 && x < 6 ? 1 : -1), point: null })), ef!, positive);
+    expect(set).toHaveLength(1);
+    expect(set[0]!.from).toBe(ef![0]!.inside.x);
+    expect(set[0]!.to).toBe(ef![1]!.inside.x);
   });
 });
+
