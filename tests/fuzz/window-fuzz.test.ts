@@ -20,7 +20,8 @@ describe('fuzzed operating-duration searches', () => {
   it(`searchWindow() reports one safe and one molten interval that agree with every run it made, the comparison principle along the holds, and the heat off where the hold says (${RUNS} stacks)`, () => {
     fc.assert(
       fc.property(windowScenarios, (scenario) => {
-        const { problems } = checkWindow(scenario);
+        const { problems, stopped } = checkWindow(scenario);
+        if (stopped !== undefined) throw new Error(`a run stopped: ${stopped}`);
         if (problems.length > 0) throw new Error(problems.slice(0, 5).join('\n'));
         return true;
       }),
@@ -32,7 +33,8 @@ describe('fuzzed operating-duration searches', () => {
     // a hotter plate or a larger flux is a larger boundary input at every instant: the same comparison principle
     fc.assert(
       fc.property(windowScenarios, (scenario) => {
-        const { problems } = checkWindow(scenario, 'power');
+        const { problems, stopped } = checkWindow(scenario, 'power');
+        if (stopped !== undefined) throw new Error(`a run stopped: ${stopped}`);
         if (problems.length > 0) throw new Error(problems.slice(0, 5).join('\n'));
         return true;
       }),
