@@ -26,6 +26,7 @@ import { evalTableWithSlope } from './table.ts';
 import type { FootprintMm } from './problem.ts';
 import { mmToM, STEFAN_BOLTZMANN_W_M2K4 } from './units.ts';
 import { verticalPlateAt } from './vertical-plate.ts';
+import { createLazyTable, readLazyTable, type LazyTable } from './lazy-table.ts';
 
 export const edgeLossDefaults = {
   /**
@@ -168,56 +169,22 @@ export function sideLoss(loss: EdgeLoss, tK: number, out: Float64Array): number 
   return (tK - ts) * conductance;
 }
 
-/** The table of one edge term: node k at k·tableStepK kelvin; q and dq/dT there, NaN until filled. */
-interface SideTable {
-  readonly q: Float64Array;
-  readonly dq: Float64Array;
-}
-
 /** One table per edge term, shared by every run of the same problem (a window search's runs); values only. */
-const tables = new WeakMap<EdgeLoss, SideTable>();
-const nodeOut = new Float64Array(2);
-
-function tableOf(loss: EdgeLoss): SideTable {
-  let t = tables.get(loss);
-  if (!t) {
-    const nodes = Math.ceil(edgeLossDefaults.tableTopK / edgeLossDefaults.tableStepK) + 1;
-    t = { q: new Float64Array(nodes).fill(NaN), dq: new Float64Array(nodes) };
-    tables.set(loss, t);
-  }
-  return t;
-}
-
-/** Fills node k of the table with the exact sideLoss() from a fixed start (so a node's value is the same whoever fills it). */
-function fillNode(loss: EdgeLoss, t: SideTable, k: number): void {
-  nodeOut[1] = NaN;
-  t.q[k] = sideLoss(loss, k * edgeLossDefaults.tableStepK, nodeOut);
-  t.dq[k] = nodeOut[0]!;
-}
+const tables = new WeakMap<EdgeLoss, LazyTable>();
 
 /**
- * sideLoss() read from the edge term's table (see edgeLossDefaults.tableStepK): cubic Hermite between the exact values
- * and slopes at the two nodes around tK, with the interpolant's own slope in out[0], so Newton sees the derivative of
- * what it solves. Near the ambient and beyond the table, the exact form. Leaves out[1] as it was (no warm start needed).
+ * sideLoss() read from the edge term's table (lazy-table.ts; edgeLossDefaults.tableStepK): cubic Hermite between the
+ * exact values and slopes at the nodes around tK, the interpolant's own slope in out[0]. Near the ambient and beyond
+ * the table, the exact form. Leaves out[1] as it was (no warm start needed).
  */
 export function sideLossTabled(loss: EdgeLoss, tK: number, out: Float64Array): number {
-  const d = edgeLossDefaults;
-  const x = tK / d.tableStepK;
-  const k = Math.floor(x);
-  const t = tableOf(loss);
-  if (!(Math.abs(tK - loss.ambientK) > d.tableNearAmbientK && k >= 0 && k + 1 < t.q.length)) return sideLoss(loss, tK, out);
-  if (Number.isNaN(t.q[k]!)) fillNode(loss, t, k);
-  if (Number.isNaN(t.q[k + 1]!)) fillNode(loss, t, k + 1);
-  const s = x - k;
-  const h = d.tableStepK;
-  const q0 = t.q[k]!;
-  const q1 = t.q[k + 1]!;
-  const m0 = h * t.dq[k]!;
-  const m1 = h * t.dq[k + 1]!;
-  const s2 = s * s;
-  const r = 1 - s;
-  out[0] = ((6 * s2 - 6 * s) * (q0 - q1) + (3 * s2 - 4 * s + 1) * m0 + (3 * s2 - 2 * s) * m1) / h;
-  return (1 + 2 * s) * r * r * q0 + s * r * r * m0 + s2 * (3 - 2 * s) * q1 + s2 * (s - 1) * m1;
+  let t = tables.get(loss);
+  if (!t) {
+    const d = edgeLossDefaults;
+    t = createLazyTable({ stepK: d.tableStepK, topK: d.tableTopK, centreK: loss.ambientK, nearK: d.tableNearAmbientK }, (x, o) => sideLoss(loss, x, o));
+    tables.set(loss, t);
+  }
+  return readLazyTable(t, tK, out);
 }
 
 /**
