@@ -9,7 +9,7 @@ import { libraryMaterial, libraryNames } from '../../sim/scenario/library.ts';
 import type { FaceSegmentFile, InlineMaterialFile, LayerFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 
 /** Values with three significant digits, so a reproducer reads as data. */
-const round = (v: number): number => Number(v.toPrecision(3));
+export const round = (v: number): number => Number(v.toPrecision(3));
 /** Temperatures to 0.01 K, so the rows of a table stay strictly increasing after rounding. */
 const roundT = (v: number): number => Math.round(v * 100) / 100;
 /**
@@ -17,17 +17,19 @@ const roundT = (v: number): number => Math.round(v * 100) / 100;
  * tiny: through exp() nearly every draw became 1, so 90 % of scenarios were 1 s long with 1 mm layers.)
  */
 const FRACTION_STEPS = 2 ** 30;
-const fraction = fc.integer({ min: 0, max: FRACTION_STEPS }).map((i) => i / FRACTION_STEPS);
+export const fraction = fc.integer({ min: 0, max: FRACTION_STEPS }).map((i) => i / FRACTION_STEPS);
 /** A log-uniform number in [lo, hi]. */
-const logRange = (lo: number, hi: number) => fraction.map((f) => round(lo * (hi / lo) ** f));
+export const logRange = (lo: number, hi: number) => fraction.map((f) => round(lo * (hi / lo) ** f));
 /** A uniform number in [lo, hi]. */
-const range = (lo: number, hi: number) => fraction.map((f) => {
+export const range = (lo: number, hi: number) => fraction.map((f) => {
   const v = lo + (hi - lo) * f;
   return Math.abs(v) < 1e-6 ? 0 : round(v);
 });
 
 const library = libraryNames();
 const libraryMelting = library.filter((name) => libraryMaterial(name)?.melt !== undefined);
+/** Library salts that melt, the separators of window-arbitrary.ts and body-arbitrary.ts. */
+export const librarySalts = libraryMelting.filter((n) => /eutectic|^kcl$|^licl$/.test(n));
 
 type Property = InlineMaterialFile['k_W_mK'];
 

@@ -6,21 +6,13 @@
 // 5–100 mm disc, 300–7200 s, ambient −40 to 60 °C. Every draw is valid; the data are invented and describe no real rig.
 
 import fc from 'fast-check';
+import { fraction, librarySalts, logRange, range, round } from './arbitrary.ts';
 import { libraryMaterial, libraryNames } from '../../sim/scenario/library.ts';
 import type { FaceSegmentFile, HeaterFile, LayerFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 
 const library = libraryNames();
 /** Library materials that do not melt: plates, benches and sleeves must stay solid (validation refuses the others). */
 const solids = library.filter((n) => libraryMaterial(n)?.melt === undefined);
-/** Library salts that melt: the separators. */
-const salts = library.filter((n) => libraryMaterial(n)?.melt !== undefined && /eutectic|^kcl$|^licl$/.test(n));
-
-/** Values with three significant digits, so a reproducer reads as data. */
-const round = (v: number): number => Number(v.toPrecision(3));
-const FRACTION_STEPS = 2 ** 30;
-const fraction = fc.integer({ min: 0, max: FRACTION_STEPS }).map((i) => i / FRACTION_STEPS);
-const logRange = (lo: number, hi: number) => fraction.map((f) => round(lo * (hi / lo) ** f));
-const range = (lo: number, hi: number) => fraction.map((f) => round(lo + (hi - lo) * f));
 
 const sensor = fc.constantFrom('plate', 'separator', 'below0');
 const control: fc.Arbitrary<HeaterFile['control']> = fc.oneof(
@@ -63,7 +55,7 @@ const edges = fc.record({
 export const bodyScenarios: fc.Arbitrary<ScenarioFile> = fc.record({
   below: fc.array(fc.tuple(fc.constantFrom(...library), logRange(0.1, 10)), { minLength: 1, maxLength: 2 }),
   above: fc.array(fc.tuple(fc.constantFrom(...library), logRange(0.1, 10)), { maxLength: 2 }),
-  salt: fc.constantFrom(...salts),
+  salt: fc.constantFrom(...librarySalts),
   saltMm: logRange(0.1, 10),
   diameterMm: logRange(5, 100),
   heater,

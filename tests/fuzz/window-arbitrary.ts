@@ -11,19 +11,11 @@
 // the hold grows: the safe holds and the molten holds are each one interval (window-check.ts).
 
 import fc from 'fast-check';
-import { libraryMaterial, libraryNames } from '../../sim/scenario/library.ts';
+import { librarySalts, logRange, range, round } from './arbitrary.ts';
+import { libraryNames } from '../../sim/scenario/library.ts';
 import type { FaceSegmentFile, LayerFile, ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 
 const library = libraryNames();
-/** Library salts that melt: the separators (a separator must melt). */
-const salts = library.filter((n) => libraryMaterial(n)?.melt !== undefined && /eutectic|^kcl$|^licl$/.test(n));
-
-/** Values with three significant digits, so a reproducer reads as data. */
-const round = (v: number): number => Number(v.toPrecision(3));
-const FRACTION_STEPS = 2 ** 30;
-const fraction = fc.integer({ min: 0, max: FRACTION_STEPS }).map((i) => i / FRACTION_STEPS);
-const logRange = (lo: number, hi: number) => fraction.map((f) => round(lo * (hi / lo) ** f));
-const range = (lo: number, hi: number) => fraction.map((f) => round(lo + (hi - lo) * f));
 
 const heating: fc.Arbitrary<Omit<FaceSegmentFile, 'from_s'>> = fc.oneof(
   fc.record({ plate: fc.record({ temperature_C: range(200, 1000), conductance_W_m2K: logRange(50, 5000) }) }),
@@ -36,7 +28,7 @@ const passiveTop: fc.Arbitrary<Omit<FaceSegmentFile, 'from_s'>> = fc.oneof(still
 export const windowScenarios: fc.Arbitrary<ScenarioFile> = fc.record({
   below: fc.array(fc.tuple(fc.constantFrom(...library), logRange(0.1, 10)), { maxLength: 2 }),
   above: fc.array(fc.tuple(fc.constantFrom(...library), logRange(0.1, 10)), { maxLength: 2 }),
-  salt: fc.constantFrom(...salts),
+  salt: fc.constantFrom(...librarySalts),
   saltMm: logRange(0.1, 10),
   contact: fc.oneof(fc.constant(0), logRange(1e-5, 1e-2)),
   diameterMm: logRange(5, 100),
