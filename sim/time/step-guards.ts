@@ -41,7 +41,7 @@ export const stepGuardDefaults = {
   /**
    * A run stopped at the ceiling after at least this many state events landed on, and as many as a fifth of its steps,
    * says the switching held it back (switchingSentence): a run with a thermostat switches about once a minute to once
-   * a second (the examples: 1907 in an hour at most), a separator melts and freezes a few times.
+   * a second (the examples: 289 in an hour at most, described-rig.json), a separator melts and freezes a few times.
    */
   switchingEvents: 5000,
   /**
@@ -154,7 +154,7 @@ export function heldBackSentence(layerIds: readonly string[], layerCells: readon
  * The sentence of the ceiling's message that names frequent switching, or '' when the state events landed on (a
  * thermostat's switches, the separator's melt and freeze) were fewer than a fifth of the accepted steps or fewer than
  * stepGuardDefaults.switchingEvents. An on-off thermostat whose plate crosses its band in milliseconds switches every
- * few milliseconds, and each switch is a step landed on (a 0.01 K band on heater-plate-lift-off.json: 94 000 switches
+ * few milliseconds, and each switch is a step landed on (a 0.01 K band on heater-plate-lift-off.json: 94 481 events
  * in an hour, 5 s; a 0.7 K band on a 1.9 mm insulating-board plate under 1 MW/m²: 200 a second).
  */
 export function switchingSentence(events: number, steps: number, tS: number): string {
