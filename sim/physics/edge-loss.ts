@@ -171,20 +171,30 @@ export function sideLoss(loss: EdgeLoss, tK: number, out: Float64Array): number 
 
 /** One table per edge term, shared by every run of the same problem (a window search's runs); values only. */
 const tables = new WeakMap<EdgeLoss, LazyTable>();
+/** The last edge term read and its table: a problem has one, so the lookup per cell and sweep is a comparison. */
+let lastLoss: EdgeLoss | undefined;
+let lastTable: LazyTable | undefined;
 
-/**
- * sideLoss() read from the edge term's table (lazy-table.ts; edgeLossDefaults.tableStepK): cubic Hermite between the
- * exact values and slopes at the nodes around tK, the interpolant's own slope in out[0]. Near the ambient and beyond
- * the table, the exact form. Leaves out[1] as it was (no warm start needed).
- */
-export function sideLossTabled(loss: EdgeLoss, tK: number, out: Float64Array): number {
+function tableOf(loss: EdgeLoss): LazyTable {
   let t = tables.get(loss);
   if (!t) {
     const d = edgeLossDefaults;
     t = createLazyTable({ stepK: d.tableStepK, topK: d.tableTopK, centreK: loss.ambientK, nearK: d.tableNearAmbientK }, (x, o) => sideLoss(loss, x, o));
     tables.set(loss, t);
   }
-  return readLazyTable(t, tK, out);
+  lastLoss = loss;
+  lastTable = t;
+  return t;
+}
+
+/**
+ * sideLoss() read from the edge term's table (lazy-table.ts; edgeLossDefaults.tableStepK): cubic Hermite between the
+ * exact values and slopes at the nodes around tK, the interpolant's own slope in out[0]. Near the ambient and beyond
+ * the table, the exact form itself, which also moves the sleeve surface's warm start in out[1]; elsewhere out[1] is
+ * left as it was.
+ */
+export function sideLossTabled(loss: EdgeLoss, tK: number, out: Float64Array): number {
+  return readLazyTable(loss === lastLoss ? lastTable! : tableOf(loss), tK, out);
 }
 
 /**

@@ -6,8 +6,9 @@
  * the exact form is used. Between kinks the error is Δ⁴/384·|q''''| (de Boor, A Practical Guide to Splines, 2001,
  * ch. IV); at a kink of q's slope (a piecewise-linear property table inside q) it is first order in Δ.
  *
- * For the heat-transfer correlations the solver calls at every cell or face and every Newton sweep (edge-loss.ts,
- * faces.ts): each exact evaluation reads air properties and takes fractional powers.
+ * For a heat-transfer correlation the solver calls at every cell and every Newton sweep (edge-loss.ts, the side
+ * walls): each exact evaluation reads air properties and takes fractional powers. (The faces' still-air convection
+ * was tried through it and not taken: DEVELOPERS.md, Side walls.)
  */
 
 export interface LazyTableSpec {

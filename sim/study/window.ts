@@ -150,17 +150,17 @@ export function searchWindow(problem: Problem, options: WindowOptions = {}): Win
   // every change between neighbouring runs is an edge: one that a narrowing ran into between two scan values that
   // agree (a stretch narrower than the scan spacing) is narrowed too, until every edge is within the tolerance, so
   // the intervals agree with every run made (bracket.ts completeEdges)
+  const runs = () => [...cache.keys()].sort((a, b) => a - b);
   const [safeEdges, meltEdges] = completeEdges(
-    () => [...cache.keys()].sort((a, b) => a - b),
+    runs,
     [
       { sample: samplesOf(marginY), inside: isSafe, method: 'regula-falsi' },
       { sample: samplesOf(meltY), inside: isMolten, method: knob.vary === 'time' ? 'regula-falsi' : 'bisection' },
     ],
     tol,
   ) as [Crossing<WindowPoint>[], Crossing<WindowPoint>[]];
-  const all = [...cache.keys()].sort((a, b) => a - b);
-  const safe = intervals(all.map(samplesOf(marginY)), safeEdges, isSafe);
-  const molten = intervals(all.map(samplesOf(meltY)), meltEdges, isMolten);
+  const safe = intervals(runs().map(samplesOf(marginY)), safeEdges, isSafe);
+  const molten = intervals(runs().map(samplesOf(meltY)), meltEdges, isMolten);
 
   const first = scan[0]!;
   const top = scan[scan.length - 1]!;
