@@ -3,10 +3,12 @@
  * into the plate, J/m² of footprint) and the plate's stored heat, the time a heater was under the stack and the heat
  * it could have given in that time at full power (the duty cycle is their ratio), and for each recorded row the power
  * during the step that ended there (W) and the plate temperature (K; NaN while no heater is under the stack: a plate
- * that has been lifted off is not followed).
+ * that has been lifted off is not followed). A thermostat held in its band (time/plates.ts) is a warning: when it began
+ * and for how long.
  */
 import type { StepObservation } from '../physics/observation.ts';
 import type { Problem } from '../physics/problem.ts';
+import { heldThermostatDefaults } from '../physics/heater.ts';
 
 export interface HeaterRecord {
   /** Power (W) and plate temperature (°C; NaN where no heater is under the stack), one per recorded row. */
@@ -17,6 +19,18 @@ export interface HeaterRecord {
   readonly fullPowerJ: number;
   /** Highest plate temperature reached, K (−∞ if none). */
   readonly plateMaxK: number;
+  /** Time a thermostat was held in its band, s, and the start of the first step so held (NaN: never). */
+  readonly heldS: number;
+  readonly heldFromS: number;
+}
+
+/** The warning for a thermostat held in its band (time/plates.ts; physics/heater.ts heldThermostatDefaults), or undefined when none was. */
+export function heldWarning(r: HeaterRecord): string | undefined {
+  if (!(r.heldS > 0)) return undefined;
+  const g = heldThermostatDefaults;
+  return `the heater's thermostat switched ${g.heldSwitches} times within ${g.heldWithinS} s by t = ${Number(r.heldFromS.toPrecision(4))} s, ` +
+    `too fast to follow one switch at a time: for ${Number(r.heldS.toPrecision(3))} s of the run its plate was held in the middle of its band, ` +
+    'at the mean power of the switching (a wider band_K or a heavier plate shows each switch)';
 }
 
 /** Whether any face segment of the problem is a heater. */
@@ -28,6 +42,8 @@ export function createHeaterRecorder() {
   let attachedS = 0;
   let fullPowerJ = 0;
   let plateMaxK = -Infinity;
+  let heldS = 0;
+  let heldFromS = NaN;
   /** The values for the latest row: power W, plate K. */
   const latest = { powerW: 0, plateK: NaN };
 
@@ -46,6 +62,10 @@ export function createHeaterRecorder() {
       fullPowerJ += dt * c.heater.powerWPerM2;
       latest.powerW += p.powerW;
       latest.plateK = p.plateK;
+      if (p.held) {
+        heldS += dt;
+        if (Number.isNaN(heldFromS)) heldFromS = obs.t0;
+      }
       plateMaxK = Math.max(plateMaxK, latest.plateK);
     }
   }
@@ -54,6 +74,6 @@ export function createHeaterRecorder() {
     ledger,
     latest,
     onStep,
-    finish: (powerW: Float64Array, plateC: Float64Array): HeaterRecord => ({ powerW, plateC, attachedS, fullPowerJ, plateMaxK }),
+    finish: (powerW: Float64Array, plateC: Float64Array): HeaterRecord => ({ powerW, plateC, attachedS, fullPowerJ, plateMaxK, heldS, heldFromS }),
   };
 }

@@ -20,7 +20,7 @@ import type { SeparatorTrace } from './record-trace.ts';
 import { createTraceRecorder } from './record-trace.ts';
 import { RowStore } from './row-store.ts';
 import type { HeaterRecord } from './record-heater.ts';
-import { createHeaterRecorder, hasHeater } from './record-heater.ts';
+import { createHeaterRecorder, hasHeater, heldWarning } from './record-heater.ts';
 import { kToC, mToMm } from '../physics/units.ts';
 
 export type { SeparatorTrace } from './record-trace.ts';
@@ -307,6 +307,9 @@ export function createRecorder(problem: Problem, layout: ObservationLayout, opti
     if (separator && !separator.exact) {
       warnings.push(`the separator crossed its melt and freeze levels more than ${recordDefaults.heldCrossings} times; event times after that are interpolated between kept points`);
     }
+    const heaterRecord = heater?.finish(column(heaterAt), column(heaterAt + 1));
+    const held = heaterRecord ? heldWarning(heaterRecord) : undefined;
+    if (held) warnings.push(held);
     return {
       detail,
       tS: column(0),
@@ -322,7 +325,7 @@ export function createRecorder(problem: Problem, layout: ObservationLayout, opti
       probes: { xMm: probeX, tS: probeTimesSeen, tC: probeT },
       energy: { ...energy, ...(edges ? edgeEnergy : {}), ...heater?.ledger, storedJ: storedEnd - storedStart + (heater?.ledger.plateStoredJ ?? 0) },
       warnings,
-      ...(heater ? { heater: heater.finish(column(heaterAt), column(heaterAt + 1)) } : {}),
+      ...(heaterRecord ? { heater: heaterRecord } : {}),
     };
   }
 

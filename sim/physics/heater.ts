@@ -7,7 +7,8 @@
  * plate's Biot number h·t/k is small, which a metal plate a few millimetres thick meets).
  *
  * Each implicit stage of the time step reads c′·(T_p − b) = d·h·f(T_p, T_face), with b known from earlier stages. With
- * p fixed over the step (it changes only at state events) this is linear in T_p, so T_p is eliminated per stage:
+ * p fixed over the step (it changes only at state events; a thermostat held in its band is the exception, plateStage)
+ * this is linear in T_p, so T_p is eliminated per stage:
  *   T_p = (c′·b + d·h·(p + G_c·T_face + h_loss·T_∞)) / (c′ + d·h·(G_c + h_loss))
  * and the face sees q(T_face) = G_c·(T_p − T_face), dq/dT_face = G_c·(d·h·G_c/(c′ + d·h·(G_c + h_loss)) − 1).
  * The tridiagonal structure and the exact energy ledger of the stack are kept; T_p is recovered after each stage.
@@ -45,6 +46,18 @@ export type HeaterControl =
       readonly sensor: HeaterSensor;
     };
 
+export const heldThermostatDefaults = {
+  /**
+   * An on-off thermostat that reads its plate is held in its band (time/plates.ts) once it has switched heldSwitches
+   * times within heldWithinS: ten cycles of 0.1 s or less, a fifth of the 0.5 s to which the separator's events are
+   * asked by default (scenario/accuracy.ts), and 72 000 located switches an hour if followed one by one.
+   */
+  heldSwitches: 20,
+  heldWithinS: 1,
+  /** Width of the held law as a share of the band, centred on its middle: the plate stays within 5 % of the band of there. */
+  heldWidthShare: 0.1,
+} as const;
+
 /** One point of the set-point schedule: linear between points (ramps), held before the first and after the last. */
 export interface SetPoint {
   readonly atS: number;
@@ -76,12 +89,26 @@ export interface PlateNode {
   /** Stage constants: the explicit part b (K) and the stage's effective step d·h (s); d·h = 0 balances the face only. */
   b: number;
   hd: number;
-  /** Power over the footprint during the current step, W/m². */
+  /**
+   * Power over the footprint during the current step, W/m². While the thermostat is held in its band (`held`), the
+   * power at the step's start: the law's value there.
+   */
   powerWPerM2: number;
+  /**
+   * Whether an on-off thermostat that cycles too fast to follow is replaced by its mean (time/plates.ts): the power
+   * then follows the plate's temperature within the step, p = P_max·clamp((T_none − T_p)/(T_none − T_full), 0, 1),
+   * full below T_full and none above T_none (`heldPowerWPerM2`).
+   */
+  held: boolean;
+  /** The law's two knees at the current stage's time, K (read only while held). */
+  fullBelowK: number;
+  noneAboveK: number;
+  /** Start of the current step, s (time/plates.ts sets it; the stages read the set-point at their own time). */
+  t0S: number;
 }
 
 export function createPlateNode(tK: number): PlateNode {
-  return { tK, b: tK, hd: 0, powerWPerM2: 0 };
+  return { tK, b: tK, hd: 0, powerWPerM2: 0, held: false, fullBelowK: NaN, noneAboveK: NaN, t0S: 0 };
 }
 
 /** The set-point at time tS, K: linear between points, held outside them. */
@@ -99,20 +126,45 @@ export function setPointAt(points: readonly SetPoint[], tS: number): number {
   return points[points.length - 1]!.tK;
 }
 
-/** The plate temperature that solves the current stage for a face at faceK, K. */
-export function plateStageTemperature(h: Heater, node: PlateNode, faceK: number): number {
+/** The held thermostat's power at plate temperature plateK between the knees fullBelowK < noneAboveK, W/m². */
+export function heldPowerWPerM2(h: Heater, plateK: number, fullBelowK: number, noneAboveK: number): number {
+  if (plateK <= fullBelowK) return h.powerWPerM2;
+  if (plateK >= noneAboveK) return 0;
+  return (h.powerWPerM2 * (noneAboveK - plateK)) / (noneAboveK - fullBelowK);
+}
+
+/**
+ * The plate temperature that solves the current stage for a face at faceK, K; writes dT_p/dT_face to out[0].
+ * With the power fixed over the step the stage is linear in T_p (the header). Held in its band, the power falls
+ * linearly from P_max at T_full to 0 at T_none, so the stage c′·(T_p − b) = d·h·(p(T_p) + G_c·(T_face − T_p) −
+ * h_loss·(T_p − T_∞)) is piecewise linear, its left side rising and its right side falling with T_p: one root, on the
+ * piece whose own solution lies on it (full power, none, or the slope between).
+ */
+export function plateStage(h: Heater, node: PlateNode, faceK: number, out: Float64Array): number {
   const c = h.capacityJPerM2K;
   const d = node.hd;
-  return (c * node.b + d * (node.powerWPerM2 + h.contactWPerM2K * faceK + h.lossWPerM2K * h.lossToK))
-    / (c + d * (h.contactWPerM2K + h.lossWPerM2K));
+  const g = h.contactWPerM2K;
+  const open = c + d * (g + h.lossWPerM2K);
+  if (!node.held) {
+    out[0] = (d * g) / open;
+    return (c * node.b + d * (node.powerWPerM2 + g * faceK + h.lossWPerM2K * h.lossToK)) / open;
+  }
+  const known = c * node.b + d * (g * faceK + h.lossWPerM2K * h.lossToK);
+  const full = (known + d * h.powerWPerM2) / open;
+  if (full <= node.fullBelowK) { out[0] = (d * g) / open; return full; }
+  const none = known / open;
+  if (none >= node.noneAboveK) { out[0] = (d * g) / open; return none; }
+  const slope = h.powerWPerM2 / (node.noneAboveK - node.fullBelowK);
+  out[0] = (d * g) / (open + d * slope);
+  return (known + d * slope * node.noneAboveK) / (open + d * slope);
 }
 
 /** Heat into the face from the plate in the current stage, W/m²; writes dq/dT_face to out[0]. Allocates nothing. */
 export function plateHeatIn(h: Heater, node: PlateNode, faceK: number, out: Float64Array): number {
   const g = h.contactWPerM2K;
-  const d = node.hd;
-  out[0] = g * ((d * g) / (h.capacityJPerM2K + d * (g + h.lossWPerM2K)) - 1);
-  return g * (plateStageTemperature(h, node, faceK) - faceK);
+  const plateK = plateStage(h, node, faceK, out);
+  out[0] = g * (out[0]! - 1);
+  return g * (plateK - faceK);
 }
 
 /** The plate's net heat rate per footprint area, W/m², given the heat q it passes into the face. */

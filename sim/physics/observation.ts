@@ -71,6 +71,8 @@ export interface PlateChannel {
   /** Power during the step, W, and the plate temperature at its end, K. */
   readonly powerW: number;
   readonly plateK: number;
+  /** Whether its thermostat was held in its band over the step, at the mean power of its switching (time/plates.ts). */
+  readonly held: boolean;
 }
 
 /** The heat of the step by channel, J/m² (positive: into the stack). */
@@ -106,4 +108,4 @@ export interface StepObservation {
 }
 
 /** A plate channel with nothing in it (no heater behind the face). */
-export const NO_PLATE: PlateChannel = { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN };
+export const NO_PLATE: PlateChannel = { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false };

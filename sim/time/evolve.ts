@@ -23,7 +23,7 @@ import { acceptStep, STAGE_FRACTION, stepFaceEnergy, takeStep, WEIGHTS } from '.
 import type { StateSwitch } from './events.ts';
 import { createEventWatch, locateRise, parabolaRoot } from './events.ts';
 import { separatorSwitch } from './separator-events.ts';
-import type { PlateStep } from './plates.ts';
+import type { PlateControlOptions, PlateStep } from './plates.ts';
 import { beginPlateStage, createPlateControl } from './plates.ts';
 import type { FixedStepping } from './step-control.ts';
 import { growthFactor, noRejectedTrial, retryStepS } from './step-control.ts';
@@ -75,7 +75,7 @@ export const evolveDefaults = {
  */
 export type Stepping = { readonly kind: 'adaptive' } | FixedStepping;
 
-export interface EvolveOptions {
+export interface EvolveOptions extends PlateControlOptions {
   /** Default adaptive. A fixed step (s) still lands on every breakpoint. */
   readonly stepping?: Stepping;
   /**
@@ -168,7 +168,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const breaks = breakpoints(problem);
   const source = new Float64Array(grid.n);
 
-  const plates = createPlateControl(problem, grid, ws);
+  const plates = createPlateControl(problem, grid, ws, options);
   // with adaptive steps the separator's melt and freeze are landed on (separator-events.ts); a fixed step keeps its
   // uniform sequence (the convergence study), and the recorder places those events inside a step
   const separator = stepping.kind === 'adaptive' ? separatorSwitch(problem, grid) : undefined;
@@ -277,6 +277,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     // overshot (a 1 µm layer under a face switched from 273 °C to −60 °C reached −102 °C: fuzz seed 9 case 179)
     let euler = backwardEuler || atFloor;
     line.cond = cond;
+    plates.startStep(t);
     takeStep(line, buf, step, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
     if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {
@@ -358,7 +359,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       return { status: 'failed', ...belowAbsoluteZeroStop(problem, ws, cond, buf.q1, at), tS: at, stats };
     }
     stats.steps++;
-    plates.commit(step, euler ? eulerWeights : WEIGHTS, buf.qg, buf.q1, buf.Ug, buf.U1, plateSteps);
+    plates.commit(step, euler ? eulerWeights : WEIGHTS, buf.q0, buf.qg, buf.q1, buf.Ug, buf.U1, plateSteps);
     // on a heater face what leaves the body (stack + plate) is the plate's loss; its heat into the face is internal
     const faceJ = (side: 0 | 1): number => ((side === 0 ? cond.bottom : cond.top).kind === 'heater'
       ? -plateSteps[side].lossJ : stepFaceEnergy(buf, side, step, euler));

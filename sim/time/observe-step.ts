@@ -44,8 +44,8 @@ export function createStepObserver(problem: Problem, grid: Grid): StepObserver {
     ...l, temperatureK: empty, enthalpy: empty, stageEnthalpy: empty, startHeatRate: empty, stageHeatRate: empty,
   }));
   const plates: [Writable<PlateChannel>, Writable<PlateChannel>] = [
-    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN },
-    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN },
+    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false },
+    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false },
   ];
   const energy: Writable<EnergyChannels> = { bottomJ: 0, topJ: 0, generatedJ: 0, edgesJ: 0, plates };
   const bottom: Writable<FaceSample> = { temperatureK: NaN, condition: conditionAt(problem.bottom, 0) };
@@ -99,12 +99,14 @@ export function createStepObserver(problem: Problem, grid: Grid): StepObserver {
         p.storedJ = 0;
         p.powerW = c.kind === 'heater' ? node.powerWPerM2 * c.heater.areaM2 : 0;
         p.plateK = node.tK;
+        p.held = false;
       } else {
         const s = step.plates[side];
         p.heaterJ = s.heaterJ;
         p.storedJ = s.storedJ;
         p.powerW = s.powerW;
         p.plateK = s.plateK;
+        p.held = s.held;
       }
     }
     return obs;

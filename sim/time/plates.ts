@@ -7,15 +7,33 @@
  * T_1 = A·T_g − B·T_0 + d·h·f_1/c′ (tr-bdf2.ts). So c′·(T_1 − T_0) = h·Σ w_i·f_i with the method's own weights, and
  * the plate's ledger — electric heat in = heat passed to the face + heat lost + heat stored — closes exactly, with f_i
  * built from the face heat q_i the stack itself books.
+ *
+ * An on-off thermostat on a light plate can cross its band in milliseconds, and every switch is a step landed on: an
+ * hour of such a run is hundreds of thousands of switches, more than the run-time ceiling allows (step-guards.ts).
+ * Once the thermostat has switched `heldThermostatDefaults.heldSwitches` times within `heldWithinS` (ten cycles of at most
+ * 0.1 s each), it is held in its band: the relay's cycles are replaced by their mean. A relay plate swings as a
+ * sawtooth between the two levels, whose mean is the middle of the band wherever both ramps are straight over a cycle
+ * (the cycle far shorter than the plate's and the face's time constants: the limit of a fast relay, Filippov's sliding
+ * mode, e.g. Utkin, Sliding Modes in Control and Optimization, 1992, §2.3). Held, the power follows the plate's
+ * temperature within each stage, from P_max at the middle − w/2 to 0 at the middle + w/2, w = heldWidthShare × band:
+ * the plate stays within w/2 of the middle at any duty, and the power is the mean the relay would deliver. The stage
+ * stays one root per plate (physics/heater.ts plateStage), and the ledger stays exact: the heater's heat over a step is
+ * what the plate's stages balance. The thermostat lets go when the plate has stayed out of the band for longer than
+ * heldWithinS (below set-point − band, where the relay is on, or above the set-point, where it is off: a set-point
+ * dropped below the plate, a load more than full power holds), and switches again from there. Model error: the stack sees the mean plate temperature instead of a ripple of
+ * the band's height at the cycle's frequency, which its contact and heat capacity damp (a held plate against the
+ * resolved relay: tests/validation/thermostat-held.test.ts).
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
 import type { Grid } from '../grid/mesh.ts';
-import type { Heater } from '../physics/heater.ts';
-import { plateRate, setPointAt } from '../physics/heater.ts';
+import type { Heater, PlateNode } from '../physics/heater.ts';
+import { heldPowerWPerM2, heldThermostatDefaults, plateRate, setPointAt } from '../physics/heater.ts';
 import type { Problem } from '../physics/problem.ts';
 import { attachBenches, beginBenchStage, commitBenches } from './bench-chain.ts';
 import type { StateSwitch, Thermostat } from './events.ts';
 import { stackSensorK, thermostat } from './events.ts';
+import { STAGE_FRACTION } from './tr-bdf2.ts';
+
 
 const SIDES = [0, 1] as const;
 
@@ -41,10 +59,33 @@ export function beginPlateStage(ws: Workspace, cond: StepConditions, hd: number,
     if (!h) continue;
     const node = ws.plates[side];
     node.hd = hd;
+    if (node.held) {
+      // the law at the stage's own time: the trapezoidal stage ends at γ·h (hd = γ·h/2), the others at h
+      heldKnees(h, node, node.t0S + (stage === 'trapezoid' ? 2 * hd : stage === 'bdf2' ? hd / BDF2_SHARE : hd));
+    }
     if (stage === 'trapezoid') node.b = node.tK + (hd * plateRate(h, node, node.tK, q0[side]!)) / h.capacityJPerM2K;
     else if (stage === 'euler') node.b = node.tK;
     else node.b = a * (Ug[nodeOf(ws, side)]! + qg[side]! / h.contactWPerM2K) - bb * node.tK;
   }
+}
+
+/** The share of the step that is the BDF2 stage's effective step d·h: d = 1 − √2/2 = γ/2 (tr-bdf2.ts). */
+const BDF2_SHARE = STAGE_FRACTION / 2;
+
+/** Sets a held plate's law knees at time tS: P_max below the band's middle − w/2, none above its middle + w/2. */
+function heldKnees(h: Heater, node: PlateNode, tS: number): void {
+  const c = h.control;
+  if (c.kind !== 'on-off') return;
+  const middle = setPointAt(h.setPoints, tS) - 0.5 * c.bandK;
+  const half = 0.5 * heldThermostatDefaults.heldWidthShare * c.bandK;
+  node.fullBelowK = middle - half;
+  node.noneAboveK = middle + half;
+}
+
+/** The held law's power at plate temperature plateK and time tS, W/m². */
+function heldPower(h: Heater, node: PlateNode, plateK: number, tS: number): number {
+  heldKnees(h, node, tS);
+  return heldPowerWPerM2(h, plateK, node.fullBelowK, node.noneAboveK);
 }
 
 /** What a heater did over one accepted step, per footprint area. */
@@ -55,15 +96,37 @@ export interface PlateStep {
   lossJ: number;
   /** Change of the plate's stored heat, J/m². */
   storedJ: number;
-  /** Power during the step, W, and the plate temperature at its end, K (NaN without a heater). */
+  /** Power during the step (its mean, while held), W, and the plate temperature at its end, K (NaN without a heater). */
   powerW: number;
   plateK: number;
+  /** Whether the thermostat was held in its band over the step (heldThermostatDefaults). */
+  held: boolean;
 }
 
-export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) {
+export interface PlateControlOptions {
+  /** Hold a fast-cycling thermostat in its band (default true); false follows every switch (the comparison of tests). */
+  readonly holdFastThermostats?: boolean;
+}
+
+export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, options: PlateControlOptions = {}) {
   /** The plate temperature the sensors read: recovered after each (trial) step, the node's own after a commit. */
   const nowK = Float64Array.of(problem.initialK, problem.initialK);
   let cond: StepConditions | undefined;
+  const hold = options.holdFastThermostats ?? true;
+  /**
+   * Each side's last heldSwitches switch times, a ring (NaN: none yet), and where the next one goes; while held, how
+   * long its plate has been out of the band.
+   */
+  const switchTimes = SIDES.map(() => ({ at: new Float64Array(heldThermostatDefaults.heldSwitches).fill(NaN), next: 0, outsideS: 0 }));
+  const forget = (side: 0 | 1): void => { switchTimes[side]!.at.fill(NaN); switchTimes[side]!.outsideS = 0; };
+  /** Records a switch at tS; true when it is the heldSwitches-th within heldWithinS (the oldest kept is that one back). */
+  const cyclesFast = (side: 0 | 1, tS: number): boolean => {
+    const ring = switchTimes[side]!;
+    ring.at[ring.next] = tS;
+    ring.next = (ring.next + 1) % ring.at.length;
+    // after the write, the slot at `next` holds the switch heldSwitches − 1 before this one
+    return tS - ring.at[ring.next]! <= heldThermostatDefaults.heldWithinS;
+  };
   const thermostats: Thermostat[] = SIDES.map((side) => {
     const control = () => {
       const h = cond ? heaterOn(cond, side) : undefined;
@@ -76,9 +139,18 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
       },
       setPointK: (tS) => setPointAt(control()!.h.setPoints, tS),
       bandK: () => { const c = control()!.c; return c.bandK; },
-      active: () => control() !== undefined,
-      onSwitch: (on) => {
-        ws.plates[side].powerWPerM2 = on ? control()!.h.powerWPerM2 : 0;
+      active: () => control() !== undefined && !ws.plates[side].held,
+      onSwitch: (on, tS) => {
+        const { h, c } = control()!;
+        const node = ws.plates[side];
+        if (hold && c.sensor.kind === 'plate' && cyclesFast(side, tS)) {
+          // cycling too fast to follow: from here the plate is held in its band by the relay's mean power
+          node.held = true;
+          node.powerWPerM2 = heldPower(h, node, nowK[side]!, tS);
+          forget(side);
+          return;
+        }
+        node.powerWPerM2 = on ? h.powerWPerM2 : 0;
       },
     });
   });
@@ -115,7 +187,8 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
   };
 
   const steps: [PlateStep, PlateStep] = [
-    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN }, { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN },
+    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN, held: false },
+    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN, held: false },
   ];
   return {
     switches,
@@ -132,7 +205,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
         node.b = node.tK;
         nowK[side] = node.tK;
         const was = previous ? heaterOn(previous, side) : undefined;
-        if (!h) { node.powerWPerM2 = 0; continue; }
+        if (!h) { node.powerWPerM2 = 0; node.held = false; continue; }
         if (h.control.kind === 'pi') {
           const st = pi[side]!;
           if (was !== h) { st.integralKs = 0; st.nextS = tS; }
@@ -141,10 +214,16 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
           node.powerWPerM2 = st.powerW / h.areaM2;
           continue;
         }
-        // a heater newly under the stack starts on; one that stays keeps its thermostat's state
-        if (was !== h) thermostats[side]!.reset(true);
+        // a heater newly under the stack starts on; one that stays keeps its thermostat's state (held or switching)
+        if (was !== h) { thermostats[side]!.reset(true); node.held = false; forget(side); }
+        if (node.held) { node.powerWPerM2 = heldPower(h, node, node.tK, tS); continue; }
         node.powerWPerM2 = h.control.kind === 'constant' || thermostats[side]!.isOn() ? h.powerWPerM2 : 0;
       }
+    },
+    /** A step (and every trial of it) starts at tS: a held plate's stages read the set-point at their own times. */
+    startStep(tS: number): void {
+      ws.plates[0].t0S = tS;
+      ws.plates[1].t0S = tS;
     },
     /**
      * The plate temperatures at a step's stage point, for the sensors, from its state Ug and face heats qg. The next
@@ -158,29 +237,56 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace) 
       recoverPlates(ws.T, ws.faceQ);
     },
     /**
-     * Accepts a step of length hS whose face heats were qg, q1 at the stage and the end and face temperatures Ug, U1 (weights w of the
+     * Accepts a step of length hS whose face heats were q0, qg, q1 at the start, the stage and the end and face temperatures Ug, U1 (weights w of the
      * method's quadrature): advances the plates and returns what each side's heater did.
      */
-    commit(hS: number, w: readonly [number, number, number], qg: Float64Array, q1: Float64Array, Ug: Float64Array, U1: Float64Array, out: [PlateStep, PlateStep]): void {
+    commit(hS: number, w: readonly [number, number, number], q0: Float64Array, qg: Float64Array, q1: Float64Array, Ug: Float64Array, U1: Float64Array, out: [PlateStep, PlateStep]): void {
       commitBenches(ws, cond, U1);
       for (const side of SIDES) {
         const r = out[side];
         const h = cond ? heaterOn(cond, side) : undefined;
         const node = ws.plates[side];
+        r.held = node.held;
         if (!h) { r.heaterJ = 0; r.lossJ = 0; r.storedJ = 0; r.powerW = NaN; r.plateK = NaN; continue; }
         const j = nodeOf(ws, side);
         const t0 = node.tK;
         const tg = Ug[j]! + qg[side]! / h.contactWPerM2K;
         const t1 = U1[j]! + q1[side]! / h.contactWPerM2K;
-        r.heaterJ = hS * node.powerWPerM2;
+        // held: the law at the stage's and the end's plate temperatures, the start's power being node.powerWPerM2 (what
+        // the trapezoidal stage read); the end's power starts the next step
         r.lossJ = hS * h.lossWPerM2K * (w[0] * (t0 - h.lossToK) + w[1] * (tg - h.lossToK) + w[2] * (t1 - h.lossToK));
         r.storedJ = h.capacityJPerM2K * (t1 - t0);
-        r.powerW = node.powerWPerM2 * h.areaM2;
+        // held, the power may vary within the step: its heat is what the plate's stages balance, stored + passed to
+        // the face + lost (each stage solved the plate exactly, physics/heater.ts plateStage). Reading the law at the
+        // recovered plate temperatures instead would amplify their round-off by the law's slope P_max/w; where the law
+        // is at full power or none at all three points, its power is that, exactly, as the relay's would be
+        const pEnd = node.held ? heldPower(h, node, t1, node.t0S + hS) : node.powerWPerM2;
+        const flat = node.held && pEnd === node.powerWPerM2 && (pEnd === 0 || pEnd === h.powerWPerM2) &&
+          heldPower(h, node, tg, node.t0S + (w[0] === 0 ? hS : STAGE_FRACTION * hS)) === pEnd;
+        r.heaterJ = node.held && !flat
+          ? r.storedJ + r.lossJ + hS * (w[0] * q0[side]! + w[1] * qg[side]! + w[2] * q1[side]!)
+          : hS * node.powerWPerM2;
+        r.powerW = node.held ? (r.heaterJ / hS) * h.areaM2 : node.powerWPerM2 * h.areaM2;
         r.plateK = t1;
         node.tK = t1;
         node.b = t1;
         node.hd = 0;
         nowK[side] = t1;
+        if (!node.held) continue;
+        // the law at the end starts the next step (its trapezoidal stage reads the start's power)
+        node.powerWPerM2 = pEnd;
+        const c = h.control;
+        const setK = setPointAt(h.setPoints, node.t0S + hS);
+        const ring = switchTimes[side]!;
+        ring.outsideS = c.kind === 'on-off' && (t1 < setK - c.bandK || t1 > setK) ? ring.outsideS + hS : 0;
+        if (ring.outsideS > heldThermostatDefaults.heldWithinS) {
+          // the plate has stayed out of the band (the law at full power or none there, as the relay would be) for
+          // longer than a held cycle lasts; just out of it, it is the overshoot of the switch that began the hold
+          node.held = false;
+          ring.outsideS = 0;
+          thermostats[side]!.reset(t1 < setK);
+          node.powerWPerM2 = t1 < setK ? h.powerWPerM2 : 0;
+        }
       }
     },
   };

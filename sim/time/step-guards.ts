@@ -154,8 +154,10 @@ export function heldBackSentence(layerIds: readonly string[], layerCells: readon
  * The sentence of the ceiling's message that names frequent switching, or '' when the state events landed on (a
  * thermostat's switches, the separator's melt and freeze) were fewer than a fifth of the accepted steps or fewer than
  * stepGuardDefaults.switchingEvents. An on-off thermostat whose plate crosses its band in milliseconds switches every
- * few milliseconds, and each switch is a step landed on (a 0.01 K band on heater-plate-lift-off.json: 94 481 events
- * in an hour, 5 s; a 0.7 K band on a 1.9 mm insulating-board plate under 1 MW/m²: 200 a second).
+ * few milliseconds, and each switch is a step landed on (followed switch by switch, a 0.01 K band on
+ * heater-plate-lift-off.json: 94 481 events in an hour, 5 s; a 0.7 K band on a 1.9 mm insulating-board plate under
+ * 1 MW/m²: 200 a second). A thermostat that reads its plate is held in its band instead once it cycles that fast
+ * (time/plates.ts); one that reads a layer's mean is not, and can still end here.
  */
 export function switchingSentence(events: number, steps: number, tS: number): string {
   if (events < stepGuardDefaults.switchingEvents || 5 * events < steps) return '';

@@ -163,12 +163,12 @@ describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)'
   it('runProblem() stopped at a ceiling while a thermostat with a 0.001 K band switches says so, with how often', () => {
     // heater-plate-lift-off.json with its 5 K band narrowed to 0.001 K: its 11.8 J/K stainless plate (8000 kg/m³ ×
     // 500 J/(kg·K) × 6 mm × 491 mm²) crosses the band in 0.08 ms at 150 W, so the thermostat switches every few
-    // milliseconds once at its set-point (measured: 167 958 switches in the hour, which it finishes in 8.6 s); a ceiling
-    // of 4e6 cell-sweeps stops it among them
+    // milliseconds once at its set-point (measured: 167 958 switches in the hour, which it finishes in 8.6 s); followed
+    // switch by switch (not held in its band, time/plates.ts), a ceiling of 4e6 cell-sweeps stops it among them
     const file = structuredClone(heaterDemo) as unknown as ScenarioFile;
     const heater = file.bottom[0]!.heater!;
     (heater.control as { band_K: number }).band_K = 0.001;
-    const out = runProblem(parseOk(file), { maxCellSweeps: 4e6 });
+    const out = runProblem(parseOk(file), { maxCellSweeps: 4e6, holdFastThermostats: false });
     expect(out.status).toBe('failed');
     if (out.status !== 'failed') return;
     expect(out.stats.events).toBeGreaterThanOrEqual(GUARD.switchingEvents);
@@ -176,5 +176,10 @@ describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)'
     expect(said, out.message).not.toBeNull();
     expect(Number(said![1])).toBe(out.stats.events);
     expect(Number(said![2])).toBeLessThan(0.1);
+    // held in its band (the default) the same run finishes within that ceiling, and says the thermostat was held
+    const held = runProblem(parseOk(file), { maxCellSweeps: 4e6 });
+    expect(held.status).toBe('ok');
+    if (held.status !== 'ok') return;
+    expect(held.record.warnings.some((w) => w.startsWith("the heater's thermostat switched 20 times within 1 s by t = "))).toBe(true);
   });
 });
