@@ -10,24 +10,25 @@
  *
  * An on-off thermostat on a light plate can cross its band in milliseconds, and every switch is a step landed on: an
  * hour of such a run is hundreds of thousands of switches, more than the run-time ceiling allows (step-guards.ts).
- * Once the thermostat has switched `heldThermostatDefaults.heldSwitches` times within `heldWithinS` (ten cycles of at most
- * 0.1 s each), it is held in its band: the relay's cycles are replaced by their mean. A relay plate swings as a
- * sawtooth between the two levels, whose mean is the middle of the band wherever both ramps are straight over a cycle
- * (the cycle far shorter than the plate's and the face's time constants: the limit of a fast relay, Filippov's sliding
- * mode, e.g. Utkin, Sliding Modes in Control and Optimization, 1992, §2.3). Held, the power follows the plate's
- * temperature within each stage, from P_max at the middle − w/2 to 0 at the middle + w/2, w = heldWidthShare × band:
- * the plate stays within w/2 of the middle at any duty, and the power is the mean the relay would deliver. The stage
- * stays one root per plate (physics/heater.ts plateStage), and the ledger stays exact: the heater's heat over a step is
- * what the plate's stages balance. The thermostat lets go when the plate has stayed out of the band for longer than
- * heldWithinS (below set-point − band, where the relay is on, or above the set-point, where it is off: a set-point
- * dropped below the plate, a load more than full power holds), and switches again from there. Model error: the stack sees the mean plate temperature instead of a ripple of
- * the band's height at the cycle's frequency, which its contact and heat capacity damp (a held plate against the
- * resolved relay: tests/validation/thermostat-held.test.ts).
+ * Once the thermostat has switched `heldThermostatDefaults.heldSwitches` times within `heldWithinS` (ten cycles of at
+ * most 0.1 s each), it is held in its band: the relay's cycles are replaced by their mean. A fast relay's plate swings
+ * as a sawtooth between the two levels, whose mean is the middle of the band where both ramps are nearly straight;
+ * the hold begins only while the mean estimated from the plate's two exponential segments (physics/heater.ts
+ * relayCycle) lies within heldLeanShare of the band (or numerics.tolerance_K, if larger) from the middle. Held, the power follows the plate's temperature
+ * within each stage, from P_max at the middle − w/2 to 0 at the middle + w/2, w = heldWidthShare × band: the plate
+ * stays within w/2 of the middle at any duty, drawing the power that holds it there, the relay's mean power. The stage
+ * stays one root per plate (plateStage), and the ledger stays exact: the heater's heat over a step is what the plate's
+ * stages balance. The hold lets go when the estimated cycle would exceed letGoPeriodS or its mean lean twice
+ * heldLeanShare (a relay that can no longer pass a level, stuck on or off, has an endless cycle and leans to that
+ * level), or when the plate has stayed out of the band for longer than heldWithinS; the relay then switches again from
+ * there, on below the middle, off above it. Model error: the stack sees the middle of the band, not a ripple of the
+ * band's height at the cycle's frequency, which its contact and heat capacity damp, nor the relay's lean (against the
+ * relay followed switch by switch: tests/verification/thermostat-held.test.ts).
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Heater, PlateNode } from '../physics/heater.ts';
-import { heldPowerWPerM2, heldThermostatDefaults, plateRate, setPointAt } from '../physics/heater.ts';
+import { heldPowerWPerM2, heldThermostatDefaults, plateRate, relayCycle, setPointAt } from '../physics/heater.ts';
 import type { Problem } from '../physics/problem.ts';
 import { attachBenches, beginBenchStage, commitBenches } from './bench-chain.ts';
 import type { StateSwitch, Thermostat } from './events.ts';
@@ -72,20 +73,18 @@ export function beginPlateStage(ws: Workspace, cond: StepConditions, hd: number,
 /** The share of the step that is the BDF2 stage's effective step d·h: d = 1 − √2/2 = γ/2 (tr-bdf2.ts). */
 const BDF2_SHARE = STAGE_FRACTION / 2;
 
-/** Sets a held plate's law knees at time tS: P_max below the band's middle − w/2, none above its middle + w/2. */
+/** Sets a held plate's levels at time tS: set-point − band and set-point. */
 function heldKnees(h: Heater, node: PlateNode, tS: number): void {
   const c = h.control;
   if (c.kind !== 'on-off') return;
-  const middle = setPointAt(h.setPoints, tS) - 0.5 * c.bandK;
-  const half = 0.5 * heldThermostatDefaults.heldWidthShare * c.bandK;
-  node.fullBelowK = middle - half;
-  node.noneAboveK = middle + half;
+  node.highK = setPointAt(h.setPoints, tS);
+  node.lowK = node.highK - c.bandK;
 }
 
-/** The held law's power at plate temperature plateK and time tS, W/m². */
+/** The held law's power at plate temperature plateK at time tS, W/m². */
 function heldPower(h: Heater, node: PlateNode, plateK: number, tS: number): number {
   heldKnees(h, node, tS);
-  return heldPowerWPerM2(h, plateK, node.fullBelowK, node.noneAboveK);
+  return heldPowerWPerM2(h, node, plateK);
 }
 
 /** What a heater did over one accepted step, per footprint area. */
@@ -119,6 +118,20 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
    */
   const switchTimes = SIDES.map(() => ({ at: new Float64Array(heldThermostatDefaults.heldSwitches).fill(NaN), next: 0, outsideS: 0 }));
   const forget = (side: 0 | 1): void => { switchTimes[side]!.at.fill(NaN); switchTimes[side]!.outsideS = 0; };
+  /** The face temperature at the end of the last accepted step, K, per side (what the relay's estimates read). */
+  const faceNowK = Float64Array.of(NaN, NaN);
+  /** relayCycle()'s period and mean. */
+  const cycle = new Float64Array(2);
+  /**
+   * How far the relay's estimated mean leans from the band's middle, in units of what a hold allows: heldLeanShare of
+   * the band, or the run's own temperature tolerance where that is larger (a lean of hundredths of a kelvin in a
+   * narrow band is below what the steps resolve anyway). Above 1 no hold begins; above 2 a hold lets go.
+   */
+  const leanOf = (h: Heater, node: PlateNode, faceK: number): number => {
+    relayCycle(h, node.lowK, node.highK, faceK, cycle);
+    const allowed = Math.max(heldThermostatDefaults.heldLeanShare * (node.highK - node.lowK), problem.numerics.toleranceK);
+    return Math.abs(cycle[1]! - 0.5 * (node.lowK + node.highK)) / allowed;
+  };
   /** Records a switch at tS; true when it is the heldSwitches-th within heldWithinS (the oldest kept is that one back). */
   const cyclesFast = (side: 0 | 1, tS: number): boolean => {
     const ring = switchTimes[side]!;
@@ -143,7 +156,9 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
       onSwitch: (on, tS) => {
         const { h, c } = control()!;
         const node = ws.plates[side];
-        if (hold && c.sensor.kind === 'plate' && cyclesFast(side, tS)) {
+        heldKnees(h, node, tS);
+        if (hold && c.sensor.kind === 'plate' && cyclesFast(side, tS) &&
+          leanOf(h, node, faceNowK[side]!) <= 1) {
           // cycling too fast to follow: from here the plate is held in its band by the relay's mean power
           node.held = true;
           node.powerWPerM2 = heldPower(h, node, nowK[side]!, tS);
@@ -258,12 +273,9 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         r.storedJ = h.capacityJPerM2K * (t1 - t0);
         // held, the power may vary within the step: its heat is what the plate's stages balance, stored + passed to
         // the face + lost (each stage solved the plate exactly, physics/heater.ts plateStage). Reading the law at the
-        // recovered plate temperatures instead would amplify their round-off by the law's slope P_max/w; where the law
-        // is at full power or none at all three points, its power is that, exactly, as the relay's would be
-        const pEnd = node.held ? heldPower(h, node, t1, node.t0S + hS) : node.powerWPerM2;
-        const flat = node.held && pEnd === node.powerWPerM2 && (pEnd === 0 || pEnd === h.powerWPerM2) &&
-          heldPower(h, node, tg, node.t0S + (w[0] === 0 ? hS : STAGE_FRACTION * hS)) === pEnd;
-        r.heaterJ = node.held && !flat
+        // recovered plate temperatures instead would amplify their round-off by the law's slope P_max/w, and the
+        // relay mean's own slope in the face temperature (a full-power or zero step came out 1e-16 W from its value)
+        r.heaterJ = node.held
           ? r.storedJ + r.lossJ + hS * (w[0] * q0[side]! + w[1] * qg[side]! + w[2] * q1[side]!)
           : hS * node.powerWPerM2;
         r.powerW = node.held ? (r.heaterJ / hS) * h.areaM2 : node.powerWPerM2 * h.areaM2;
@@ -272,20 +284,24 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         node.b = t1;
         node.hd = 0;
         nowK[side] = t1;
+        faceNowK[side] = U1[j]!;
         if (!node.held) continue;
         // the law at the end starts the next step (its trapezoidal stage reads the start's power)
-        node.powerWPerM2 = pEnd;
-        const c = h.control;
-        const setK = setPointAt(h.setPoints, node.t0S + hS);
+        node.powerWPerM2 = heldPower(h, node, t1, node.t0S + hS);
         const ring = switchTimes[side]!;
-        ring.outsideS = c.kind === 'on-off' && (t1 < setK - c.bandK || t1 > setK) ? ring.outsideS + hS : 0;
-        if (ring.outsideS > heldThermostatDefaults.heldWithinS) {
-          // the plate has stayed out of the band (the law at full power or none there, as the relay would be) for
-          // longer than a held cycle lasts; just out of it, it is the overshoot of the switch that began the hold
+        const g = heldThermostatDefaults;
+        ring.outsideS = t1 < node.lowK || t1 > node.highK ? ring.outsideS + hS : 0;
+        const slow = leanOf(h, node, U1[j]!) > 2 || cycle[0]! > g.letGoPeriodS;
+        if (slow || ring.outsideS > g.heldWithinS) {
+          // the relay's cycle would no longer be fast, or its mean no longer the middle, or the plate has stayed out of
+          // the band (the law at full power or none there, as the relay would be) for longer than a held cycle lasts
+          // (just out of it, it is the overshoot of the switch that began the hold): switch again, on below the middle
+          // of the band, off above it
+          const on = t1 < 0.5 * (node.lowK + node.highK);
           node.held = false;
           ring.outsideS = 0;
-          thermostats[side]!.reset(t1 < setK);
-          node.powerWPerM2 = t1 < setK ? h.powerWPerM2 : 0;
+          thermostats[side]!.reset(on);
+          node.powerWPerM2 = on ? h.powerWPerM2 : 0;
         }
       }
     },
