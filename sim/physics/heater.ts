@@ -50,11 +50,12 @@ export const heldThermostatDefaults = {
   /**
    * An on-off thermostat that reads its plate is held in its band (time/plates.ts) once it has switched heldSwitches
    * times within heldWithinS, while the relay's cycle mean as estimated by relayCycle lies within heldLeanShare × band
-   * (or the run's numerics.tolerance_K, if larger) of the band's middle: ten cycles of 0.1 s or less (a fifth of the 0.5 s to which the separator's events are asked
-   * by default, scenario/accuracy.ts), whose mean the middle of the band stands for. Followed one by one, such a relay
-   * costs 72 000 located switches an hour or more. Measured with 20 switches within 3 s instead (cycles of 0.3 s): a
-   * 10.3 K band on a 1.1 mm tile plate was held (estimated lean 3 % of the band) and its separator melted 6 s early,
-   * the face's ripple, which the estimate leaves out, leaning the followed plate further.
+   * (or the run's numerics.tolerance_K, if larger) of the band's middle: ten cycles of 0.1 s or less (a fifth of the
+   * 0.5 s to which the separator's events are asked by default, scenario/accuracy.ts), whose mean the middle of the
+   * band stands for. Followed one by one, such a relay costs 72 000 located switches an hour or more. Measured with 20
+   * switches within 3 s instead (cycles of 0.3 s): a 10.3 K band on a 1.1 mm tile plate was held (estimated lean 3 % of
+   * the band) and its separator melted 6 s early, the face's ripple, which the estimate leaves out, leaning the
+   * followed plate further.
    */
   heldSwitches: 20,
   heldWithinS: 1,
@@ -68,7 +69,7 @@ export const heldThermostatDefaults = {
    * mean leans to that level: such a relay is slow, or stuck on or off, not fast.
    */
   letGoPeriodS: 0.5,
-  /** Width of the held law as a share of the band, centred on its middle: the plate stays within 5 % of the band of there. */
+  /** Width of the held law as a share of the band, centred on its middle: the plate stays within 5 % of the band of it. */
   heldWidthShare: 0.1,
 } as const;
 

@@ -9,21 +9,21 @@
  * built from the face heat q_i the stack itself books.
  *
  * An on-off thermostat on a light plate can cross its band in milliseconds, and every switch is a step landed on: an
- * hour of such a run is hundreds of thousands of switches, more than the run-time ceiling allows (step-guards.ts).
- * Once the thermostat has switched `heldThermostatDefaults.heldSwitches` times within `heldWithinS` (ten cycles of at
- * most 0.1 s each), it is held in its band: the relay's cycles are replaced by their mean. A fast relay's plate swings
- * as a sawtooth between the two levels, whose mean is the middle of the band where both ramps are nearly straight;
- * the hold begins only while the mean estimated from the plate's two exponential segments (physics/heater.ts
- * relayCycle) lies within heldLeanShare of the band (or numerics.tolerance_K, if larger) from the middle. Held, the power follows the plate's temperature
- * within each stage, from P_max at the middle − w/2 to 0 at the middle + w/2, w = heldWidthShare × band: the plate
- * stays within w/2 of the middle at any duty, drawing the power that holds it there, the relay's mean power. The stage
- * stays one root per plate (plateStage), and the ledger stays exact: the heater's heat over a step is what the plate's
- * stages balance. The hold lets go when the estimated cycle would exceed letGoPeriodS or its mean lean twice
- * heldLeanShare (a relay that can no longer pass a level, stuck on or off, has an endless cycle and leans to that
- * level), or when the plate has stayed out of the band for longer than heldWithinS; the relay then switches again from
- * there, on below the middle, off above it. Model error: the stack sees the middle of the band, not a ripple of the
- * band's height at the cycle's frequency, which its contact and heat capacity damp, nor the relay's lean (against the
- * relay followed switch by switch: tests/verification/thermostat-held.test.ts).
+ * hour of such a run is hundreds of thousands of switches, more than the run-time ceiling allows (step-guards.ts). Once
+ * the thermostat has switched `heldThermostatDefaults.heldSwitches` times within `heldWithinS` (ten cycles of at most
+ * 0.1 s each), it is held in its band: the relay's cycles are replaced by their mean. A fast relay's plate swings as a
+ * sawtooth between the two levels, whose mean is the middle of the band where both ramps are nearly straight; the hold
+ * begins only while the mean estimated from the plate's two exponential segments (physics/heater.ts relayCycle) lies
+ * within heldLeanShare of the band (or numerics.tolerance_K, if larger) from the middle. Held, the power follows the
+ * plate's temperature within each stage, from P_max at the middle − w/2 to 0 at the middle + w/2, w = heldWidthShare ×
+ * band: the plate stays within w/2 of the middle at any duty, drawing the power that holds it there, the relay's mean
+ * power. The stage stays one root per plate (plateStage), and the ledger stays exact: the heater's heat over a step is
+ * what the plate's stages balance. The hold lets go when the estimated cycle would exceed letGoPeriodS or its mean lean
+ * twice what begins a hold (a relay that can no longer pass a level, stuck on or off, has an endless cycle and leans to
+ * that level), or when the plate has stayed out of the band for longer than heldWithinS; the relay then switches again
+ * from there, on below the middle, off above it. Model error: the stack sees the middle of the band, not a ripple of
+ * the band's height at the cycle's frequency, which its contact and heat capacity damp, nor the relay's lean (against
+ * the relay followed switch by switch: tests/verification/thermostat-held.test.ts).
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
 import type { Grid } from '../grid/mesh.ts';
@@ -267,14 +267,12 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         const t0 = node.tK;
         const tg = Ug[j]! + qg[side]! / h.contactWPerM2K;
         const t1 = U1[j]! + q1[side]! / h.contactWPerM2K;
-        // held: the law at the stage's and the end's plate temperatures, the start's power being node.powerWPerM2 (what
-        // the trapezoidal stage read); the end's power starts the next step
         r.lossJ = hS * h.lossWPerM2K * (w[0] * (t0 - h.lossToK) + w[1] * (tg - h.lossToK) + w[2] * (t1 - h.lossToK));
         r.storedJ = h.capacityJPerM2K * (t1 - t0);
         // held, the power may vary within the step: its heat is what the plate's stages balance, stored + passed to
         // the face + lost (each stage solved the plate exactly, physics/heater.ts plateStage). Reading the law at the
-        // recovered plate temperatures instead would amplify their round-off by the law's slope P_max/w, and the
-        // relay mean's own slope in the face temperature (a full-power or zero step came out 1e-16 W from its value)
+        // recovered plate temperatures instead would amplify their round-off by the law's slope P_max/w (the cost: a
+        // held step at full power or none reads within round-off of it, e.g. 7e-16 W, not exactly)
         r.heaterJ = node.held
           ? r.storedJ + r.lossJ + hS * (w[0] * q0[side]! + w[1] * qg[side]! + w[2] * q1[side]!)
           : hS * node.powerWPerM2;
