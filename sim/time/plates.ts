@@ -156,14 +156,16 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
       onSwitch: (on, tS) => {
         const { h, c } = control()!;
         const node = ws.plates[side];
-        heldKnees(h, node, tS);
-        if (hold && c.sensor.kind === 'plate' && cyclesFast(side, tS) &&
-          leanOf(h, node, faceNowK[side]!) <= 1) {
-          // cycling too fast to follow: from here the plate is held in its band by the relay's mean power
-          node.held = true;
-          node.powerWPerM2 = heldPower(h, node, nowK[side]!, tS);
-          forget(side);
-          return;
+        // cycling too fast to follow, around the middle of the band: from here the plate is held in its band by the
+        // relay's mean power (heldPower sets the levels at tS, which leanOf reads)
+        if (hold && c.sensor.kind === 'plate' && cyclesFast(side, tS)) {
+          const power = heldPower(h, node, nowK[side]!, tS);
+          if (leanOf(h, node, faceNowK[side]!) <= 1) {
+            node.held = true;
+            node.powerWPerM2 = power;
+            forget(side);
+            return;
+          }
         }
         node.powerWPerM2 = on ? h.powerWPerM2 : 0;
       },
@@ -289,7 +291,9 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         const ring = switchTimes[side]!;
         const g = heldThermostatDefaults;
         ring.outsideS = t1 < node.lowK || t1 > node.highK ? ring.outsideS + hS : 0;
-        const slow = leanOf(h, node, U1[j]!) > 2 || cycle[0]! > g.letGoPeriodS;
+        // leanOf fills cycle (the period) as it goes
+        const lean = leanOf(h, node, U1[j]!);
+        const slow = lean > 2 || cycle[0]! > g.letGoPeriodS;
         if (slow || ring.outsideS > g.heldWithinS) {
           // the relay's cycle would no longer be fast, or its mean no longer the middle, or the plate has stayed out of
           // the band (the law at full power or none there, as the relay would be) for longer than a held cycle lasts
