@@ -61,7 +61,7 @@ function demoProblem(total: number, tolScale: number, rampK: number): Problem {
 
 /**
  * The heavy rows and the accuracy table time long runs on purpose: they lift the run-time ceiling
- * (stepGuardDefaults.maxCellSweeps, 1e8 cell-sweeps, about 10 s), so that no row is cut short. The ×0.01 row at 1600
+ * (stepGuardDefaults.maxCellSweeps, 2.5e8 cell-sweeps, about 25 s), so that no row is cut short. The ×0.01 row at 1600
  * cells, as written, takes 7.7e7 cell-sweeps on 2026-12-03, close to the ceiling (earlier code took 2.3e8, and the
  * ceiling of 4e7 then stopped it at t = 47 s of 3600 s).
  */

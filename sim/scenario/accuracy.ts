@@ -88,11 +88,13 @@ export const accuracyDefaults = {
   meltRampK: 0,
   /**
    * The work model that keeps a plan within the solver's budget. The budget, cells × steps (accepted and rejected), is
-   * stepGuardDefaults.maxCellSteps (time/step-guards.ts, which scenario/ may not import; a unit test holds the two
-   * equal). Steps tried (accepted and rejected) by a level-0 run: at most 1257 on examples/ (heater-plate-lift-off;
-   * the others 291–1116), 1500 with a margin. Per level, from the same calibration runs: ×0.9–1.4 per doubling of the
-   * cells and ×1.2–1.4 per division of the tolerances by 3, and ×6.4–7.5 for three grid levels and two tolerance levels
-   * with the ramp ÷4 (the ramp narrows with the accuracy, and a narrower ramp costs steps); 1.5 and 1.5 cover that.
+   * at most stepGuardDefaults.maxCellSteps (time/step-guards.ts, which scenario/ may not import; a unit test holds the
+   * order): it was that budget until 2026-12-04, when the solver's rose 2.5× and this one stayed, so a plan keeps a
+   * margin for what the model does not see (a front crossing a thick layer cell by cell). Steps tried (accepted and
+   * rejected) by a level-0 run: at most 1257 on examples/ (heater-plate-lift-off; the others 291–1116), 1500 with a
+   * margin. Per level, from the same calibration runs: ×0.9–1.4 per doubling of the cells and ×1.2–1.4 per division
+   * of the tolerances by 3, and ×6.4–7.5 for three grid levels and two tolerance levels with the ramp ÷4 (the ramp
+   * narrows with the accuracy, and a narrower ramp costs steps); 1.5 and 1.5 cover that.
    */
   workBudgetCellSteps: 5e7,
   trialsAtDefaults: 1500,

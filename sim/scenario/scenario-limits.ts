@@ -25,7 +25,8 @@ export const scenarioLimitDefaults = {
    * Cells in all: eight 100 mm separators at the default 16 cells/mm (12 800), or 5 µm across 100 mm; a guard against
    * memory, not a promise of speed. Measured: the demo at 18 900 cells peaked at 174 MB and met the solver's old work
    * budget (5e7 cell-steps) after 2646 steps, t = 43 s of 3600 s, which stopped it with a message; the run-time ceiling
-   * (1e8 cell-sweeps, step-guards.ts) now stops it after 1e8 / 18 900 ≈ 5300 Newton sweeps (computed, not measured).
+   * (2.5e8 cell-sweeps, step-guards.ts) now stops it after 2.5e8 / 18 900 ≈ 13 000 Newton sweeps (computed, not
+   * measured).
    */
   maxCells: 20_000,
   /** Requested output times: each one keeps a full temperature profile and a column of every probe in the result. */
@@ -55,9 +56,9 @@ export const scenarioLimitDefaults = {
    * Cells × forced steps: at most the solver's run-time ceiling (stepGuardDefaults.maxCellSweeps, cells × Newton
    * sweeps, step-guards.ts) over the fewest sweeps a step can take (2, one per TR-BDF2 stage), so a run that
    * max_step_s alone would push past the ceiling is refused here instead of stopped mid-way. Set when the ceiling was
-   * 4e7 and kept when it rose to 1e8 (2026-12-03): 2e7 forced cell-steps are at least 4e7 sweeps, a few seconds, and a
-   * file asking for more has its remedy named before it runs. (scenario/ may not import time/; a unit test holds the
-   * three numbers together.)
+   * 4e7 and kept when it rose to 1e8 (2026-12-03) and to 2.5e8 (2026-12-04): 2e7 forced cell-steps are at least 4e7
+   * sweeps, a few seconds, and a file asking for more has its remedy named before it runs. (scenario/ may not import
+   * time/; a unit test holds the three numbers together.)
    */
   maxForcedCellSteps: 2e7,
   /**

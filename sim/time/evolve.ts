@@ -84,7 +84,7 @@ export interface EvolveOptions extends PlateControlOptions {
    */
   readonly switches?: readonly (StateSwitch & { readonly adjust?: (cond: StepConditions) => StepConditions })[];
   /**
-   * The run-time ceiling in cells × Newton sweeps (default stepGuardDefaults.maxCellSweeps, about 10 s): a benchmark
+   * The run-time ceiling in cells × Newton sweeps (default stepGuardDefaults.maxCellSweeps, about 25 s): a benchmark
    * that means to time long runs may raise it, a test may lower it.
    */
   readonly maxCellSweeps?: number;

@@ -88,8 +88,8 @@ describe('the accuracy a run states', () => {
     expect(summaryTable(problem, out.summary, out.record, {})).toContain('accuracy: grid and tolerances as set in the file (event times to 0.1 s not pursued)');
   });
 
-  it('accuracyPlan() models the work against the solver\'s own budget (step-guards.ts), which scenario/ may not import', () => {
-    expect(accuracyDefaults.workBudgetCellSteps).toBe(stepGuardDefaults.maxCellSteps);
+  it('accuracyPlan() models the work against a budget within the solver\'s own (step-guards.ts), which scenario/ may not import', () => {
+    expect(accuracyDefaults.workBudgetCellSteps).toBeLessThanOrEqual(stepGuardDefaults.maxCellSteps);
   });
 
   it('accuracyPlan() refuses an accuracy whose cheapest plan exceeds the work budget, naming the budget and what it reaches', () => {

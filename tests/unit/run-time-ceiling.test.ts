@@ -100,10 +100,10 @@ describe('the ceiling mid-run', () => {
   });
 
   it('budgetMessage() names the time reached, the work spent, the limit and what to change', () => {
-    expect(budgetMessage(2000, 4000, 50_000, 8.75, 78)).toBe('the run reached its work budget at t = 8.75 of 78 s: 2000 cells × 50000 Newton ' +
-      'sweeps; the limit is 1e+8 cell-sweeps (stepGuardDefaults.maxCellSweeps, about 10 s). Use fewer cells, loosen numerics.tolerance_K ' +
+    expect(budgetMessage(2000, 4000, 125_000, 8.75, 78)).toBe('the run reached its work budget at t = 8.75 of 78 s: 2000 cells × 125000 Newton ' +
+      'sweeps; the limit is 2.5e+8 cell-sweeps (stepGuardDefaults.maxCellSweeps, about 25 s). Use fewer cells, loosen numerics.tolerance_K ' +
       'or numerics.liquid_fraction_tolerance, or shorten duration_s');
-    expect(budgetMessage(10, 5e6, 1e6, 1e6, 3e6)).toContain('10 cells × 5000000 steps tried; the limit is 5e+7 cell-steps (stepGuardDefaults.maxCellSteps)');
+    expect(budgetMessage(10, 1.3e7, 1e6, 1e6, 3e6)).toContain('10 cells × 13000000 steps tried; the limit is 1.25e+8 cell-steps (stepGuardDefaults.maxCellSteps)');
   });
 
   it('heldBackSentence() names the layer on whose error at least half of the rejected steps failed, and whether it melted', () => {
@@ -117,7 +117,7 @@ describe('the ceiling mid-run', () => {
     expect(heldBackSentence(ids, cells, Uint32Array.of(5, 0, 0), Uint32Array.of(0, 0, 0), 10)).toBe('5 of the 10 rejected steps were held back by layer "collector" (4 cells). ');
     expect(heldBackSentence(ids, cells, Uint32Array.of(4, 3, 3), Uint32Array.of(4, 3, 3), 10)).toBe('');
     expect(heldBackSentence(ids, cells, Uint32Array.of(0, 0, 0), Uint32Array.of(0, 0, 0), 0)).toBe('');
-    expect(budgetMessage(2000, 4000, 50_000, 8.75, 78, 1e8, 'X. ')).toContain('about 10 s). X. Use fewer cells');
+    expect(budgetMessage(2000, 4000, 125_000, 8.75, 78, GUARD.maxCellSweeps, 'X. ')).toContain('about 25 s). X. Use fewer cells');
   });
 
   it('switchingSentence() names frequent switching only when the events are many and a fifth of the steps or more', () => {
