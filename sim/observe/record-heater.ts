@@ -19,17 +19,23 @@ export interface HeaterRecord {
   readonly fullPowerJ: number;
   /** Highest plate temperature reached, K (−∞ if none). */
   readonly plateMaxK: number;
-  /** Time a thermostat was held in its band, s, and the start of the first step so held (NaN: never). */
+  /**
+   * Time a thermostat was held in its band, s, the start of the first step so held (NaN: never), and the window of
+   * switches of the rule that began that hold, s (heldThermostatDefaults heldWithinS or heldQuietWithinS).
+   */
   readonly heldS: number;
   readonly heldFromS: number;
+  readonly heldWithinS: number;
 }
 
 /** The warning for a thermostat held in its band (time/plates.ts; physics/heater.ts heldThermostatDefaults), or undefined when none was. */
 export function heldWarning(r: HeaterRecord): string | undefined {
   if (!(r.heldS > 0)) return undefined;
   const g = heldThermostatDefaults;
-  return `the heater's thermostat switched ${g.heldSwitches} times within ${g.heldWithinS} s by t = ${Number(r.heldFromS.toPrecision(4))} s, ` +
-    `too fast to follow one switch at a time: for ${Number(r.heldS.toPrecision(3))} s of the run its plate was held in the middle of its band, ` +
+  const why = r.heldWithinS === g.heldQuietWithinS
+    ? `its ripple in the stack under ${g.heldRippleShare} × tolerance_K` : 'too fast to follow one switch at a time';
+  return `the heater's thermostat switched ${g.heldSwitches} times within ${r.heldWithinS} s by t = ${Number(r.heldFromS.toPrecision(4))} s, ` +
+    `${why}: for ${Number(r.heldS.toPrecision(3))} s of the run its plate was held in the middle of its band, ` +
     'at the mean power of the switching (a wider band_K or a heavier plate shows each switch)';
 }
 
@@ -44,6 +50,7 @@ export function createHeaterRecorder() {
   let plateMaxK = -Infinity;
   let heldS = 0;
   let heldFromS = NaN;
+  let heldWithinS = NaN;
   /** The values for the latest row: power W, plate K. */
   const latest = { powerW: 0, plateK: NaN };
 
@@ -64,7 +71,7 @@ export function createHeaterRecorder() {
       latest.plateK = p.plateK;
       if (p.held) {
         heldS += dt;
-        if (Number.isNaN(heldFromS)) heldFromS = obs.t0;
+        if (Number.isNaN(heldFromS)) { heldFromS = obs.t0; heldWithinS = p.heldWithinS; }
       }
       plateMaxK = Math.max(plateMaxK, latest.plateK);
     }
@@ -74,6 +81,6 @@ export function createHeaterRecorder() {
     ledger,
     latest,
     onStep,
-    finish: (powerW: Float64Array, plateC: Float64Array): HeaterRecord => ({ powerW, plateC, attachedS, fullPowerJ, plateMaxK, heldS, heldFromS }),
+    finish: (powerW: Float64Array, plateC: Float64Array): HeaterRecord => ({ powerW, plateC, attachedS, fullPowerJ, plateMaxK, heldS, heldFromS, heldWithinS }),
   };
 }

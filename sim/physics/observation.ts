@@ -73,6 +73,8 @@ export interface PlateChannel {
   readonly plateK: number;
   /** Whether its thermostat was held in its band over the step, at the mean power of its switching (time/plates.ts). */
   readonly held: boolean;
+  /** While held, the window of switches of the rule that began the hold, s (heldThermostatDefaults); NaN otherwise. */
+  readonly heldWithinS: number;
 }
 
 /** The heat of the step by channel, J/m² (positive: into the stack). */
@@ -108,4 +110,4 @@ export interface StepObservation {
 }
 
 /** A plate channel with nothing in it (no heater behind the face). */
-export const NO_PLATE: PlateChannel = { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false };
+export const NO_PLATE: PlateChannel = { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false, heldWithinS: NaN };

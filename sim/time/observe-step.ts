@@ -44,8 +44,8 @@ export function createStepObserver(problem: Problem, grid: Grid): StepObserver {
     ...l, temperatureK: empty, enthalpy: empty, stageEnthalpy: empty, startHeatRate: empty, stageHeatRate: empty,
   }));
   const plates: [Writable<PlateChannel>, Writable<PlateChannel>] = [
-    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false },
-    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false },
+    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false, heldWithinS: NaN },
+    { heaterJ: 0, storedJ: 0, powerW: 0, plateK: NaN, held: false, heldWithinS: NaN },
   ];
   const energy: Writable<EnergyChannels> = { bottomJ: 0, topJ: 0, generatedJ: 0, edgesJ: 0, plates };
   const bottom: Writable<FaceSample> = { temperatureK: NaN, condition: conditionAt(problem.bottom, 0) };
@@ -100,6 +100,7 @@ export function createStepObserver(problem: Problem, grid: Grid): StepObserver {
         p.powerW = c.kind === 'heater' ? node.powerWPerM2 * c.heater.areaM2 : 0;
         p.plateK = node.tK;
         p.held = false;
+        p.heldWithinS = NaN;
       } else {
         const s = step.plates[side];
         p.heaterJ = s.heaterJ;
@@ -107,6 +108,7 @@ export function createStepObserver(problem: Problem, grid: Grid): StepObserver {
         p.powerW = s.powerW;
         p.plateK = s.plateK;
         p.held = s.held;
+        p.heldWithinS = s.heldWithinS;
       }
     }
     return obs;

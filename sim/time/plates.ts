@@ -24,6 +24,13 @@
  * from there, on below the middle, off above it. Model error: the stack sees the middle of the band, not a ripple of
  * the band's height at the cycle's frequency, which its contact and heat capacity damp, nor the relay's lean (against
  * the relay followed switch by switch: tests/verification/thermostat-held.test.ts).
+ *
+ * A slower relay (heldSwitches within heldQuietWithinS, cycles up to 0.5 s) is held the same way when that ripple is
+ * small: its largest amplitude over the stack's nodes, from the band's sawtooth at the observed cycle through the
+ * contact into the grid as last evaluated (relay-ripple.ts), at most heldRippleShare of numerics.tolerance_K. Such a
+ * hold lets go at a cycle heldQuietWithinS/heldWithinS times longer, or when the ripple at the estimated cycle passes
+ * twice that share (tests/verification/relay-ripple.test.ts). While held, the trapezoidal stage takes the law's power
+ * at its end for both halves (PlateNode.heldHd): its explicit half at full power overshot a hold begun with a long step.
  */
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
 import type { Grid } from '../grid/mesh.ts';
@@ -33,6 +40,7 @@ import type { Problem } from '../physics/problem.ts';
 import { attachBenches, beginBenchStage, commitBenches } from './bench-chain.ts';
 import type { StateSwitch, Thermostat } from './events.ts';
 import { stackSensorK, thermostat } from './events.ts';
+import { createRippleScratch, rippleInStackK, sawtoothFundamentalK } from './relay-ripple.ts';
 import { STAGE_FRACTION } from './tr-bdf2.ts';
 
 
@@ -64,7 +72,11 @@ export function beginPlateStage(ws: Workspace, cond: StepConditions, hd: number,
       // the law at the stage's own time: the trapezoidal stage ends at γ·h (hd = γ·h/2), the others at h
       heldKnees(h, node, node.t0S + (stage === 'trapezoid' ? 2 * hd : stage === 'bdf2' ? hd / BDF2_SHARE : hd));
     }
-    if (stage === 'trapezoid') node.b = node.tK + (hd * plateRate(h, node, node.tK, q0[side]!)) / h.capacityJPerM2K;
+    // held, the trapezoidal stage leaves the start's power out of b and takes the law's at its end for both halves
+    // (PlateNode.heldHd)
+    node.heldHd = node.held && stage === 'trapezoid' ? 2 * hd : hd;
+    const startPower = node.held ? node.powerWPerM2 : 0;
+    if (stage === 'trapezoid') node.b = node.tK + (hd * (plateRate(h, node, node.tK, q0[side]!) - startPower)) / h.capacityJPerM2K;
     else if (stage === 'euler') node.b = node.tK;
     else node.b = a * (Ug[nodeOf(ws, side)]! + qg[side]! / h.contactWPerM2K) - bb * node.tK;
   }
@@ -100,6 +112,11 @@ export interface PlateStep {
   plateK: number;
   /** Whether the thermostat was held in its band over the step (heldThermostatDefaults). */
   held: boolean;
+  /**
+   * While held: the window of the rule that began the hold, s (heldWithinS for a fast relay, heldQuietWithinS for one
+   * whose ripple in the stack is small); NaN otherwise.
+   */
+  heldWithinS: number;
 }
 
 export interface PlateControlOptions {
@@ -114,10 +131,18 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
   const hold = options.holdFastThermostats ?? true;
   /**
    * Each side's last heldSwitches switch times, a ring (NaN: none yet), and where the next one goes; while held, how
-   * long its plate has been out of the band.
+   * long its plate has been out of the band, and whether the hold began by the ripple rule (`quiet`).
    */
-  const switchTimes = SIDES.map(() => ({ at: new Float64Array(heldThermostatDefaults.heldSwitches).fill(NaN), next: 0, outsideS: 0 }));
+  const switchTimes = SIDES.map(() => ({ at: new Float64Array(heldThermostatDefaults.heldSwitches).fill(NaN), next: 0, outsideS: 0, quiet: false }));
   const forget = (side: 0 | 1): void => { switchTimes[side]!.at.fill(NaN); switchTimes[side]!.outsideS = 0; };
+  const rippleScratch = createRippleScratch(grid.n + 2);
+  /**
+   * The ripple a relay cycling at periodS sends into the stack, in units of what a quiet hold allows (heldRippleShare
+   * of tolerance_K): from the band's sawtooth on the plate, on the state last evaluated into ws (relay-ripple.ts).
+   */
+  const rippleOf = (h: Heater, node: PlateNode, side: 0 | 1, periodS: number): number =>
+    rippleInStackK(ws, side, h.contactWPerM2K, sawtoothFundamentalK(node.highK - node.lowK), periodS, rippleScratch) /
+    (heldThermostatDefaults.heldRippleShare * problem.numerics.toleranceK);
   /** The face temperature at the end of the last accepted step, K, per side (what the relay's estimates read). */
   const faceNowK = Float64Array.of(NaN, NaN);
   /** relayCycle()'s period and mean. */
@@ -132,13 +157,13 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
     const allowed = Math.max(heldThermostatDefaults.heldLeanShare * (node.highK - node.lowK), problem.numerics.toleranceK);
     return Math.abs(cycle[1]! - 0.5 * (node.lowK + node.highK)) / allowed;
   };
-  /** Records a switch at tS; true when it is the heldSwitches-th within heldWithinS (the oldest kept is that one back). */
-  const cyclesFast = (side: 0 | 1, tS: number): boolean => {
+  /** Records a switch at tS; returns how long the last heldSwitches switches took, s (NaN until there are as many). */
+  const switchSpan = (side: 0 | 1, tS: number): number => {
     const ring = switchTimes[side]!;
     ring.at[ring.next] = tS;
     ring.next = (ring.next + 1) % ring.at.length;
     // after the write, the slot at `next` holds the switch heldSwitches − 1 before this one
-    return tS - ring.at[ring.next]! <= heldThermostatDefaults.heldWithinS;
+    return tS - ring.at[ring.next]!;
   };
   const thermostats: Thermostat[] = SIDES.map((side) => {
     const control = () => {
@@ -156,14 +181,20 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
       onSwitch: (on, tS) => {
         const { h, c } = control()!;
         const node = ws.plates[side];
-        // cycling too fast to follow, around the middle of the band: from here the plate is held in its band by the
-        // relay's mean power (heldPower sets the levels at tS, which leanOf reads)
-        if (hold && c.sensor.kind === 'plate' && cyclesFast(side, tS)) {
+        // cycling too fast to follow, or fast with a ripple in the stack below what the run resolves, around the middle
+        // of the band: from here the plate is held in its band by the relay's mean power (heldPower sets the levels at
+        // tS, which leanOf and rippleOf read; the state in ws is the one the switch landed on)
+        const g = heldThermostatDefaults;
+        const span = hold && c.sensor.kind === 'plate' ? switchSpan(side, tS) : NaN;
+        if (span <= g.heldQuietWithinS) {
           const power = heldPower(h, node, nowK[side]!, tS);
-          if (leanOf(h, node, faceNowK[side]!) <= 1) {
+          const fast = span <= g.heldWithinS;
+          const quiet = !fast && rippleOf(h, node, side, span / ((g.heldSwitches - 1) / 2)) <= 1;
+          if ((fast || quiet) && leanOf(h, node, faceNowK[side]!) <= 1) {
             node.held = true;
             node.powerWPerM2 = power;
             forget(side);
+            switchTimes[side]!.quiet = quiet;
             return;
           }
         }
@@ -204,8 +235,8 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
   };
 
   const steps: [PlateStep, PlateStep] = [
-    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN, held: false },
-    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN, held: false },
+    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN, held: false, heldWithinS: NaN },
+    { heaterJ: 0, lossJ: 0, storedJ: 0, powerW: NaN, plateK: NaN, held: false, heldWithinS: NaN },
   ];
   return {
     switches,
@@ -264,6 +295,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         const h = cond ? heaterOn(cond, side) : undefined;
         const node = ws.plates[side];
         r.held = node.held;
+        r.heldWithinS = node.held ? (switchTimes[side]!.quiet ? heldThermostatDefaults.heldQuietWithinS : heldThermostatDefaults.heldWithinS) : NaN;
         if (!h) { r.heaterJ = 0; r.lossJ = 0; r.storedJ = 0; r.powerW = NaN; r.plateK = NaN; continue; }
         const j = nodeOf(ws, side);
         const t0 = node.tK;
@@ -291,9 +323,12 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         const ring = switchTimes[side]!;
         const g = heldThermostatDefaults;
         ring.outsideS = t1 < node.lowK || t1 > node.highK ? ring.outsideS + hS : 0;
-        // leanOf fills cycle (the period) as it goes
+        // leanOf fills cycle (the period) as it goes; a quiet hold (begun by the ripple rule) allows the longer cycles
+        // that rule admits, while their ripple stays within twice what begins one
         const lean = leanOf(h, node, U1[j]!);
-        const slow = lean > 2 || cycle[0]! > g.letGoPeriodS;
+        const quiet = ring.quiet;
+        const slow = lean > 2 || cycle[0]! > g.letGoPeriodS * (quiet ? g.heldQuietWithinS / g.heldWithinS : 1)
+          || (quiet && rippleOf(h, node, side, cycle[0]!) > 2);
         if (slow || ring.outsideS > g.heldWithinS) {
           // the relay's cycle would no longer be fast, or its mean no longer the middle, or the plate has stayed out of
           // the band (the law at full power or none there, as the relay would be) for longer than a held cycle lasts
