@@ -2,7 +2,8 @@
  * The ripple an on-off heater's relay sends into the stack, in the linear periodic regime (the method of complex
  * temperatures: Carslaw & Jaeger, Conduction of Heat in Solids, 2nd ed. 1959, §2.6; the same on the grid's own
  * semi-discrete equations). Between its two levels the relay drives the plate as a sawtooth of peak-to-peak the band
- * Δ; its fundamental, of period P, has the amplitude 4Δ/π² (the first term of a triangle wave's Fourier series). With
+ * Δ; its fundamental, of period P, has the amplitude Δ·sin(πd)/(π²·d·(1 − d)) for a rise over the share d of the
+ * cycle (the first term of its Fourier series), at most 4Δ/π², at d = ½ (the symmetric triangle), which is taken. With
  * T = T̄ + Re(θ·e^{iωt}), ω = 2π/P, the stack as last evaluated (its conductances G between nodes, and each cell's
  * dT/dH, tau) gives one complex tridiagonal system for the amplitudes θ:
  *   heater face j₀ (no mass):  G_c·(θ_p − θ_j₀) = G_j₀·(θ_j₀ − θ_next)
@@ -26,7 +27,7 @@ export function createRippleScratch(nodes: number): RippleScratch {
   return { cRe: new Float64Array(nodes), cIm: new Float64Array(nodes), dRe: new Float64Array(nodes), dIm: new Float64Array(nodes) };
 }
 
-/** The amplitude of the fundamental of a sawtooth (triangle wave) of peak-to-peak bandK, K. */
+/** The amplitude of the fundamental of a sawtooth of peak-to-peak bandK at its largest (the symmetric triangle), K. */
 export const sawtoothFundamentalK = (bandK: number): number => (4 * bandK) / (Math.PI * Math.PI);
 
 /**
