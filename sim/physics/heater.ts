@@ -117,13 +117,13 @@ export interface PlateNode {
   b: number;
   hd: number;
   /**
-   * Power over the footprint during the current step, W/m². While the thermostat is held in its band (`held`), the
-   * power at the step's start: the law's value there.
+   * Power over the footprint during the current step, W/m². Not read while the thermostat is held in its band (`held`):
+   * the held law's power is solved within each stage (plateStage).
    */
   powerWPerM2: number;
   /**
    * Whether an on-off thermostat that cycles too fast to follow is replaced by its mean (time/plates.ts): the power
-   * then follows the plate's temperature within the step (`heldPowerWPerM2`).
+   * then follows the plate's temperature within each stage (the held law, plateStage).
    */
   held: boolean;
   /** The thermostat's two levels, set-point − band and set-point, at the current stage's time, K (read only while held). */
@@ -190,22 +190,11 @@ export function relayCycle(h: Heater, lowK: number, highK: number, faceK: number
 }
 
 /**
- * The held thermostat's power at plate temperature plateK, W/m²: P_max below the middle of the node's levels − w/2,
- * none above the middle + w/2, linear between, w = heldWidthShare × band. So the plate sits within w/2 of the middle
- * of the band, where the switching plate's sawtooth has its mean, drawing the power that holds it there.
- */
-export function heldPowerWPerM2(h: Heater, node: PlateNode, plateK: number): number {
-  const half = 0.5 * heldThermostatDefaults.heldWidthShare * (node.highK - node.lowK);
-  const middle = 0.5 * (node.lowK + node.highK);
-  if (plateK <= middle - half) return h.powerWPerM2;
-  if (plateK >= middle + half) return 0;
-  return (h.powerWPerM2 * (middle + half - plateK)) / (2 * half);
-}
-
-/**
  * The plate temperature that solves the current stage for a face at faceK, K; writes dT_p/dT_face to out[0].
- * With the power fixed over the step the stage is linear in T_p (the header). Held in its band, the power falls
- * linearly from P_max at T_full to 0 at T_none (the middle of the band ∓ w/2, heldPowerWPerM2), so the stage
+ * With the power fixed over the step the stage is linear in T_p (the header). Held in its band, the power follows the
+ * held law: P_max below the middle of the node's levels − w/2, none above the middle + w/2, linear between, w =
+ * heldWidthShare × band, so that the plate sits within w/2 of the middle of the band, where the switching plate's
+ * sawtooth has its mean, drawing the power that holds it there. Then the stage
  * c′·(T_p − b) = d·h·(p(T_p) + G_c·(T_face − T_p) − h_loss·(T_p − T_∞)) is piecewise linear, its left side rising and its
  * right side falling with T_p: one root, on the piece whose own solution lies on it (full power, none, or the slope
  * between).
@@ -242,7 +231,7 @@ export function plateHeatIn(h: Heater, node: PlateNode, faceK: number, out: Floa
   return g * (plateK - faceK);
 }
 
-/** The plate's net heat rate per footprint area, W/m², given the heat q it passes into the face. */
-export function plateRate(h: Heater, node: PlateNode, plateK: number, faceQ: number): number {
-  return node.powerWPerM2 - faceQ - h.lossWPerM2K * (plateK - h.lossToK);
+/** The plate's net heat rate per footprint area, W/m², at the power powerWPerM2, given the heat q it passes into the face. */
+export function plateRate(h: Heater, powerWPerM2: number, plateK: number, faceQ: number): number {
+  return powerWPerM2 - faceQ - h.lossWPerM2K * (plateK - h.lossToK);
 }

@@ -35,7 +35,7 @@
 import type { StepConditions, Workspace } from '../grid/discretization.ts';
 import type { Grid } from '../grid/mesh.ts';
 import type { Heater, PlateNode } from '../physics/heater.ts';
-import { heldPowerWPerM2, heldThermostatDefaults, plateRate, relayCycle, setPointAt } from '../physics/heater.ts';
+import { heldThermostatDefaults, plateRate, relayCycle, setPointAt } from '../physics/heater.ts';
 import type { Problem } from '../physics/problem.ts';
 import { attachBenches, beginBenchStage, commitBenches } from './bench-chain.ts';
 import type { StateSwitch, Thermostat } from './events.ts';
@@ -75,8 +75,8 @@ export function beginPlateStage(ws: Workspace, cond: StepConditions, hd: number,
     // held, the trapezoidal stage leaves the start's power out of b and takes the law's at its end for both halves
     // (PlateNode.heldHd)
     node.heldHd = node.held && stage === 'trapezoid' ? 2 * hd : hd;
-    const startPower = node.held ? node.powerWPerM2 : 0;
-    if (stage === 'trapezoid') node.b = node.tK + (hd * (plateRate(h, node, node.tK, q0[side]!) - startPower)) / h.capacityJPerM2K;
+    const startPower = node.held ? 0 : node.powerWPerM2;
+    if (stage === 'trapezoid') node.b = node.tK + (hd * plateRate(h, startPower, node.tK, q0[side]!)) / h.capacityJPerM2K;
     else if (stage === 'euler') node.b = node.tK;
     else node.b = a * (Ug[nodeOf(ws, side)]! + qg[side]! / h.contactWPerM2K) - bb * node.tK;
   }
@@ -91,12 +91,6 @@ function heldKnees(h: Heater, node: PlateNode, tS: number): void {
   if (c.kind !== 'on-off') return;
   node.highK = setPointAt(h.setPoints, tS);
   node.lowK = node.highK - c.bandK;
-}
-
-/** The held law's power at plate temperature plateK at time tS, W/m². */
-function heldPower(h: Heater, node: PlateNode, plateK: number, tS: number): number {
-  heldKnees(h, node, tS);
-  return heldPowerWPerM2(h, node, plateK);
 }
 
 /** What a heater did over one accepted step, per footprint area. */
@@ -182,17 +176,16 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         const { h, c } = control()!;
         const node = ws.plates[side];
         // cycling too fast to follow, or fast with a ripple in the stack below what the run resolves, around the middle
-        // of the band: from here the plate is held in its band by the relay's mean power (heldPower sets the levels at
+        // of the band: from here the plate is held in its band by the relay's mean power (heldKnees sets the levels at
         // tS, which leanOf and rippleOf read; the state in ws is the one the switch landed on)
         const g = heldThermostatDefaults;
         const span = hold && c.sensor.kind === 'plate' ? switchSpan(side, tS) : NaN;
         if (span <= g.heldQuietWithinS) {
-          const power = heldPower(h, node, nowK[side]!, tS);
+          heldKnees(h, node, tS);
           const fast = span <= g.heldWithinS;
           const quiet = !fast && rippleOf(h, node, side, span / ((g.heldSwitches - 1) / 2)) <= 1;
           if ((fast || quiet) && leanOf(h, node, faceNowK[side]!) <= 1) {
             node.held = true;
-            node.powerWPerM2 = power;
             forget(side);
             switchTimes[side]!.quiet = quiet;
             return;
@@ -264,7 +257,7 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         }
         // a heater newly under the stack starts on; one that stays keeps its thermostat's state (held or switching)
         if (was !== h) { thermostats[side]!.reset(true); node.held = false; forget(side); }
-        if (node.held) { node.powerWPerM2 = heldPower(h, node, node.tK, tS); continue; }
+        if (node.held) { heldKnees(h, node, tS); continue; }
         node.powerWPerM2 = h.control.kind === 'constant' || thermostats[side]!.isOn() ? h.powerWPerM2 : 0;
       }
     },
@@ -318,8 +311,8 @@ export function createPlateControl(problem: Problem, grid: Grid, ws: Workspace, 
         nowK[side] = t1;
         faceNowK[side] = U1[j]!;
         if (!node.held) continue;
-        // the law at the end starts the next step (its trapezoidal stage reads the start's power)
-        node.powerWPerM2 = heldPower(h, node, t1, node.t0S + hS);
+        // the levels at the step's end, which the checks below read
+        heldKnees(h, node, node.t0S + hS);
         const ring = switchTimes[side]!;
         const g = heldThermostatDefaults;
         ring.outsideS = t1 < node.lowK || t1 > node.highK ? ring.outsideS + hS : 0;
