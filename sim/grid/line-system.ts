@@ -2,7 +2,7 @@
  * The 1D layer stack as a stage system (stage-system.ts): the state is [bottom face temperature K, cell enthalpies
  * J/m³, top face temperature K] (n + 2 entries), the cells' mass is their width Δx, the face nodes are constraints
  * (zero volume: the half-cell conduction balances the face's heat input, or the face is held). It wraps the kernels
- * of discretization.ts (evaluate, stageResidual, stageJacobian, linearizeCellTerms) and the Thomas solve; what it
+ * of discretization.ts (evaluate, stageResidual, stageJacobian, linearizeCellTerms) and the tridiagonal solve; what it
  * adds is what only the stack knows:
  * - the Newton update stops a cell at the solidus or liquidus kink of its T(H) (newton-kinks.ts), and a face node whose
  *   cell stopped takes the update its own linearised balance gives for the shortened one;
