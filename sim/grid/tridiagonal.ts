@@ -67,7 +67,8 @@ export function solveTridiagonal(
   // row m, with x[m−1] and x[m+1] written in x[m] from the rows beside it
   let pivot = diag[m]!;
   let rhs = d[m]!;
-  if (m > 0) { pivot -= lower[m]! * work[m - 1]!; rhs -= lower[m]! * x[m - 1]!; }
+  pivot -= lower[m]! * work[m - 1]!;
+  rhs -= lower[m]! * x[m - 1]!;
   if (m < n - 1) { pivot -= upper[m]! * work[m + 1]!; rhs -= upper[m]! * x[m + 1]!; }
   if (pivot === 0) return false;
   x[m] = rhs / pivot;

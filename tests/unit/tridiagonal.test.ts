@@ -68,5 +68,33 @@ describe('solveTridiagonal()', () => {
     const zeroSecond = solveTridiagonal(2, Float64Array.of(0, 1), Float64Array.of(1, 1), Float64Array.of(1, 0),
       Float64Array.of(1, 1), new Float64Array(2), new Float64Array(2));
     expect(zeroSecond).toBe(false);
+    expect(solveTridiagonal(1, Float64Array.of(0), Float64Array.of(0), Float64Array.of(0), Float64Array.of(1), new Float64Array(1), new Float64Array(1))).toBe(false);
+  });
+
+  it('solveTridiagonal() reports a singular system by returning false wherever its elimination meets the zero pivot', () => {
+    // rows 4 on the diagonal and 1 beside it, with a singular 2 × 2 block (rows [1 1] and [1 1], uncoupled from the
+    // rows around it) or a zero row placed where each part of the elimination reaches it: the downward sweep's first
+    // rows and its last (n even: one row more than the upward sweep), the upward sweep's first row and a later one
+    const singular = (n: number, block: number[], zeroRow?: number) => {
+      const lower = Float64Array.from({ length: n }, (_, i) => (i === 0 ? 0 : 1));
+      const upper = Float64Array.from({ length: n }, (_, i) => (i === n - 1 ? 0 : 1));
+      const diag = new Float64Array(n).fill(4);
+      for (const r of block) diag[r] = 1;
+      if (block.length === 2) { lower[block[0]!] = 0; upper[block[1]!] = 0; }
+      if (zeroRow !== undefined) { lower[zeroRow] = 0; diag[zeroRow] = 0; upper[zeroRow] = 0; }
+      return solveTridiagonal(n, lower, diag, upper, new Float64Array(n).fill(1), new Float64Array(n), new Float64Array(n));
+    };
+    expect(singular(6, [0, 1])).toBe(false); // downward, row 1
+    expect(singular(6, [1, 2])).toBe(false); // downward, row 2: the sweep's extra row (n even)
+    expect(singular(5, [3, 4])).toBe(false); // upward, row 3
+    expect(singular(3, [], 2)).toBe(false); // upward, its first row
+    expect(singular(6, [2, 3])).toBe(false); // row m = 3, where the two sweeps meet
+  });
+
+  it('solveTridiagonal() solves a 2 × 2 system with a zero in the last diagonal entry (row 1 is where the sweeps meet)', () => {
+    // [[1, 1], [1, 0]]·x = [3, 2]: x = [2, 1]
+    const x = new Float64Array(2);
+    expect(solveTridiagonal(2, Float64Array.of(0, 1), Float64Array.of(1, 0), Float64Array.of(1, 0), Float64Array.of(3, 2), x, new Float64Array(2))).toBe(true);
+    expect(Array.from(x)).toEqual([2, 1]);
   });
 });
