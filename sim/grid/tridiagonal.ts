@@ -56,7 +56,8 @@ export function solveTridiagonal(
     work[r] = lower[r]! * upInverse;
     x[r] = (d[r]! - upper[r]! * x[r + 1]!) * upInverse;
   }
-  // the downward sweep has one row more than the upward one when n is even
+  // the downward sweep has one row more than the upward one when n is even (a single row, with no second chain to
+  // overlap: its pivot is written as the one-ended sweep writes it, from work[i − 1])
   for (let i = Math.max(1, up); i < m; i++) {
     const downPivot = diag[i]! - lower[i]! * work[i - 1]!;
     if (downPivot === 0) return false;
@@ -65,10 +66,8 @@ export function solveTridiagonal(
     x[i] = (d[i]! - lower[i]! * x[i - 1]!) * downInverse;
   }
   // row m, with x[m−1] and x[m+1] written in x[m] from the rows beside it
-  let pivot = diag[m]!;
-  let rhs = d[m]!;
-  pivot -= lower[m]! * work[m - 1]!;
-  rhs -= lower[m]! * x[m - 1]!;
+  let pivot = diag[m]! - lower[m]! * work[m - 1]!;
+  let rhs = d[m]! - lower[m]! * x[m - 1]!;
   if (m < n - 1) { pivot -= upper[m]! * work[m + 1]!; rhs -= upper[m]! * x[m + 1]!; }
   if (pivot === 0) return false;
   x[m] = rhs / pivot;
