@@ -1,6 +1,6 @@
-// solveTridiagonal() (elimination from both ends, sim/grid/tridiagonal.ts) against a dense Gaussian elimination with partial
-// pivoting written here (Golub & Van Loan, Matrix Computations, 4th ed., Algorithm 3.4.1), on random diagonally
-// dominant systems from a seeded generator.
+// solveTridiagonal() (elimination from both ends, sim/grid/tridiagonal.ts) against a dense Gaussian elimination with
+// partial pivoting written here (Golub & Van Loan, Matrix Computations, 4th ed., Algorithm 3.4.1), on random diagonally
+// dominant systems from a seeded generator; and its refusal of singular systems, wherever the elimination meets them.
 
 import { describe, expect, it } from 'vitest';
 import { solveTridiagonal } from '../../sim/grid/tridiagonal.ts';
