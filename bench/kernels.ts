@@ -1,6 +1,6 @@
 /**
  * `npm run bench` (part): the cost of each kernel of a Newton sweep, in ns per cell, on one state. The demo with 1600
- * cells at ×0.01 tolerances is run to t = 50 s (its separator melting, cells on every branch of the kernels); each
+ * cells at ×0.01 tolerances (bench/demo-problem.ts: the scaling row of bench/solver.ts) is run to t = 50 s (its separator melting, cells on every branch of the kernels); each
  * kernel is then called over and over on that state, and the figure is the least time per call over nine rounds
  * (the rounds absorb the machine's other load; the state and so the branches taken are the same in every call, so
  * these are the kernels' own costs, a lower bound of what a run spends in them). A whole TR-BDF2 step of 0.05 s from
@@ -10,7 +10,6 @@
  * nothing here asserts a time.
  */
 import { spawnSync } from 'node:child_process';
-import scenario from '../examples/bench-coupon.json' with { type: 'json' };
 import { evaluate, stageJacobian, stageResidual } from '../sim/grid/discretization.ts';
 import { LineSystem } from '../sim/grid/line-system.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
@@ -18,12 +17,11 @@ import { createStepBuffers } from '../sim/grid/stage-system.ts';
 import { solveTridiagonal } from '../sim/grid/tridiagonal.ts';
 import { temperaturesOf } from '../sim/physics/material.ts';
 import { solvedProblem } from '../sim/run.ts';
-import { parseScenario } from '../sim/scenario/scenario.ts';
-import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
 import type { StepReport } from '../sim/time/evolve.ts';
 import { evolve, evolveDefaults } from '../sim/time/evolve.ts';
 import type { StepOutcome } from '../sim/time/tr-bdf2.ts';
 import { takeStep } from '../sim/time/tr-bdf2.ts';
+import { demoProblem } from './demo-problem.ts';
 
 const CELLS = 1600;
 const AT_S = 50;
@@ -42,19 +40,10 @@ interface Measured {
 }
 
 function measure(): Measured {
-  const file = structuredClone(scenario) as unknown as ScenarioFile;
-  const thickness = file.layers.reduce((a, l) => a + l.thickness_mm, 0);
-  let left = CELLS;
-  file.layers.forEach((l, i) => {
-    const share = i === file.layers.length - 1 ? left : Math.round((CELLS * l.thickness_mm) / thickness);
-    (l as { cells?: number }).cells = share;
-    left -= share;
-  });
-  (file as { numerics?: object }).numerics = { tolerance_K: 0.002, liquid_fraction_tolerance: 4e-5 };
-  const parsed = parseScenario(file);
-  if (!parsed.ok) throw new Error(parsed.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
-  const problem = solvedProblem(parsed.problem);
-  const grid = buildGrid(problem, 1);
+  // the scaling row `npm run bench` prints as "×0.01, as written, 1600 cells", built as that row and runProblem build it
+  const problem = solvedProblem(demoProblem(CELLS, 0.01, 0));
+  const gridRefine = problem.numerics.accuracy!.gridRefine;
+  const grid = buildGrid(problem, gridRefine);
   const n = grid.n;
 
   // the state at AT_S
@@ -69,7 +58,7 @@ function measure(): Measured {
   const { ws, cond } = report;
   const numerics = problem.numerics;
   const line = new LineSystem(ws, {
-    toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: 1,
+    toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine,
     separator: problem.layers.map((l) => l.separator),
   }, () => {}, cond);
   const buf = createStepBuffers(line);

@@ -20,8 +20,8 @@ import type { Problem } from '../sim/physics/problem.ts';
 import { runProblem } from '../sim/run.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
-import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
 import { runPeer } from './peer-bdf.ts';
+import { DEMO_BASE_CELLS, demoProblem, parseDemo as parse } from './demo-problem.ts';
 
 const QUICK = process.env.BENCH_QUICK === '1';
 const ONLY_ACCURACY = process.env.BENCH_PART === 'accuracy';
@@ -29,35 +29,8 @@ const SCALING_CELLS = QUICK ? [50, 100, 200, 400, 800] : [50, 100, 200, 400, 800
 const RUNS = 15;
 const TIGHT = 0.01;
 
-function parse(file: unknown): Problem {
-  const parsed = parseScenario(file);
-  if (!parsed.ok) throw new Error(parsed.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
-  return parsed.problem;
-}
-
-/** Cells of the scaling rows' base grid: each row refines it by an exact factor (the accuracy plan's grid factor). */
-const SCALING_BASE = SCALING_CELLS[0]!;
-
-/**
- * The demo with `total` cells (SCALING_BASE shared by thickness, times total / SCALING_BASE), tolerances × `tolScale`;
- * `rampK` > 0 smooths the melt kinks. The refinement goes through the plan's grid factor, as an accuracy plan refines,
- * so the liquid-fraction error is measured per base cell at every row (the molten-thickness allowance stays the same
- * length while the cells shrink): the rows hold the time accuracy fixed and vary only the grid.
- */
-function demoProblem(total: number, tolScale: number, rampK: number): Problem {
-  const file = structuredClone(scenario) as unknown as ScenarioFile;
-  const thickness = file.layers.reduce((a, l) => a + l.thickness_mm, 0);
-  let left = SCALING_BASE;
-  file.layers.forEach((l, i) => {
-    const share = i === file.layers.length - 1 ? left : Math.max(1, Math.round((SCALING_BASE * l.thickness_mm) / thickness));
-    (l as { cells?: number }).cells = share;
-    left -= share;
-  });
-  (file as { numerics?: object }).numerics = { tolerance_K: 0.2 * tolScale, liquid_fraction_tolerance: 4e-3 * tolScale };
-  const p = parse(file);
-  // the file gives grid and tolerances, so its plan keeps the curve as written; grid factor and ramp are set here
-  return { ...p, numerics: { ...p.numerics, accuracy: { ...p.numerics.accuracy!, gridRefine: total / SCALING_BASE, meltRampK: rampK } } };
-}
+// the scaling rows refine the demos' base grid (bench/demo-problem.ts), whose size is the first row
+if (SCALING_CELLS[0] !== DEMO_BASE_CELLS) throw new Error('the first scaling row is the base grid');
 
 /**
  * The heavy rows and the accuracy table time long runs on purpose: they lift the run-time ceiling

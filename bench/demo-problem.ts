@@ -1,0 +1,42 @@
+/**
+ * The demo (examples/bench-coupon.json) as the benchmarks refine it, shared by bench/solver.ts (its scaling rows) and
+ * bench/kernels.ts (the state its kernels are timed on), so that both measure the same runs.
+ */
+import scenario from '../examples/bench-coupon.json' with { type: 'json' };
+import type { Problem } from '../sim/physics/problem.ts';
+import { parseScenario, scenarioDefaults } from '../sim/scenario/scenario.ts';
+import type { ScenarioFile } from '../sim/scenario/scenario-schema.ts';
+
+/** A scenario file parsed, or an Error naming each refusal. */
+export function parseDemo(file: unknown): Problem {
+  const parsed = parseScenario(file);
+  if (!parsed.ok) throw new Error(parsed.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
+  return parsed.problem;
+}
+
+/** Cells of the base grid the refined demos share: each refines it by an exact factor (the accuracy plan's grid factor). */
+export const DEMO_BASE_CELLS = 50;
+
+/**
+ * The demo with `total` cells (DEMO_BASE_CELLS shared by thickness, times total / DEMO_BASE_CELLS), tolerances ×
+ * `tolScale` (of the scenario defaults, scenarioDefaults.toleranceK and .liquidFractionTolerance); `rampK` > 0 smooths
+ * the melt kinks. The refinement goes through the plan's grid factor, as an accuracy plan refines, so the liquid-fraction
+ * error is measured per base cell at every size (the molten-thickness allowance stays the same length while the cells
+ * shrink): the sizes hold the time accuracy fixed and vary only the grid.
+ */
+export function demoProblem(total: number, tolScale: number, rampK: number): Problem {
+  const file = structuredClone(scenario) as unknown as ScenarioFile;
+  const thickness = file.layers.reduce((a, l) => a + l.thickness_mm, 0);
+  let left = DEMO_BASE_CELLS;
+  file.layers.forEach((l, i) => {
+    const share = i === file.layers.length - 1 ? left : Math.max(1, Math.round((DEMO_BASE_CELLS * l.thickness_mm) / thickness));
+    (l as { cells?: number }).cells = share;
+    left -= share;
+  });
+  (file as { numerics?: object }).numerics = {
+    tolerance_K: scenarioDefaults.toleranceK * tolScale, liquid_fraction_tolerance: scenarioDefaults.liquidFractionTolerance * tolScale,
+  };
+  const p = parseDemo(file);
+  // the file gives grid and tolerances, so its plan keeps the curve as written; grid factor and ramp are set here
+  return { ...p, numerics: { ...p.numerics, accuracy: { ...p.numerics.accuracy!, gridRefine: total / DEMO_BASE_CELLS, meltRampK: rampK } } };
+}
