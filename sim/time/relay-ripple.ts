@@ -46,14 +46,13 @@ export function rippleInStackK(ws: Workspace, side: 0 | 1, contactWPerM2K: numbe
   // face is always row 0: G between system nodes k and k + 1 is G[k] or G[n − k]
   const gAt = (k: number): number => (side === 0 ? G[k]! : G[n - k]!);
   // Thomas elimination with complex pivots: row k is a_k·θ_{k−1} + b_k·θ_k + c_k·θ_{k+1} = d_k, a and c real
-  let pRe = contactWPerM2K + gAt(0);
-  let pIm = 0;
-  // row 0: (G_c + G_0)·θ_0 − G_0·θ_1 = G_c·θ_p
-  let inv = 1 / (pRe * pRe + pIm * pIm);
-  s.cRe[0] = -gAt(0) * pRe * inv;
-  s.cIm[0] = gAt(0) * pIm * inv;
-  s.dRe[0] = contactWPerM2K * plateAmplitudeK * pRe * inv;
-  s.dIm[0] = -contactWPerM2K * plateAmplitudeK * pIm * inv;
+  // row 0: (G_c + G_0)·θ_0 − G_0·θ_1 = G_c·θ_p, all of it real (the face has no mass)
+  const p0 = contactWPerM2K + gAt(0);
+  const inv0 = 1 / (p0 * p0);
+  s.cRe[0] = -gAt(0) * p0 * inv0;
+  s.cIm[0] = 0;
+  s.dRe[0] = contactWPerM2K * plateAmplitudeK * p0 * inv0;
+  s.dIm[0] = 0;
   for (let k = 1; k < m; k++) {
     let a: number;
     let bRe: number;
@@ -71,9 +70,9 @@ export function rippleInStackK(ws: Workspace, side: 0 | 1, contactWPerM2K: numbe
       a = -t * gBelow; bRe = t * (gBelow + gAbove); bIm = omega * dx[cell]!; c = -t * gAbove;
     }
     // b − a·c′_{k−1}, then c′_k = c/(that), d′_k = (d − a·d′_{k−1})/(that)
-    pRe = bRe - a * s.cRe[k - 1]!;
-    pIm = bIm - a * s.cIm[k - 1]!;
-    inv = 1 / (pRe * pRe + pIm * pIm);
+    const pRe = bRe - a * s.cRe[k - 1]!;
+    const pIm = bIm - a * s.cIm[k - 1]!;
+    const inv = 1 / (pRe * pRe + pIm * pIm);
     s.cRe[k] = c * pRe * inv;
     s.cIm[k] = -c * pIm * inv;
     const rRe = -a * s.dRe[k - 1]!;
