@@ -256,6 +256,27 @@ export function enthalpyAt(curve: EnthalpyCurve, tK: number): number {
 }
 
 /**
+ * Within a segment of capacity c_l + s·d: the temperature step d (K) that takes up ΔH (J/m³), the root of
+ * ½·s·d² + c_l·d − ΔH = 0 in the cancellation-free form d = 2ΔH/(c_l + r), r = √(c_l² + 2·s·ΔH), to out[0]; and dT/dH
+ * there, 1/(c_l + s·d) = 1/r, to out[1]. Both come from one division, 1/(r·(c_l + r)), where two chained ones were
+ * (a division costs several multiplications). With no capacity left at the end (r = 0, a curve no valid material
+ * has) the two-division form. temperaturesOf() writes the same operations out.
+ */
+function quadraticStep(cl: number, slope: number, dh: number, out: Float64Array): void {
+  const root = Math.sqrt(Math.max(cl * cl + 2 * slope * dh, 0));
+  const sum = cl + root;
+  if (root > 0) {
+    const q = 1 / (root * sum);
+    out[0] = 2 * dh * root * q;
+    out[1] = sum * q;
+  } else {
+    const d = (2 * dh) / sum;
+    out[0] = d;
+    out[1] = 1 / (cl + slope * d);
+  }
+}
+
+/**
  * T(H) in K, and dT/dH (K·m³/J) written to `out[0]`, `out[1]`. Zero slope on an isothermal jump.
  * `hint` is the segment index where the search starts (the previous answer for this cell); the new index is returned.
  * Overwrites `out[0..1]`. Allocates nothing.
@@ -287,11 +308,10 @@ export function temperatureOf(curve: EnthalpyCurve, hJ: number, hint: number, ou
   const cl = cLeft[i]!;
   const slope = (cRight[i]! - cl) / width;
   const dh = hJ - h[i]!;
-  // root of ½·s·d² + c_l·d − ΔH = 0 in the cancellation-free form
-  const root = Math.sqrt(Math.max(cl * cl + 2 * slope * dh, 0));
-  const d = (2 * dh) / (cl + root);
-  out[0] = xs[i]! + d;
-  out[1] = 1 / (cl + slope * d);
+  // root of ½·s·d² + c_l·d − ΔH = 0 in the cancellation-free form, d = 2ΔH/(c_l + r), r = √(c_l² + 2·s·ΔH), and the
+  // capacity there c_l + s·d = r: both from one division (quadraticStep)
+  quadraticStep(cl, slope, dh, out);
+  out[0] = xs[i]! + out[0]!;
   return i;
 }
 
@@ -349,13 +369,21 @@ export function temperaturesOf(curve: EnthalpyCurve, slopes: Float64Array, U: Fl
       tau[j] = 0;
       continue;
     }
+    // quadraticStep() written out (the loop's hot path)
     const cl = cLeft[i]!;
     const slope = slopes[i]!;
     const dh = hJ - h[i]!;
     const root = Math.sqrt(Math.max(cl * cl + 2 * slope * dh, 0));
-    const d = (2 * dh) / (cl + root);
-    T[j] = x0 + d;
-    tau[j] = 1 / (cl + slope * d);
+    const sum = cl + root;
+    if (root > 0) {
+      const q = 1 / (root * sum);
+      T[j] = x0 + 2 * dh * root * q;
+      tau[j] = sum * q;
+    } else {
+      const d = (2 * dh) / sum;
+      T[j] = x0 + d;
+      tau[j] = 1 / (cl + slope * d);
+    }
   }
 }
 
