@@ -39,6 +39,25 @@ describe('Raithby–Hollands correlations at low Rayleigh numbers (hand calculat
     assertClose(raithbyHollandsDown(ra, PR_AIR), Math.min(up, down), ROUNDED, `Nu down at Ra ${ra}`);
   });
 
+  it('raithbyHollandsUp() and raithbyHollandsDown() are the formulas as printed, within 1e-13, over Ra 10⁻²–10⁴ and Pr 0.68–0.74', () => {
+    // The solver forms the powers from logarithms and exponentials (natural-convection.ts); here they are written as
+    // the handbook prints them (header), with powers. Tolerance 1e-13 relative: a few roundings of each form.
+    const up = (ra: number, pr: number) => {
+      const cl = 0.671 / (1 + (0.492 / pr) ** (9 / 16)) ** (4 / 9);
+      const nuL = 1.4 / Math.log(1 + 1.4 / (0.835 * cl * ra ** 0.25));
+      const nuT = 0.14 * ((1 + 0.0107 * pr) / (1 + 0.01 * pr)) * ra ** (1 / 3);
+      return Math.max((nuL ** 10 + nuT ** 10) ** 0.1, 2 / Math.PI);
+    };
+    const down = (ra: number, pr: number) => 2.5 / Math.log(1 + 2.5 / ((0.527 * ra ** 0.2) / (1 + (1.9 / pr) ** 0.9) ** (2 / 9)));
+    for (let e = -2; e <= 4; e += 0.05) {
+      for (const pr of [0.68, 0.7, 0.72, 0.74]) {
+        const ra = 10 ** e;
+        assertClose(raithbyHollandsUp(ra, pr), up(ra, pr), { rel: 1e-13 }, `up, Ra ${ra.toPrecision(3)}, Pr ${pr}`);
+        assertClose(raithbyHollandsDown(ra, pr), Math.min(down(ra, pr), up(ra, pr)), { rel: 1e-13 }, `down, Ra ${ra.toPrecision(3)}, Pr ${pr}`);
+      }
+    }
+  });
+
   it('raithbyHollandsUp() never drops below the conduction limit 2/π of a disc on an adiabatic plane (S = 2D, Incropera Table 4.1, from memory)', () => {
     for (const ra of [1e-6, 1e-3, 0.01, 0.1]) expect(raithbyHollandsUp(ra, PR_AIR)).toBeGreaterThanOrEqual(2 / Math.PI);
     // Tolerance 1e-12: at Ra = 1e-6 the floor is in force and the value is the constant itself.
