@@ -40,10 +40,11 @@ describe('searchWindow() against a brute-force scan of the hold', () => {
     expect(r.longest!.binding?.kind).toBe('ignition');
     expect(r.monotonic).toBe(true);
     expect(r.safe).toHaveLength(1);
-    // a guard on the count, measured on this code (the answers are checked against brute force below): 28 solves
-    // since the tridiagonal solve eliminates from both ends (27 with the one-ended sweep's rounding, one bracket step
-    // more), 32 when the molten edge was halved instead of narrowed from the molten neighbour's molten time
-    expect(r.solves).toBeLessThanOrEqual(28);
+    // a guard on the count, measured on this code (the answers are checked against brute force below): 26 solves
+    // since face convection and T(H) are evaluated without Math.pow and with one division (their last bits), 28 with
+    // the rounding before them, 27 with the one-ended tridiagonal sweep's, 32 when the molten edge was halved instead
+    // of narrowed from the molten neighbour's molten time
+    expect(r.solves).toBeLessThanOrEqual(26);
   });
 
   it('searchWindow() puts the longest hold where a 1 s scan of the hold finds the margin running out', () => {
