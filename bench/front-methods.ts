@@ -34,8 +34,11 @@ import type { StageKind, StageSystem, UpdateSize } from '../sim/grid/stage-syste
 import { createStepBuffers } from '../sim/grid/stage-system.ts';
 import { solveTridiagonal } from '../sim/grid/tridiagonal.ts';
 import { stopAtKink } from '../sim/grid/newton-kinks.ts';
+import { KINK_NUDGE_K } from '../sim/grid/line-system.ts';
 import { drive } from '../sim/time/drive.ts';
+import { evolveDefaults } from '../sim/time/evolve.ts';
 import { scenarioDefaults } from '../sim/scenario/scenario.ts';
+import { cToK } from '../sim/physics/units.ts';
 import { STEFAN, stefanTimes } from '../tests/support/stefan-problem.ts';
 import { erf } from '../tests/support/special.ts';
 
@@ -46,14 +49,14 @@ const TIGHT = 0.01;
 const WALLS_BELOW_K = [100, 5] as const;
 
 const { thicknessM: W, k, rho, cp, latent } = STEFAN;
-const TM = STEFAN.meltC + 273.15;
+const TM = cToK(STEFAN.meltC);
 const RC = rho * cp;
 const RL = rho * latent;
 const ALPHA = k / RC;
 /** Level-0 cell width, m: the allowance of the front's error is tol_f times it, as the scaling rows have it (50 cells). */
 const LEVEL0_M = W / 50;
-/** Nudge past a kink, in kelvin of ρc_p (grid/line-system.ts KINK_NUDGE_K). */
-const NUDGE = RC * 1e-9;
+/** Nudge past a kink, J/m³: the product's, in kelvin of ρc_p. */
+const NUDGE = RC * KINK_NUDGE_K;
 
 interface Tolerances { readonly tolK: number; readonly tolF: number }
 
@@ -441,8 +444,8 @@ function run(method: Method, n: number, wallBelowK: number, tol: Tolerances) {
   const start = performance.now();
   const end = drive(sys, buf, {
     endS: duration,
-    stepping: { kind: 'adaptive', firstStepS: 0.01, maxStepS: duration / 100 },
-    newton: { toleranceK: tol.tolK * 1e-2, maxIterations: 12 },
+    stepping: { kind: 'adaptive', firstStepS: evolveDefaults.firstStepS, maxStepS: duration * scenarioDefaults.maxStepShare },
+    newton: { toleranceK: tol.tolK * evolveDefaults.newtonShare, maxIterations: evolveDefaults.maxNewtonIterations },
     maxSteps: 5e6,
   }, (_t0, t1) => {
     const x = position(buf.U1);

@@ -41,7 +41,7 @@ export type BeforeStage = (ws: Workspace, cond: StepConditions, hd: number, stag
   q0: Float64Array, qg: Float64Array, Ug: Float64Array, a: number, bb: number) => void;
 
 /** Nudge past a kink, in kelvin-equivalent enthalpy: far below any tolerance, far above round-off. */
-const KINK_NUDGE_K = 1e-9;
+export const KINK_NUDGE_K = 1e-9;
 
 /**
  * How near (in level-0 cells of the layer) a layer's molten thickness must come to one of its event thicknesses (none,
