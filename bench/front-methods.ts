@@ -36,11 +36,12 @@ import { solveTridiagonal } from '../sim/grid/tridiagonal.ts';
 import { stopAtKink } from '../sim/grid/newton-kinks.ts';
 import { KINK_NUDGE_K } from '../sim/grid/line-system.ts';
 import { drive } from '../sim/time/drive.ts';
-import { evolveDefaults } from '../sim/time/evolve.ts';
+import { evolveDefaults, newtonSettingsOf } from '../sim/time/evolve.ts';
 import { scenarioDefaults } from '../sim/scenario/scenario.ts';
 import { cToK } from '../sim/physics/units.ts';
 import { STEFAN, stefanTimes } from '../tests/support/stefan-problem.ts';
 import { erf } from '../tests/support/special.ts';
+import { DEMO_BASE_CELLS } from './demo-problem.ts';
 
 const QUICK = process.env.BENCH_QUICK === '1';
 const CELLS = QUICK ? [50, 100, 200, 400] : [50, 100, 200, 400, 800];
@@ -53,8 +54,8 @@ const TM = cToK(STEFAN.meltC);
 const RC = rho * cp;
 const RL = rho * latent;
 const ALPHA = k / RC;
-/** Level-0 cell width, m: the allowance of the front's error is tol_f times it, as the scaling rows have it (50 cells). */
-const LEVEL0_M = W / 50;
+/** Level-0 cell width, m: the allowance of the front's error is tol_f times it, as the scaling rows have it. */
+const LEVEL0_M = W / DEMO_BASE_CELLS;
 /** Nudge past a kink, J/m³: the product's, in kelvin of ρc_p. */
 const NUDGE = RC * KINK_NUDGE_K;
 
@@ -445,7 +446,7 @@ function run(method: Method, n: number, wallBelowK: number, tol: Tolerances) {
   const end = drive(sys, buf, {
     endS: duration,
     stepping: { kind: 'adaptive', firstStepS: evolveDefaults.firstStepS, maxStepS: duration * scenarioDefaults.maxStepShare },
-    newton: { toleranceK: tol.tolK * evolveDefaults.newtonShare, maxIterations: evolveDefaults.maxNewtonIterations },
+    newton: newtonSettingsOf(tol.tolK),
     maxSteps: 5e6,
   }, (_t0, t1) => {
     const x = position(buf.U1);

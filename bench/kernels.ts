@@ -18,7 +18,7 @@ import { solveTridiagonal } from '../sim/grid/tridiagonal.ts';
 import { temperaturesOf } from '../sim/physics/material.ts';
 import { solvedProblem } from '../sim/run.ts';
 import type { StepReport } from '../sim/time/evolve.ts';
-import { evolve, evolveDefaults } from '../sim/time/evolve.ts';
+import { errorScaleOf, evolve, newtonSettingsOf } from '../sim/time/evolve.ts';
 import type { StepOutcome } from '../sim/time/tr-bdf2.ts';
 import { takeStep } from '../sim/time/tr-bdf2.ts';
 import { demoProblem } from './demo-problem.ts';
@@ -57,17 +57,14 @@ function measure(): Measured {
   }
   const { ws, cond } = report;
   const numerics = problem.numerics;
-  const line = new LineSystem(ws, {
-    toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine,
-    separator: problem.layers.map((l) => l.separator),
-  }, () => {}, cond);
+  const line = new LineSystem(ws, errorScaleOf(problem), () => {}, cond);
   const buf = createStepBuffers(line);
   buf.U0.set(report.buf.U1);
   line.evaluate(buf.U0);
   line.readRates(buf.F0);
   line.readChannels(buf.q0);
   line.markStart();
-  const newton = { toleranceK: numerics.toleranceK * evolveDefaults.newtonShare, maxIterations: evolveDefaults.maxNewtonIterations };
+  const newton = newtonSettingsOf(numerics.toleranceK);
   const outcome: StepOutcome = { status: 'ok', errorNorm: 0, newtonIterations: 0 };
   takeStep(line, buf, STEP_S, newton, false, outcome);
   if (outcome.status !== 'ok') throw new Error(`the timed step failed (${outcome.status})`);

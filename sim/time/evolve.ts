@@ -138,6 +138,20 @@ export function initialState(problem: Problem, grid: Grid, U: Float64Array): voi
   for (let i = 0; i < grid.n; i++) U[i + 1] = enthalpyAt(writtenCurve(grid.materials[i]!), problem.initialK);
 }
 
+/** What the stack's step error is measured against (grid/line-system.ts errorNorm): the problem's tolerances and plan. */
+export function errorScaleOf(problem: Problem): ErrorScale {
+  const numerics = problem.numerics;
+  return {
+    toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: numerics.accuracy?.gridRefine ?? 1,
+    separator: problem.layers.map((l) => l.separator),
+  };
+}
+
+/** Newton's settings under a step error tolerance of toleranceK: updates held to evolveDefaults.newtonShare of it. */
+export function newtonSettingsOf(toleranceK: number): NewtonSettings {
+  return { toleranceK: toleranceK * evolveDefaults.newtonShare, maxIterations: evolveDefaults.maxNewtonIterations };
+}
+
 /**
  * Runs the problem on the grid, yielding the state at t = 0 (as a step of zero length) and after every accepted step.
  * Returns how it ended. Never throws for numerical trouble: a failure is a returned status.
@@ -148,11 +162,8 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
   const d = evolveDefaults;
   const lengthM = characteristicLengthM(problem.footprint);
   const ws = createWorkspace(grid, { facing: facingOf('bottom'), lengthM }, { facing: facingOf('top'), lengthM }, problem.layers.map((l) => l.terms));
-  const scale: ErrorScale = {
-    toleranceK: numerics.toleranceK, liquidFraction: numerics.liquidFractionTolerance, gridRefine: numerics.accuracy?.gridRefine ?? 1,
-    separator: problem.layers.map((l) => l.separator),
-  };
-  const newton: NewtonSettings = { toleranceK: numerics.toleranceK * d.newtonShare, maxIterations: d.maxNewtonIterations };
+  const scale = errorScaleOf(problem);
+  const newton = newtonSettingsOf(numerics.toleranceK);
   // a floored step must not fail for want of iterations: each cell crossing a melt kink costs one (its update stops
   // there), and a face held far below a thin melting layer's plateau freezes many cells within one floored step
   // (fuzz: 15 cells of a 5 µm separator under a face switched to 463 °C, 3e-9 s steps, 12 iterations not enough)
