@@ -4,10 +4,12 @@
  * if one has risen to g ≥ 0 by the step's end, the step is redone from the same start with a shorter length until it
  * ends just past the earliest crossing: regula falsi on the step length with Anderson and Björck's scaling of the kept
  * end (BIT 13 (1973) 253–264; the Illinois halving, Dowell & Jarratt, BIT 11 (1971) 168–174, where their factor is not
- * positive), stopped when the bracket is narrower than the time tolerance. Its first trial is the root of the parabola
- * through g at the step's start, its stage point and its end (parabolaRoot), which the step has already computed;
- * regula falsi's first point, from the two ends alone, is poor wherever g curves over a long step. The step that is
- * kept is the bracket's right end, so the switch sees its level reached, at most the tolerance late. Then the switch
+ * positive), stopped when the bracket is narrower than the time tolerance. Its first estimate is the root of the
+ * parabola through g at the step's start, its stage point and its end (parabolaRoot), which the step has already
+ * computed; regula falsi's first point, from the two ends alone, is poor wherever g curves over a long step. Each trial
+ * is aimed a little to one side of its estimate, so that the trial that closes the bracket is, as a rule, the step
+ * kept. The step that is kept is the bracket's right end, so the switch sees its level reached, at most the tolerance
+ * late. Then the switch
  * acts and the loop re-reads the face conditions, as at a schedule change (Hairer, Nørsett & Wanner, Solving ODEs I,
  * §II.6, "dense output and event location"; here without dense output: each trial is a real step, so the landed state
  * is the method's own). A g that dips above zero and back within one step is not seen; the step limit bounds how long
@@ -139,8 +141,11 @@ export interface Located {
  * Locates the rise of g through zero on (0, sB], given g(0) = gA < 0 ≤ g(sB) = gB, by Anderson–Björck regula falsi
  * on the step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or
  * undefined if that step failed (then the bracket found so far is kept). Stops when the bracket is narrower than tolS
- * or after maxTrials trials. `firstS`, when given, is the first trial instead of the regula falsi point (held inside
- * the bracket as every trial is).
+ * or after maxTrials trials. `firstS`, when given, is the first estimate instead of the regula falsi point. Each trial
+ * is aimed a quarter of the tolerance to one side of its estimate (aimedTrial), so that the trial that closes the
+ * bracket is, as a rule, the step kept. Measured on described-rig (288 thermostat switches): 999 trials where aiming
+ * at the estimate took 1284 (the step kept was then taken again after 287 of the 289 events, because the bracket had
+ * closed from below), Newton sweeps 9204 → 7969; heater-plate-lift-off 744 → 571 trials, 6991 → 6384 sweeps.
  */
 export function locateRise(trial: (s: number) => number | undefined, gA: number, sB: number, gB: number,
   tolS: number, maxTrials: number, firstS?: number): Located {
@@ -152,11 +157,8 @@ export function locateRise(trial: (s: number) => number | undefined, gA: number,
   let lastS = sB;
   let trials = 0;
   while (b - a > tolS && trials < maxTrials) {
-    // regula falsi point, kept half the tolerance inside the bracket: when it lands next to the root, the trial on
-    // the other side of it then closes the bracket to within the tolerance at once
-    const inset = 0.5 * tolS;
     const guess = trials === 0 && firstS !== undefined ? firstS : b - (fb * (b - a)) / (fb - fa);
-    const s = Math.min(b - inset, Math.max(a + inset, guess));
+    const s = aimedTrial(guess, a, b, tolS);
     const fs = trial(s);
     trials++;
     lastS = s;
@@ -175,6 +177,32 @@ export function locateRise(trial: (s: number) => number | undefined, gA: number,
   }
   return { s: b, lastS, trials };
 }
+
+/**
+ * Where the next trial goes, from the estimate `guess` of the root in the bracket (a, b]. A trial that closes the
+ * bracket should be its right end, the step that is kept: a bracket closed by its left end leaves the step at b to be
+ * taken again (evolve.ts). So the trial is aimed a little to one side of the estimate, not at it: past it (by
+ * AIM_SHARE × tolS) when a, the last trial below the root, lies near enough that a trial just past the root closes the
+ * bracket; otherwise short of it, so that an estimate good to a fraction of tolS puts a within reach of the root and
+ * the next trial, aimed past it, closes the bracket and is the step kept. Either way the trial stays half the tolerance
+ * inside the bracket, where a trial next to one end narrows the bracket from the other end at once.
+ */
+function aimedTrial(guess: number, a: number, b: number, tolS: number): number {
+  const aim = AIM_SHARE * tolS;
+  const s = guess + aim <= a + CLOSE_SHARE * tolS ? guess + aim : guess - aim;
+  const inset = 0.5 * tolS;
+  return Math.min(b - inset, Math.max(a + inset, s));
+}
+
+/**
+ * The trials' aim to either side of the root's estimate, and the farthest from the last trial below the root that a
+ * trial aimed past it may go, as shares of the time tolerance: our own choice. The estimates after the first trial are
+ * good to about 1e-5 s on the examples' thermostats (tolerance 1e-3 s), so 0.25 leaves room for an estimate 20× worse,
+ * and the step kept ends about a quarter of the tolerance past the crossing. Aims of 0.1 and 0.4 took within 1 % of the
+ * same trials on the three examples with the most events (described-rig, heater-plate-lift-off, sleeved-square-cell).
+ */
+const AIM_SHARE = 0.25;
+const CLOSE_SHARE = 0.95;
 
 /**
  * The factor on the kept end's value when the other end is replaced by a point of the same sign twice in a row: m =

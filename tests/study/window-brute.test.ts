@@ -40,11 +40,12 @@ describe('searchWindow() against a brute-force scan of the hold', () => {
     expect(r.longest!.binding?.kind).toBe('ignition');
     expect(r.monotonic).toBe(true);
     expect(r.safe).toHaveLength(1);
-    // a guard on the count, measured on this code (the answers are checked against brute force below): 26 solves
-    // since face convection and T(H) are evaluated without Math.pow and with one division (their last bits), 28 with
-    // the rounding before them, 27 with the one-ended tridiagonal sweep's, 32 when the molten edge was halved instead
-    // of narrowed from the molten neighbour's molten time
-    expect(r.solves).toBeLessThanOrEqual(26);
+    // a guard on the count, measured on this code (the answers are checked against brute force below): 27 solves
+    // since the event trials are aimed to one side of their estimate (the separator's molten and frozen instants land
+    // up to a quarter of the event tolerance later), 26 when face convection and T(H) were evaluated without Math.pow
+    // and with one division (their last bits), 28 with the rounding before them, 27 with the one-ended tridiagonal
+    // sweep's, 32 when the molten edge was halved instead of narrowed from the molten neighbour's molten time
+    expect(r.solves).toBeLessThanOrEqual(27);
   });
 
   it('searchWindow() puts the longest hold where a 1 s scan of the hold finds the margin running out', () => {

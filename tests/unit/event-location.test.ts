@@ -52,25 +52,40 @@ describe('locateRise(): the step that ends just past the crossing', () => {
     }
   });
 
-  it('takes the first guess as its first trial, held half the tolerance inside the bracket', () => {
-    expect(locate(g, 1, tolS, 0.69).tried[0]).toBe(0.69);
+  it('aims its first trial a quarter of the tolerance short of the first guess, held half the tolerance inside the bracket', () => {
+    expect(locate(g, 1, tolS, 0.69).tried[0]).toBe(0.69 - 0.25 * tolS);
     expect(locate(g, 1, tolS, 1).tried[0]).toBe(1 - 0.5 * tolS);
   });
 
-  it('closes in fewer trials from the parabola through the stage point than from regula falsi alone', () => {
+  it('ends on the step it keeps: the last trial is the one past the crossing, with or without a first guess', () => {
+    // a trial aimed past the root's estimate closes the bracket, so the step need not be taken again (evolve.ts). Before
+    // the trials were aimed, regula falsi without the guess closed the bracket from below: 4 trials, then the kept one
+    // a fifth time; measured now: 4 trials either way, none taken again
     const m = 2 - Math.SQRT2;
-    const guess = parabolaRoot(g(0), m, g(m), 1, g(1));
-    const plain = locate(g, 1, tolS).trials;
-    const guided = locate(g, 1, tolS, guess).trials;
-    // measured: 4 trials without the guess, 3 with it (the parabola's root is 0.6965, 3.5 ms early; Illinois took 5
-    // without it)
-    expect(guided).toBeLessThan(plain);
+    for (const firstS of [undefined, parabolaRoot(g(0), m, g(m), 1, g(1))]) {
+      const found = locate(g, 1, tolS, firstS);
+      expect(found.lastS, `first ${firstS}`).toBe(found.s);
+      expect(found.trials, `first ${firstS}: trials`).toBeLessThanOrEqual(4);
+    }
+  });
+
+  it('closes in two trials, the second kept, from a first guess within a tenth of the tolerance', () => {
+    // the first trial, a quarter of the tolerance short of the guess, puts the bracket's left end next to the root; the
+    // second, aimed past it, closes the bracket
+    for (const off of [-1e-4, 0, 1e-4]) {
+      const found = locate(g, 1, tolS, 0.7 + off);
+      expect(found.trials, `guess off by ${off} s`).toBe(2);
+      expect(found.lastS, `guess off by ${off} s`).toBe(found.s);
+      expect(found.s - 0.7, `guess off by ${off} s: how late`).toBeLessThanOrEqual(tolS);
+      expect(g(found.s), `guess off by ${off} s: g at the kept end`).toBeGreaterThanOrEqual(0);
+    }
   });
 
   it('locates a g that kinks at its root in a handful of trials, from either side of the kink', () => {
     // the separator's melt and freeze: the last cell's enthalpy moves ~10× more slowly on one side of its plateau
     // (measured on the demo: slopes 0.68 and 0.04 per second either side). Illinois creeps from the shallow side: 12–14
-    // trials here; Anderson–Björck: 6–7 (measured)
+    // trials here; Anderson–Björck: 6–8, the last one kept (measured; before the trials were aimed, 6–7, and in two of
+    // the three the kept step taken again)
     const r = 0.3836;
     for (const [before, after] of [[0.68, 0.04], [1, 0.1], [0.1, 1]] as const) {
       const g = (s: number) => (s < r ? before * (s - r) : after * (s - r));
@@ -78,6 +93,7 @@ describe('locateRise(): the step that ends just past the crossing', () => {
       expect(found.s - r, `slopes ${before}, ${after}: how late`).toBeGreaterThanOrEqual(0);
       expect(found.s - r, `slopes ${before}, ${after}: how late`).toBeLessThanOrEqual(tolS);
       expect(found.trials, `slopes ${before}, ${after}: trials`).toBeLessThanOrEqual(8);
+      expect(found.lastS, `slopes ${before}, ${after}: the last trial kept`).toBe(found.s);
     }
   });
 });
