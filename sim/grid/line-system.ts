@@ -7,7 +7,8 @@
  * - the Newton update stops a cell at the solidus or liquidus kink of its T(H) (newton-kinks.ts), and a face node whose
  *   cell stopped takes the update its own linearised balance gives for the shortened one;
  * - the linear accept (acceptUpdate): F, T, the face heats and the cell-term channels move by the update's own
- *   linearisation, so the stage equations hold exactly and the energy ledger closes to round-off;
+ *   linearisation, so the stage equations hold exactly and the energy ledger closes to round-off; after a trapezoidal
+ *   stage it also keeps the stage's temperature range, which the time loop checks (time/step-bounds.ts);
  * - the error measure: each cell's enthalpy error in what a run reports, its temperature (through the secant dT/dH over
  *   the step, zero on an isothermal plateau) and, for the cells in or across their melt, a layer's molten thickness
  *   (Σ Δx·error/ρL, against the liquid-fraction tolerance × the layer's level-0 cell width) while that thickness is
@@ -110,6 +111,14 @@ export class LineSystem implements StageSystem {
    */
   binding = -1;
   bindingMelting = false;
+  /**
+   * The least and greatest node temperature at the end of the last trapezoidal stage, K: the time loop's range check
+   * (time/step-bounds.ts) reads them beside the step's end state.
+   */
+  stageLowK = Infinity;
+  stageHighK = -Infinity;
+  /** The stage being solved (beginStage), so that acceptUpdate knows a trapezoidal one. */
+  private stage: StageKind = 'trapezoid';
 
   constructor(readonly ws: Workspace, readonly scale: ErrorScale, private readonly beforeStage: BeforeStage,
     cond: StepConditions) {
@@ -161,6 +170,7 @@ export class LineSystem implements StageSystem {
   }
 
   beginStage(kind: StageKind, hd: number, buf: StepBuffers, a: number, bb: number): void {
+    this.stage = kind;
     this.beforeStage(this.ws, this.cond, hd, kind, buf.q0, buf.qg, buf.Ug, a, bb);
   }
 
@@ -246,6 +256,16 @@ export class LineSystem implements StageSystem {
     }
     T[0] = U[0]!;
     T[n + 1] = U[n + 1]!;
+    if (this.stage === 'trapezoid') {
+      let low = Infinity;
+      let high = -Infinity;
+      for (let j = 0; j < n + 2; j++) {
+        low = Math.min(low, T[j]!);
+        high = Math.max(high, T[j]!);
+      }
+      this.stageLowK = low;
+      this.stageHighK = high;
+    }
   }
 
   /**

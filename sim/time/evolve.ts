@@ -311,10 +311,13 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
       h = retryStepS(step, outcome, d, chain);
       continue;
     }
-    if (adaptive && !euler && stepBounds(line.T0, cond, hasCellTerms, lohi) && leavesBounds(ws.T, lohi, newton.toleranceK)) {
-      // with no heat put in, the step left the range of its start state and of what the faces see by more than the
-      // Newton tolerance: TR-BDF2 undershot a jump (its stability function dips to −0.21, step-bounds.ts); the same step
-      // again by backward Euler, which keeps the range; the controller goes on from TR-BDF2's error estimate
+    if (adaptive && !euler && stepBounds(line.T0, cond, hasCellTerms, lohi)
+      && leavesBounds(ws.T, line.stageLowK, line.stageHighK, lohi, newton.toleranceK)) {
+      // with no heat put in, the step or its trapezoidal stage left the range of its start state and of what the faces
+      // see by more than the Newton tolerance: TR-BDF2 undershot a jump (its stability function dips to −0.21), or its
+      // stage overshot one and the ledger would book the step's heat as the difference of two huge terms
+      // (step-bounds.ts); the same step again by backward Euler, which keeps the range; the controller goes on from
+      // TR-BDF2's error estimate
       const errorNorm = outcome.errorNorm;
       takeStep(line, buf, step, newtonAtFloor, true, outcome);
       stats.newtonIterations += outcome.newtonIterations;
