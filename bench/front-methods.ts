@@ -215,6 +215,7 @@ class CellSlab implements StageSystem {
   readRates(out: Float64Array): void { out.set(this.F); }
   readChannels(): void { /* no channels */ }
   addRates(B: Float64Array, F: Float64Array, h: number): void { for (let i = 0; i < this.n; i++) B[i] = B[i]! + (h * F[i]!) / this.dx; }
+  massTimes(x: Float64Array, out: Float64Array): void { for (let i = 0; i < this.n; i++) out[i] = this.dx * x[i]!; }
   beginStage(_kind: StageKind): void { /* nothing eliminated */ }
   stageResidual(U: Float64Array, B: Float64Array, h: number, res: Float64Array): void {
     for (let i = 0; i < this.n; i++) res[i] = this.dx * (U[i]! - B[i]!) - h * this.F[i]!;
@@ -343,6 +344,7 @@ class FrontFixed implements StageSystem {
   readRates(out: Float64Array): void { out.set(this.F); }
   readChannels(): void { /* no channels */ }
   addRates(B: Float64Array, F: Float64Array, h: number): void { for (let i = 0; i <= this.m; i++) B[i] = B[i]! + h * F[i]!; }
+  massTimes(x: Float64Array, out: Float64Array): void { out.set(x); out[this.m + 1] = 0; }
   beginStage(_kind: StageKind): void { /* nothing eliminated */ }
   stageResidual(U: Float64Array, B: Float64Array, h: number, res: Float64Array): void {
     for (let i = 0; i <= this.m; i++) res[i] = U[i]! - B[i]! - h * this.F[i]!;

@@ -169,6 +169,14 @@ export class LineSystem implements StageSystem {
     for (let j = 1; j <= this.ws.n; j++) B[j] = B[j]! + (h * F[j]!) / dx[j - 1]!;
   }
 
+  massTimes(x: Float64Array, out: Float64Array): void {
+    const { n, grid } = this.ws;
+    const dx = grid.dx;
+    out[0] = 0;
+    for (let j = 1; j <= n; j++) out[j] = dx[j - 1]! * x[j]!;
+    out[n + 1] = 0;
+  }
+
   beginStage(kind: StageKind, hd: number, buf: StepBuffers, a: number, bb: number): void {
     this.stage = kind;
     this.beforeStage(this.ws, this.cond, hd, kind, buf.q0, buf.qg, buf.Ug, a, bb);

@@ -137,6 +137,10 @@ export class NetworkSystem implements StageSystem {
     for (let i = 0; i < this.size; i++) B[i] = B[i]! + (h * F[i]!) / this.capacity[i]!;
   }
 
+  massTimes(x: Float64Array, out: Float64Array): void {
+    for (let i = 0; i < this.size; i++) out[i] = this.capacity[i]! * x[i]!;
+  }
+
   /** A network has no eliminated bodies: nothing to set before a stage. */
   beginStage(_kind: StageKind, _hd: number, _buf: StepBuffers, _a: number, _bb: number): void {}
 

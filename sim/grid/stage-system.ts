@@ -72,6 +72,8 @@ export interface StageSystem {
   readChannels(out: Float64Array): void;
   /** B ← B + h·F/M on the stored entries (an explicit part from rates); constraint entries are left alone. */
   addRates(B: Float64Array, F: Float64Array, h: number): void;
+  /** out ← M·x on the stored entries, 0 on the constraint entries (the right side of a second error filter). */
+  massTimes(x: Float64Array, out: Float64Array): void;
   /**
    * Called before each implicit stage of effective step hd, with the step's buffers (the start point, and for 'bdf2'
    * the inner stage) and the BDF2 coefficients a, bb (0 otherwise): a system with eliminated parts (a heater plate, a

@@ -60,8 +60,9 @@ export function stepBounds(T0: Float64Array, cond: StepConditions, hasCellTerms:
  * method's quadrature then books the step's heat as the small difference of two huge terms: on fuzz seed 9 case 107 (a
  * 1 µm layer under a face switched to 2000 °C) 2.2e13 W/m² at the start and −2.2e13 at the stage over a 0.028 s step,
  * which left the ledger 5e-6 of 509 J/m² out (1e-8 relative), while the end state was right; the step's error
- * estimate, which reads the stage's overshoot as error, rejects such steps until they are short, but an estimate that
- * reads stiff components as the method damps them need not. Backward Euler, one stage, books the heat at its end alone.
+ * estimate filtered once reads the stage's overshoot as error and rejects such steps until they are short; filtered
+ * twice (tr-bdf2.ts) it reads the stiff component as the method damps it, and may accept one. Backward Euler, one
+ * stage, books the heat at its end alone.
  */
 export function leavesBounds(T: Float64Array, stageLowK: number, stageHighK: number, lohi: Float64Array, slack: number): boolean {
   const lo = lohi[0]! - slack;
