@@ -291,11 +291,7 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
     plates.startStep(t);
     takeStep(line, buf, step, euler && !backwardEuler ? newtonAtFloor : newton, euler, outcome);
     stats.newtonIterations += outcome.newtonIterations;
-    // an end below 0 K on a step that can still be shortened is the step's, not the physics: TR-BDF2 undershoots a
-    // fast fall by up to a fifth of it (step-bounds.ts), and an error estimate that reads a stiff component as the
-    // method damps it may accept such a step (fuzz seed 44 cases 2564 and 4283, which finish when it is cut)
-    const belowZero = adaptive && !atFloor && outcome.status === 'ok' && coldestK(ws.T) < 0;
-    if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1) || belowZero) {
+    if (outcome.status !== 'ok' || (adaptive && !atFloor && outcome.errorNorm > 1)) {
       // an iterate below 0 K on a long step may still come back; on the smallest step it is the physics
       if ((atFloor || !adaptive) && coldestK(ws.T) < 0) {
         return { status: 'failed', ...belowAbsoluteZeroStop(problem, ws, cond, buf.q0, t), tS: t, stats };
@@ -307,25 +303,23 @@ export function* evolve(problem: Problem, grid: Grid, options: EvolveOptions = {
         return { status: 'failed', reason: 'numerical', message: `the solver could not converge at t = ${t} s even with its smallest step, ${step.toPrecision(2)} s (${outcome.status})`, tS: t, stats };
       }
       stats.rejected++;
-      if (outcome.status === 'ok' && !belowZero && line.binding >= 0) {
+      if (outcome.status === 'ok' && line.binding >= 0) {
         rejectedBy[line.binding] = rejectedBy[line.binding]! + 1;
         if (line.bindingMelting) rejectedMelting[line.binding] = rejectedMelting[line.binding]! + 1;
       }
       rejectedLast = true;
-      if (belowZero) {
-        // cut as after a Newton failure: the error estimate says nothing about this
-        chain.stepS = 0;
-        h = step * d.newtonCut;
-      } else h = retryStepS(step, outcome, d, chain);
+      h = retryStepS(step, outcome, d, chain);
       continue;
     }
-    if (adaptive && !euler && stepBounds(line.T0, cond, hasCellTerms, lohi)
-      && leavesBounds(ws.T, line.stageLowK, line.stageHighK, lohi, newton.toleranceK)) {
+    if (adaptive && !euler && ((stepBounds(line.T0, cond, hasCellTerms, lohi)
+      && leavesBounds(ws.T, line.stageLowK, line.stageHighK, lohi, newton.toleranceK)) || coldestK(ws.T) < 0)) {
       // with no heat put in, the step or its trapezoidal stage left the range of its start state and of what the faces
       // see by more than the Newton tolerance: TR-BDF2 undershot a jump (its stability function dips to −0.21), or its
       // stage overshot one and the ledger would book the step's heat as the difference of two huge terms
-      // (step-bounds.ts); the same step again by backward Euler, which keeps the range; the controller goes on from
-      // TR-BDF2's error estimate
+      // (step-bounds.ts); or, heat put in or not, its end fell below 0 K, which may be the same undershoot (fuzz seed
+      // 44 cases 2564 and 4283, once the error estimate read a stiff component as the method damps it, tr-bdf2.ts) or
+      // the physics. The same step again by backward Euler, which keeps the range and does not undershoot: if it too
+      // ends below 0 K, that is the physics, and the run stops below; the controller goes on from TR-BDF2's estimate
       const errorNorm = outcome.errorNorm;
       takeStep(line, buf, step, newtonAtFloor, true, outcome);
       stats.newtonIterations += outcome.newtonIterations;
