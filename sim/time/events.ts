@@ -9,11 +9,10 @@
  * computed; regula falsi's first point, from the two ends alone, is poor wherever g curves over a long step. Each trial
  * is aimed a little to one side of its estimate, so that the trial that closes the bracket is, as a rule, the step
  * kept. The step that is kept is the bracket's right end, so the switch sees its level reached, at most the tolerance
- * late. Then the switch
- * acts and the loop re-reads the face conditions, as at a schedule change (Hairer, Nørsett & Wanner, Solving ODEs I,
- * §II.6, "dense output and event location"; here without dense output: each trial is a real step, so the landed state
- * is the method's own). A g that dips above zero and back within one step is not seen; the step limit bounds how long
- * such a dip can be.
+ * late. Then the switch acts and the loop re-reads the face conditions, as at a schedule change (Hairer, Nørsett &
+ * Wanner, Solving ODEs I, §II.6, "dense output and event location"; here without dense output: each trial is a real
+ * step, so the landed state is the method's own). A g that dips above zero and back within one step is not seen; the
+ * step limit bounds how long such a dip can be.
  */
 import type { Workspace } from '../grid/discretization.ts';
 import type { Grid } from '../grid/mesh.ts';
