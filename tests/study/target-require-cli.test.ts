@@ -2,7 +2,6 @@
 // documented in the README (0 ok, 2 invalid input, 3 a requirement not met), the JSON shapes the README states, and the
 // refusals naming the bad option. The references are the lumped closed form (lumped-slab.ts) and the demo's own claims
 // (its margin to ignition is above 100 K, its window is about a minute: examples/bench-coupon.json).
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -10,6 +9,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { assertClose } from '../support/assert-close.ts';
 import { hForEndC, slabFile } from './lumped-slab.ts';
+import { freezeline } from '../support/cli.ts';
 import { drainedSlab } from '../support/scenarios.ts';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
@@ -17,11 +17,6 @@ const demo = join(root, 'examples/bench-coupon.json');
 const work = mkdtempSync(join(tmpdir(), 'freezeline-study-'));
 const slab = join(work, 'slab.json');
 writeFileSync(slab, JSON.stringify(slabFile()));
-
-function freezeline(...args: string[]) {
-  const r = spawnSync(process.execPath, [join(root, 'sim/cli/bin.js'), ...args], { cwd: root, encoding: 'utf8' });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-}
 
 describe('freezeline run --require', () => {
   it('exits 0 and prints "met" with the value when every requirement holds', () => {

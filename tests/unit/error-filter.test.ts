@@ -38,8 +38,11 @@ function oneStep(z: number, toleranceK: number): { estimateK: number; trueK: num
 
 describe('takeStep(): the local error estimate on y′ = λy', () => {
   it('filtered twice when it would reject the step: within 0.74–1.14 of the true error for hλ from −0.1 to −10⁴', () => {
-    // a tolerance far below any of these errors, so the first estimate always exceeds 1. Measured ratios: 0.975,
-    // 0.830, 0.739, 0.834, 1.090, 1.133, 1.138
+    // a tolerance far below any of these errors, so the first estimate always exceeds 1. The bounds are not read from
+    // takeStep: they are the least and greatest of the same ratio over hλ from −10⁻³ to −10⁶ in steps of 10^0.001,
+    // worked by hand from the method's stage equations on y′ = λy (Bank et al. 1985, eq. 2.3 and the trapezoidal
+    // rule) and the embedded weights (tr-bdf2.ts): 0.737 at hλ = −3.54, 1.138 as hλ → −10⁶. takeStep gives 0.975,
+    // 0.830, 0.739, 0.834, 1.090, 1.133, 1.138 at the seven points
     for (const z of Z) {
       const { estimateK, trueK } = oneStep(z, 1e-12);
       const ratio = estimateK / trueK;
@@ -50,7 +53,8 @@ describe('takeStep(): the local error estimate on y′ = λy', () => {
 
   it('filtered once when it accepts the step: too large by about |hλ|/3 on a stiff component', () => {
     // a tolerance above every estimate, so the step is accepted on the first: 1.455 K against a true 0.044 K at
-    // hλ = −100 (33×), 1.608 against 4.8e-4 at −10⁴ (3333×); on a smooth component the two agree (1.004 at −0.1)
+    // hλ = −100 (33×), 1.608 against 4.8e-4 at −10⁴ (3333×); on a smooth component the two agree (1.004 at −0.1).
+    // These figures come from the same hand computation as above, not from takeStep
     for (const z of [-100, -1e4]) {
       const { estimateK, trueK } = oneStep(z, 10);
       expect(estimateK / trueK, `hλ = ${z}`).toBeGreaterThan(Math.abs(z) / 4);

@@ -9,16 +9,13 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { hazards, predictionNotCertification, verdictTerms } from '../../sim/observe/wording.ts';
+import { freezeline } from '../support/cli.ts';
 import { drainedSlab, drainedSlabZeroKelvinS } from '../support/scenarios.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const demo = join(root, 'examples/bench-coupon.json');
 const work = mkdtempSync(join(tmpdir(), 'freezeline-cli-'));
 
-function freezeline(...args: string[]) {
-  const r = spawnSync(process.execPath, [join(root, 'sim/cli/bin.js'), ...args], { cwd: root, encoding: 'utf8' });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-}
 
 /** The demo with two claims it does not meet (window at least 10 min, anode margin at least 300 K). */
 function failingScenario(): string {

@@ -3,9 +3,7 @@
 // answers of `freezeline window` on the demo with its plate at 800 °C (the window command's own words), and the outputs
 // shown after a `$ npx freezeline …` line (seek, ambient), run as a user runs them (node sim/cli/bin.js); a row shown
 // as `...` stands for the rows the page leaves out.
-import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { summaryTable } from '../../sim/cli/table.ts';
 import { evaluateExpectations } from '../../sim/scenario/expect.ts';
@@ -14,6 +12,7 @@ import { parseScenarioText } from '../../sim/scenario/scenario.ts';
 import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { searchWindow } from '../../sim/study/window.ts';
 import { windowWords } from '../../sim/study/words.ts';
+import { freezeline } from '../support/cli.ts';
 import { parseOk } from '../support/scenarios.ts';
 
 describe('README.md example', () => {
@@ -43,15 +42,14 @@ describe('README.md example', () => {
 
   it('shows what each `$ npx freezeline …` command prints', () => {
     const readme = readFileSync(new URL('../../README.md', import.meta.url), 'utf8');
-    const root = fileURLToPath(new URL('../..', import.meta.url));
     const blocks = [...readme.matchAll(/```\n\$ npx freezeline (.*)\n([\s\S]*?)\n```/g)];
     expect(blocks.map((b) => b[1]!.split(' ')[0]), 'the commands shown').toEqual(['seek', 'ambient']);
     for (const [, command, shown] of blocks) {
       // the page's arguments hold no quoted spaces but the target's, which the shell would keep whole
       const args = command!.match(/"[^"]*"|\S+/g)!.map((a) => a.replace(/^"(.*)"$/, '$1'));
-      const r = spawnSync(process.execPath, [`${root}/sim/cli/bin.js`, ...args], { cwd: root, encoding: 'utf8' });
-      expect(r.status, `${command}: exit code`).toBe(0);
-      const printed = r.stdout.split('\n');
+      const r = freezeline(...args);
+      expect(r.code, `${command}: exit code`).toBe(0);
+      const printed = r.out.split('\n');
       // each shown line appears in the output, in order; `...` skips any number of rows
       let at = 0;
       let skipping = false;
