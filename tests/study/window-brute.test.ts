@@ -3,19 +3,11 @@
 // summary. The search must put every edge where the scan puts it, within the search tolerance plus the scan step.
 
 import { describe, expect, it } from 'vitest';
-import demo from '../../examples/bench-coupon.json' with { type: 'json' };
 import { searchWindow, windowDefaults } from '../../sim/study/window.ts';
 import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { assertClose } from '../support/assert-close.ts';
-import { parseOk, runOk } from '../support/scenarios.ts';
+import { demoOnPlate, parseOk, runOk } from '../support/scenarios.ts';
 
-/** The demo with its plate at `plateC` and its plate removed at `holdS` (bottom[1].from_s). */
-function demoWith(plateC: number, holdS?: number): ScenarioFile {
-  const s = structuredClone(demo) as unknown as ScenarioFile;
-  s.bottom[0]!.plate!.temperature_C = plateC;
-  if (holdS !== undefined) s.bottom[1]!.from_s = holdS;
-  return s;
-}
 
 /** Smallest margin to any limit of any layer, K, read from a plain run's summary. */
 function smallestMargin(s: ScenarioFile): number {
@@ -29,7 +21,7 @@ const TOL = windowDefaults.holdToleranceS;
 describe('searchWindow() against a brute-force scan of the hold', () => {
   // a plate hot enough (800 °C) that the magnesium anode comes within 25 K of ignition (650 °C) if held long
   const plateC = 800;
-  const result = searchWindow(parseOk(demoWith(plateC)), { marginK: M });
+  const result = searchWindow(parseOk(demoOnPlate(plateC)), { marginK: M });
 
   it('searchWindow() finds one edge of the margin on the hot-plate demo, and names the anode and its ignition limit', () => {
     expect(result.ok).toBe(true);
@@ -54,9 +46,9 @@ describe('searchWindow() against a brute-force scan of the hold', () => {
     // step through whole seconds around the found value until the scan's own edge is bracketed
     const STEP = 1;
     let lastSafe = Math.floor(found) - 3;
-    expect(smallestMargin(demoWith(plateC, lastSafe))).toBeGreaterThan(M);
+    expect(smallestMargin(demoOnPlate(plateC, lastSafe))).toBeGreaterThan(M);
     let firstUnsafe = lastSafe + STEP;
-    while (smallestMargin(demoWith(plateC, firstUnsafe)) > M) {
+    while (smallestMargin(demoOnPlate(plateC, firstUnsafe)) > M) {
       lastSafe = firstUnsafe;
       firstUnsafe += STEP;
       if (firstUnsafe > found + 10) throw new Error(`the scan found no edge near ${found} s`);
@@ -71,7 +63,7 @@ describe('searchWindow() against a brute-force scan of the hold', () => {
     const r = result.report;
     const hold = r.longest!.value;
     expect(r.window?.chosen).toBe('longest');
-    const { summary } = runOk(demoWith(plateC, hold));
+    const { summary } = runOk(demoOnPlate(plateC, hold));
     const direct = summary.separator.half_frozen_at_s! - summary.heat_off_s!;
     // the same hold run two ways (Problem edit vs JSON edit): identical to round-off in the hold
     assertClose(r.window!.point.window_s ?? Number.NaN, direct, { abs: 1e-6 }, 'usable window, s');
@@ -90,7 +82,7 @@ describe('searchWindow() against a brute-force scan of the hold', () => {
   it('searchWindow() puts the shortest hold where a scan of the hold first finds the separator fully molten', () => {
     if (!result.ok) throw new Error(result.reason);
     const shortest = result.report.shortest!.value;
-    const molten = (h: number) => runOk(demoWith(plateC, h)).summary.separator.molten_at_s !== null;
+    const molten = (h: number) => runOk(demoOnPlate(plateC, h)).summary.separator.molten_at_s !== null;
     // the narrowing brackets it within TOL: molten at the reported hold, not molten TOL + a little below it
     expect(molten(shortest)).toBe(true);
     expect(molten(Math.max(0, shortest - TOL - 0.05))).toBe(false);

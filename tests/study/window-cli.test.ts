@@ -6,8 +6,8 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import demo from '../../examples/bench-coupon.json' with { type: 'json' };
 import { assertClose } from '../support/assert-close.ts';
+import { demoOnPlate } from '../support/scenarios.ts';
 
 const repo = new URL('../..', import.meta.url).pathname;
 const cli = (args: string[]) => spawnSync('node', ['sim/cli/bin.js', ...args], { cwd: repo, encoding: 'utf8' });
@@ -15,9 +15,7 @@ const cli = (args: string[]) => spawnSync('node', ['sim/cli/bin.js', ...args], {
 describe('freezeline window', () => {
   const dir = mkdtempSync(join(tmpdir(), 'freezeline-window-'));
   const hot = join(dir, 'hot.json');
-  const s = structuredClone(demo);
-  s.bottom[0]!.plate!.temperature_C = 800;
-  writeFileSync(hot, JSON.stringify(s));
+  writeFileSync(hot, JSON.stringify(demoOnPlate(800)));
 
   it('window --json gives the longest and shortest hold, the window, the binding constraint and the solve count', () => {
     const csv = join(dir, 'chart.csv');

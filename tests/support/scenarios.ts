@@ -2,6 +2,7 @@
 // every test drives the solver through the public contract (parseScenario → runProblem), as the CLI and the browser
 // view do. The materials here are invented test materials with round numbers; the references are closed forms.
 
+import benchCoupon from '../../examples/bench-coupon.json' with { type: 'json' };
 import type { Problem } from '../../sim/physics/problem.ts';
 import type { RunRecord } from '../../sim/observe/record.ts';
 import type { RunOptions, RunOutcome } from '../../sim/run.ts';
@@ -99,6 +100,17 @@ export function drainedSlab(durationS = 10_800): ScenarioFile {
 export function drainedSlabZeroKelvinS(): number {
   const d = DRAINED_SLAB;
   return (d.rhoKgM3 * d.cpJKgK * d.thicknessM * (toK(d.startC) - (d.fluxWm2 * d.thicknessM) / (3 * d.kWmK))) / d.fluxWm2;
+}
+
+/**
+ * The demo (examples/bench-coupon.json) with its hot plate at plateC °C and, when given, its plate removed at holdS
+ * (bottom[1].from_s): the window tests' and the README example's hotter demo. A fresh copy each call.
+ */
+export function demoOnPlate(plateC: number, holdS?: number): ScenarioFile {
+  const s = structuredClone(benchCoupon) as unknown as ScenarioFile;
+  s.bottom[0]!.plate!.temperature_C = plateC;
+  if (holdS !== undefined) s.bottom[1]!.from_s = holdS;
+  return s;
 }
 
 /** parseScenario() that must succeed: throws with every field error otherwise. */

@@ -9,11 +9,10 @@ import { summaryTable } from '../../sim/cli/table.ts';
 import { evaluateExpectations } from '../../sim/scenario/expect.ts';
 import { runProblem } from '../../sim/run.ts';
 import { parseScenarioText } from '../../sim/scenario/scenario.ts';
-import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { searchWindow } from '../../sim/study/window.ts';
 import { windowWords } from '../../sim/study/words.ts';
 import { freezeline } from '../support/cli.ts';
-import { parseOk } from '../support/scenarios.ts';
+import { demoOnPlate, parseOk } from '../support/scenarios.ts';
 
 describe('README.md example', () => {
   it('shows the verdict table that the CLI prints for the demo scenario', () => {
@@ -32,9 +31,7 @@ describe('README.md example', () => {
     const readme = readFileSync(new URL('../../README.md', import.meta.url), 'utf8');
     const shown = /```\n( {2}hold at most [\s\S]*?)\n```/.exec(readme)?.[1];
     expect(shown, 'README holds a printed window example starting with "  hold at most"').toBeDefined();
-    const file = JSON.parse(readFileSync(new URL('../../examples/bench-coupon.json', import.meta.url), 'utf8')) as ScenarioFile;
-    file.bottom[0]!.plate!.temperature_C = 800;
-    const result = searchWindow(parseOk(file));
+    const result = searchWindow(parseOk(demoOnPlate(800)));
     if (!result.ok) throw new Error(result.reason);
     const words = windowWords(result.report);
     expect([words.longest, words.shortest, words.window].map((l) => `  ${l}`).join('\n')).toBe(shown);
