@@ -81,7 +81,10 @@ export class LineSystem implements StageSystem {
   cond: StepConditions;
   /** Node temperatures at the start of the step, K (n + 2): the secant of the error measure. */
   readonly T0: Float64Array;
-  /** dT/dU per node at the start of the step (n + 2), and what assembleFilter assembles with (n + 2). */
+  /**
+   * dT/dU per node at the start of the step as last evaluated there (by the last Newton iterate of the step that ended
+   * there, or by the faces' settling), n + 2; and what assembleFilter assembles with, n + 2.
+   */
   private readonly tauStart: Float64Array;
   private readonly tauFilter: Float64Array;
   private readonly work: Float64Array;

@@ -87,7 +87,7 @@ export interface StageSystem {
   /**
    * Assembles the operator a step's error estimate is filtered through (time/tr-bdf2.ts), at the last evaluation (the
    * step's end) for effective step h: the stage operator, or a stiffer one where the system knows that a component was
-   * stiff at the step's start and is not at its end (grid/line-system.ts: a cell that entered a melt plateau).
+   * stiff at the step's start and is not at its end (grid/line-system.ts: a cell that warmed onto a melt plateau).
    */
   assembleFilter(h: number): void;
   /** Solves (assembled operator)·out = rhs; false on a zero pivot. */
