@@ -16,7 +16,7 @@ import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { parseScenario } from '../../sim/scenario/scenario.ts';
 import { runProblem } from '../../sim/run.ts';
 import { assertClose } from '../support/assert-close.ts';
-import { seededRandom } from '../support/scenarios.ts';
+import { refinedBeyond, seededRandom } from '../support/scenarios.ts';
 
 const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
 
@@ -34,26 +34,12 @@ function separatorTimes(file: ScenarioFile, accuracyS: number | undefined) {
 }
 
 /**
- * The reference: the plan as run `levels` grid levels and tolerance levels further (2: cells × 4, tolerances ÷ 9), on
- * the curve as written (no melt ramp, whose bias a ramped reference would share), built from that plan, not by the
- * rule, and run as it is (no ladder). undefined when it stops at the solver's
- * run-time ceiling (time/step-guards.ts).
+ * The reference's separator times: the plan as run, `levels` grid levels and tolerance levels further (2: cells × 4,
+ * tolerances ÷ 9; tests/support/scenarios.ts refinedBeyond, built from that plan, not by the rule, on the curve as
+ * written). undefined when it stops at the solver's run-time ceiling (time/step-guards.ts).
  */
 function referenceTimes(parsed: Problem, plan: AccuracyPlan, levels: number) {
-  const parsedPlan = parsed.numerics.accuracy!;
-  // the parsed tolerances are divided by the parsed plan's divisor: undo it, divide by the run's own and by 3^levels
-  const scale = parsedPlan.toleranceDivisor / plan.toleranceDivisor / 3 ** levels;
-  const problem: Problem = {
-    ...parsed,
-    numerics: {
-      ...parsed.numerics,
-      toleranceK: parsed.numerics.toleranceK * scale,
-      liquidFractionTolerance: parsed.numerics.liquidFractionTolerance * scale,
-      accuracy: { ...plan, gridRefine: plan.gridRefine * 2 ** levels, toleranceDivisor: plan.toleranceDivisor * 3 ** levels,
-        meltRampK: 0, confirm: false },
-    },
-  };
-  const out = runProblem(problem, { detail: 'summary' });
+  const out = runProblem(refinedBeyond(parsed, plan, levels), { detail: 'summary' });
   if (out.status === 'failed' && /work budget/.test(out.message)) return undefined;
   if (out.status !== 'ok') throw new Error(`reference run ${out.status}${out.status === 'failed' ? `: ${out.message}` : ''}`);
   return out.summary.separator;

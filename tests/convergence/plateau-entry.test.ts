@@ -12,27 +12,10 @@
 // in Computational Science and Engineering, 1998, ch. 5): the finer run stands in for the converged answer.
 
 import { describe, expect, it } from 'vitest';
-import type { Problem } from '../../sim/physics/problem.ts';
 import { runProblem } from '../../sim/run.ts';
 import { evaluatePoint } from '../../sim/study/point.ts';
 import { demoProblem } from '../../bench/demo-problem.ts';
-import { demoOnPlate, parseOk } from '../support/scenarios.ts';
-
-/** `problem` refined by `levels` grid and tolerance levels (cells × 2^levels, tolerances ÷ 3^levels), melt as written. */
-function refined(problem: Problem, levels: number): Problem {
-  const plan = problem.numerics.accuracy!;
-  const scale = 1 / 3 ** levels;
-  return {
-    ...problem,
-    numerics: {
-      ...problem.numerics,
-      toleranceK: problem.numerics.toleranceK * scale,
-      liquidFractionTolerance: problem.numerics.liquidFractionTolerance * scale,
-      accuracy: { ...plan, gridRefine: plan.gridRefine * 2 ** levels, toleranceDivisor: plan.toleranceDivisor * 3 ** levels,
-        meltRampK: 0, confirm: false },
-    },
-  };
-}
+import { demoOnPlate, parseOk, refinedBeyond } from '../support/scenarios.ts';
 
 describe('the estimate\'s filter at a melt plateau', () => {
   it('keeps the work of the demo at ×0.01 tolerances within a log–log slope of 1.1 from 200 to 1600 cells', () => {
@@ -48,7 +31,7 @@ describe('the estimate\'s filter at a melt plateau', () => {
     // the demo on an 800 °C plate held 89.5 s: the README's window example at its longest hold
     const problem = parseOk(demoOnPlate(800, 89.5));
     const run = evaluatePoint(problem, 89.5, null);
-    const reference = evaluatePoint(refined(problem, 3), 89.5, null);
+    const reference = evaluatePoint(refinedBeyond(problem, problem.numerics.accuracy!, 3), 89.5, null);
     expect(run.solidifying_s).not.toBeNull();
     expect(reference.solidifying_s).not.toBeNull();
     const stated = problem.numerics.accuracy!.eventAccuracyS;

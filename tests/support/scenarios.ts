@@ -3,7 +3,7 @@
 // view do. The materials here are invented test materials with round numbers; the references are closed forms.
 
 import benchCoupon from '../../examples/bench-coupon.json' with { type: 'json' };
-import type { Problem } from '../../sim/physics/problem.ts';
+import type { AccuracyPlan, Problem } from '../../sim/physics/problem.ts';
 import type { RunRecord } from '../../sim/observe/record.ts';
 import type { RunOptions, RunOutcome } from '../../sim/run.ts';
 import { runProblem } from '../../sim/run.ts';
@@ -111,6 +111,28 @@ export function demoOnPlate(plateC: number, holdS?: number): ScenarioFile {
   s.bottom[0]!.plate!.temperature_C = plateC;
   if (holdS !== undefined) s.bottom[1]!.from_s = holdS;
   return s;
+}
+
+/**
+ * A convergence study's reference: `parsed` (a parsed scenario) solved to `plan` (its own plan, or a rung of the
+ * ladder below it that a run stopped at) and refined `levels` grid and tolerance levels further (cells × 2^levels,
+ * tolerances ÷ 3^levels), on the curve as written (no melt ramp, whose bias a ramped reference would share), built
+ * from that plan, not by the accuracy rule, and run as it is (no ladder).
+ */
+export function refinedBeyond(parsed: Problem, plan: AccuracyPlan, levels: number): Problem {
+  const parsedPlan = parsed.numerics.accuracy!;
+  // the parsed tolerances are divided by the parsed plan's divisor: undo it, divide by the run's own and by 3^levels
+  const scale = parsedPlan.toleranceDivisor / plan.toleranceDivisor / 3 ** levels;
+  return {
+    ...parsed,
+    numerics: {
+      ...parsed.numerics,
+      toleranceK: parsed.numerics.toleranceK * scale,
+      liquidFractionTolerance: parsed.numerics.liquidFractionTolerance * scale,
+      accuracy: { ...plan, gridRefine: plan.gridRefine * 2 ** levels, toleranceDivisor: plan.toleranceDivisor * 3 ** levels,
+        meltRampK: 0, confirm: false },
+    },
+  };
 }
 
 /** parseScenario() that must succeed: throws with every field error otherwise. */
