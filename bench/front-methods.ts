@@ -231,19 +231,21 @@ class CellSlab implements StageSystem {
   }
   /**
    * The product's filter (grid/line-system.ts assembleFilter): a cell that warmed over the step takes the larger of
-   * its τ at the step's start and end, which for this slab's constant k scales its column. The sub-cell front's
+   * its τ at the step's start and end. For this slab's constant k a cell's τ scales its column of the stage operator,
+   * so only the columns it changes are written again (the rest keep the stage operator's bits). The sub-cell front's
    * operator is its stage operator.
    */
   assembleFilter(h: number): void {
-    if (this.subCell) { this.assembleStage(h); return; }
+    this.assembleStage(h);
+    if (this.subCell) return;
     const { n, dx, T, T0, tau, tau0 } = this;
     const g = k / dx;
-    const tf = (i: number): number => (T[i]! > T0[i]! ? Math.max(tau0[i]!, tau[i]!) : tau[i]!);
     for (let i = 0; i < n; i++) {
-      const gl = i === 0 ? k / (dx / 2) : g;
-      this.lower[i] = i > 0 ? -h * gl * tf(i - 1) : 0;
-      this.diag[i] = dx + h * (gl + (i + 1 < n ? g : 0)) * tf(i);
-      this.upper[i] = i + 1 < n ? -h * g * tf(i + 1) : 0;
+      if (!(T[i]! > T0[i]! && tau0[i]! > tau[i]!)) continue;
+      const t = tau0[i]!;
+      this.diag[i] = dx + h * ((i === 0 ? k / (dx / 2) : g) + (i + 1 < n ? g : 0)) * t;
+      if (i > 0) this.upper[i - 1] = -h * g * t;
+      if (i + 1 < n) this.lower[i + 1] = -h * g * t;
     }
   }
   solveStage(rhs: Float64Array, out: Float64Array): boolean {
