@@ -77,8 +77,6 @@ class CellSlab implements StageSystem {
   private readonly upper: Float64Array;
   private readonly work: Float64Array;
   private readonly T0: Float64Array;
-  /** τ at the step's start (assembleFilter). */
-  private readonly tau0: Float64Array;
   private readonly kinks = Float64Array.of(0, RL);
   /** The front cell at the last evaluation and at the step's start (n: none). */
   private front = 0;
@@ -91,7 +89,7 @@ class CellSlab implements StageSystem {
     this.dx = W / n;
     const z = () => new Float64Array(n);
     this.T = z(); this.tau = z(); this.F = z(); this.dLo = z(); this.dDi = z(); this.dUp = z();
-    this.lower = z(); this.diag = z(); this.upper = z(); this.work = z(); this.T0 = z(); this.tau0 = z();
+    this.lower = z(); this.diag = z(); this.upper = z(); this.work = z(); this.T0 = z();
   }
 
   /** The front's share s of cell J solid, from H_J and G (the quadratic of the header, its root in [0, 1]). */
@@ -229,25 +227,6 @@ class CellSlab implements StageSystem {
       this.upper[i] = -h * this.dUp[i]!;
     }
   }
-  /**
-   * The product's filter (grid/line-system.ts assembleFilter): a cell that warmed over the step takes the larger of
-   * its τ at the step's start and end. For this slab's constant k a cell's τ scales its column of the stage operator,
-   * so only the columns it changes are written again (the rest keep the stage operator's bits). The sub-cell front's
-   * operator is its stage operator.
-   */
-  assembleFilter(h: number): void {
-    this.assembleStage(h);
-    if (this.subCell) return;
-    const { n, dx, T, T0, tau, tau0 } = this;
-    const g = k / dx;
-    for (let i = 0; i < n; i++) {
-      if (!(T[i]! > T0[i]! && tau0[i]! > tau[i]!)) continue;
-      const t = tau0[i]!;
-      this.diag[i] = dx + h * ((i === 0 ? k / (dx / 2) : g) + (i + 1 < n ? g : 0)) * t;
-      if (i > 0) this.upper[i - 1] = -h * g * t;
-      if (i + 1 < n) this.lower[i + 1] = -h * g * t;
-    }
-  }
   solveStage(rhs: Float64Array, out: Float64Array): boolean {
     return solveTridiagonal(this.n, this.lower, this.diag, this.upper, rhs, out, this.work);
   }
@@ -294,7 +273,6 @@ class CellSlab implements StageSystem {
   }
   markStart(): void {
     this.T0.set(this.T);
-    this.tau0.set(this.tau);
     this.frontStart = this.front;
   }
 }
@@ -420,7 +398,6 @@ class FrontFixed implements StageSystem {
     return Math.max(Math.sqrt(sq / this.m), Math.abs(z[this.m]!) / (this.tol.tolF * LEVEL0_M));
   }
   markStart(): void { /* scales are fixed */ }
-  assembleFilter(h: number): void { this.assembleStage(h); }
 }
 
 type Method = 'enthalpy' | 'sub-cell' | 'fixed';

@@ -588,11 +588,10 @@ export function stageResidual(ws: Workspace, U: Float64Array, B: Float64Array, h
  * Jacobian of stageResidual() with respect to U. The flux through face j (node j to j+1), Q_j = G_j·(T_j − T_{j+1}),
  * has slopes a_j = ∂Q_j/∂U_j and b_j = ∂Q_j/∂U_{j+1}, which include the change of G through the half-cell resistances
  * of both its cells (ws.dRa, ws.dRb: through k̄ of each half cell, which follows the temperatures alone). A cell's own
- * terms add −h·Δx·(∂s/∂T)·τ to its diagonal. `tau`: the dT/dU per node it is assembled with, ws.tau (the last
- * evaluation's) unless given (LineSystem.assembleFilter). Overwrites ws.lower, ws.diag, ws.upper.
+ * terms add −h·Δx·(∂s/∂T)·τ to its diagonal. Overwrites ws.lower, ws.diag, ws.upper.
  */
-export function stageJacobian(ws: Workspace, h: number, cond: StepConditions, tau: Float64Array = ws.tau): void {
-  const { n, G, lower, diag, upper, grid, T, dRa, dRb, generatedDs, edgeDs } = ws;
+export function stageJacobian(ws: Workspace, h: number, cond: StepConditions): void {
+  const { n, G, tau, lower, diag, upper, grid, T, dRa, dRb, generatedDs, edgeDs } = ws;
   const dx = grid.dx;
   // face 0 (bottom node to cell 1) gives the bottom face's row
   const g0 = G[0]!;

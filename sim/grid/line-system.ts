@@ -81,12 +81,6 @@ export class LineSystem implements StageSystem {
   cond: StepConditions;
   /** Node temperatures at the start of the step, K (n + 2): the secant of the error measure. */
   readonly T0: Float64Array;
-  /**
-   * dT/dU per node at the start of the step as last evaluated there (by the last Newton iterate of the step that ended
-   * there, or by the faces' settling), n + 2; and what assembleFilter assembles with, n + 2.
-   */
-  private readonly tauStart: Float64Array;
-  private readonly tauFilter: Float64Array;
   private readonly work: Float64Array;
   /** The cells' part of the integrator's B (a view, made once for the buffer it is given). */
   private bOf: Float64Array | undefined;
@@ -131,8 +125,6 @@ export class LineSystem implements StageSystem {
     this.size = ws.n + 2;
     this.cond = cond;
     this.T0 = new Float64Array(this.size);
-    this.tauStart = new Float64Array(this.size);
-    this.tauFilter = new Float64Array(this.size);
     this.work = new Float64Array(this.size);
     this.bCells = new Float64Array(0);
     const { grid } = ws;
@@ -197,33 +189,6 @@ export class LineSystem implements StageSystem {
 
   assembleStage(h: number): void {
     stageJacobian(this.ws, h, this.cond);
-  }
-
-  /**
-   * The stage operator at the step's end, except that a node that warmed over the step takes the larger of its dT/dU
-   * at the step's start and end: a cell that warmed from its sensible branch (dT/dH = 1/ρc_p, stiff on a fine grid)
-   * onto a melt plateau (0, or small over a melt range) is filtered as the stiff cell it was when the step began.
-   * With the end's operator that cell's row is not damped at all, and its estimate did not fall with the step: on the
-   * demo at 1600 cells and ×0.01 tolerances a separator cell entering its plateau from 1e-4 of its latent range below
-   * was estimated at 0.41, 0.33 and 0.30 % of its latent range for steps of 0.015, 0.011 and 0.0077 s; the separator's
-   * molten-thickness part, which reads it, set 1069 of the run's 1139 rejected steps, and the work grew as cells^1.34.
-   * The error so estimated is real but local: in a five-cell slab of our own, one step of 1 s that carries a cell onto
-   * its plateau leaves 14 K-equivalents more heat in it than 4000 substeps do, and this filter hides it. Our reading:
-   * it is heat the step moved between the cell and its neighbours (energy is conserved to round-off), which the steps
-   * after it move back. What was checked is the result: over the examples' event times, against runs with cells ×8
-   * and tolerances ÷27, the largest error fell from 0.448 to 0.293 s and the RMS from 0.124 to 0.102 s, for 8 % less
-   * work (DEVELOPERS.md, "The estimate's filter at a plateau").
-   * A node that cooled keeps the end's operator: a cell cooling onto its plateau is where the separator starts to
-   * solidify, which the window search reports; filtered by its start as well, the demo on an 800 °C plate held 89.5 s
-   * gave 127.98 s for it, against 130.39 s refined and 130.27 s with this rule.
-   */
-  assembleFilter(h: number): void {
-    const { tauStart, tauFilter } = this;
-    const tau = this.ws.tau;
-    const T1 = this.ws.T;
-    const T0 = this.T0;
-    for (let j = 0; j < this.size; j++) tauFilter[j] = T1[j]! > T0[j]! ? Math.max(tauStart[j]!, tau[j]!) : tau[j]!;
-    stageJacobian(this.ws, h, this.cond, tauFilter);
   }
 
   solveStage(rhs: Float64Array, out: Float64Array): boolean {
@@ -464,13 +429,9 @@ export class LineSystem implements StageSystem {
     return none || half || all;
   }
 
-  /**
-   * The evaluated state starts the next step: its temperatures for the secant, its dT/dU for the estimate's filter
-   * (assembleFilter), ρc_p at its temperatures for the scales.
-   */
+  /** The evaluated state starts the next step: its temperatures for the secant, ρc_p at them for the scales. */
   markStart(): void {
     this.T0.set(this.ws.T);
-    this.tauStart.set(this.ws.tau);
     updateCapacity(this.ws);
   }
 }

@@ -225,11 +225,6 @@ export class NetworkSystem implements StageSystem {
   /** The error scale is fixed (kelvin): nothing to take at the start of a step. */
   markStart(): void {}
 
-  /** The network's nodes have no kinks (fixed capacities): the estimate is filtered through the stage operator. */
-  assembleFilter(h: number): void {
-    this.assembleStage(h);
-  }
-
   /** Heat stored in the nodes above the temperatures T (J): Σ C_i·(U_i − T_i). */
   storedAboveJ(U: Float64Array, T: Float64Array): number {
     let sum = 0;

@@ -84,12 +84,6 @@ export interface StageSystem {
   stageResidual(U: Float64Array, B: Float64Array, h: number, res: Float64Array): void;
   /** Assembles the stage operator ∂res/∂U for effective step h at the last evaluation. */
   assembleStage(h: number): void;
-  /**
-   * Assembles the operator a step's error estimate is filtered through (time/tr-bdf2.ts), at the last evaluation (the
-   * step's end) for effective step h: the stage operator, or a stiffer one where the system knows that a component was
-   * stiff at the step's start and is not at its end (grid/line-system.ts: a cell that warmed onto a melt plateau).
-   */
-  assembleFilter(h: number): void;
   /** Solves (assembled operator)·out = rhs; false on a zero pivot. */
   solveStage(rhs: Float64Array, out: Float64Array): boolean;
   /**

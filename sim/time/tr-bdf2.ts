@@ -25,9 +25,6 @@
  * put its molten time 0.70 s late, where this rule is 0.01 s off. Measured at the defaults on examples/: Newton sweeps
  * 21 598 → 19 647, the demo 1675 → 1357; at ×0.01 tolerances on 1600 cells 44 521 → 20 016 (DEVELOPERS.md, "The
  * second error filter", with what it costs in accuracy).
- * The operator of both filters is the system's assembleFilter(): the stage operator at the step's end, except that a
- * stack cell that warmed onto a melt plateau within the step keeps the stiffness it had at the start
- * (grid/line-system.ts): with the end's operator its row was not damped, and its estimate did not fall with the step.
  * With backwardEuler: true the step is one backward-Euler stage (first order, for the convergence study).
  */
 import type { StageSystem, StepBuffers, UpdateSize } from '../grid/stage-system.ts';
@@ -145,11 +142,10 @@ export function takeStep(sys: StageSystem, buf: StepBuffers, h: number, newton: 
   sys.readRates(F1);
   sys.readChannels(buf.q1);
 
-  // error estimate h·Σ(b − b̂)·f, filtered through the stage operator at the end state (rates are 0 on constraints), or
-  // the system's stiffer variant of it (assembleFilter; see the header)
+  // error estimate h·Σ(b − b̂)·f, filtered through the stage operator at the end state (rates are 0 on constraints)
   const { res, delta } = buf;
   for (let j = 0; j < size; j++) res[j] = h * (E[0] * F0[j]! + E[1] * Fg[j]! + E[2] * F1[j]!);
-  sys.assembleFilter(hd);
+  sys.assembleStage(hd);
   if (!sys.solveStage(res, delta)) {
     outcome.status = 'singular';
     return outcome;

@@ -150,13 +150,9 @@ describe('the ceiling mid-run, lowered for a test (EvolveOptions.maxCellSweeps)'
   });
 
   it('runProblem() stopped at a ceiling while the demo\'s separator melts names it as what held the steps back', () => {
-    // the demo with tolerance_K at ×0.01 of its default (0.002 K) at 20 000 cell-sweeps (of the 223 000 it takes)
-    // stops at t ≈ 39 s, while its salt melts (molten at 85 s): measured, 13 of its 17 rejected steps failed on the
-    // separator's error, each while the layer was melting. (At its defaults the demo no longer serves: since a cell that
-    // warms onto its melt plateau is filtered as the stiff cell it was, grid/line-system.ts assembleFilter, its whole
-    // run takes 36 600 cell-sweeps with 6 rejected steps, and 20 000 stop it at t ≈ 940 s, as it freezes.)
-    const file = { ...structuredClone(demo), numerics: { tolerance_K: 0.01 * scenarioDefaults.toleranceK } } as unknown as ScenarioFile;
-    const out = runProblem(parseOk(file), { maxCellSweeps: 20_000 });
+    // the demo at 20 000 cell-sweeps (of the 66 000 it takes) stops at t ≈ 56 s, while its salt melts (molten at
+    // 85 s): measured, 31 of its 34 rejected steps failed on the separator's error, each while the layer was melting
+    const out = runProblem(parseOk(demo as unknown as ScenarioFile), { maxCellSweeps: 20_000 });
     expect(out.status).toBe('failed');
     if (out.status !== 'failed') return;
     const held = /(\d+) of the (\d+) rejected steps were held back by layer "separator" \(24 cells\) while a melt front crossed it\. Use fewer cells/.exec(out.message);
