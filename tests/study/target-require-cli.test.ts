@@ -5,14 +5,12 @@
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { assertClose } from '../support/assert-close.ts';
 import { hForEndC, slabFile } from './lumped-slab.ts';
-import { freezeline } from '../support/cli.ts';
+import { freezeline, repoRoot as root } from '../support/cli.ts';
 import { drainedSlab } from '../support/scenarios.ts';
 
-const root = fileURLToPath(new URL('../../', import.meta.url));
 const demo = join(root, 'examples/bench-coupon.json');
 const work = mkdtempSync(join(tmpdir(), 'freezeline-study-'));
 const slab = join(work, 'slab.json');

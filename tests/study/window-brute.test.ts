@@ -8,7 +8,6 @@ import type { ScenarioFile } from '../../sim/scenario/scenario-schema.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { demoOnPlate, parseOk, runOk } from '../support/scenarios.ts';
 
-
 /** Smallest margin to any limit of any layer, K, read from a plain run's summary. */
 function smallestMargin(s: ScenarioFile): number {
   const { summary } = runOk(s);

@@ -1,16 +1,13 @@
 // `freezeline window` from the outside: the JSON answers with their keys, the operating chart as CSV (one row per
 // run, RFC 4180), and bad flags refused with exit code 2 and a message naming the flag and the value.
 
-import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { assertClose } from '../support/assert-close.ts';
+import { freezeline } from '../support/cli.ts';
 import { demoOnPlate } from '../support/scenarios.ts';
-
-const repo = new URL('../..', import.meta.url).pathname;
-const cli = (args: string[]) => spawnSync('node', ['sim/cli/bin.js', ...args], { cwd: repo, encoding: 'utf8' });
 
 describe('freezeline window', () => {
   const dir = mkdtempSync(join(tmpdir(), 'freezeline-window-'));
@@ -19,8 +16,9 @@ describe('freezeline window', () => {
 
   it('window --json gives the longest and shortest hold, the window, the binding constraint and the solve count', () => {
     const csv = join(dir, 'chart.csv');
-    const out = execFileSync('node', ['sim/cli/bin.js', 'window', hot, '--json', '--csv', csv], { cwd: repo, encoding: 'utf8' });
-    const doc = JSON.parse(out) as Record<string, unknown> & { binding: { layer: string; kind: string; at_s: number }; points: unknown[] };
+    const r = freezeline('window', hot, '--json', '--csv', csv);
+    expect(r.code, r.err).toBe(0);
+    const doc = JSON.parse(r.out) as Record<string, unknown> & { binding: { layer: string; kind: string; at_s: number }; points: unknown[] };
     for (const key of ['longest_hold_s', 'shortest_hold_s', 'window_s', 'binding', 'solves', 'safe_intervals', 'points']) expect(doc).toHaveProperty(key);
     expect(doc.binding.layer).toBe('anode');
     expect(doc.binding.kind).toBe('ignition');
@@ -42,9 +40,9 @@ describe('freezeline window', () => {
       [['--hold', '99999'], /outside the range of bottom\[1\]\.from_s/],
     ];
     for (const [flags, message] of cases) {
-      const r = cli(['window', hot, ...flags]);
-      expect(r.status).toBe(2);
-      expect(r.stderr).toMatch(message);
+      const r = freezeline('window', hot, ...flags);
+      expect(r.code).toBe(2);
+      expect(r.err).toMatch(message);
     }
   });
 });

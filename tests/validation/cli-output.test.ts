@@ -6,16 +6,13 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { hazards, predictionNotCertification, verdictTerms } from '../../sim/observe/wording.ts';
-import { freezeline } from '../support/cli.ts';
+import { freezeline, repoRoot as root } from '../support/cli.ts';
 import { drainedSlab, drainedSlabZeroKelvinS } from '../support/scenarios.ts';
 
-const root = fileURLToPath(new URL('../..', import.meta.url));
 const demo = join(root, 'examples/bench-coupon.json');
 const work = mkdtempSync(join(tmpdir(), 'freezeline-cli-'));
-
 
 /** The demo with two claims it does not meet (window at least 10 min, anode margin at least 300 K). */
 function failingScenario(): string {
