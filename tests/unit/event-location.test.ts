@@ -97,3 +97,30 @@ describe('locateRise(): the step that ends just past the crossing', () => {
     }
   });
 });
+
+describe('locateRise() when a trial step fails', () => {
+  const tolS = 1e-3;
+  const g = (s: number) => Math.exp(s) - Math.exp(0.7);
+
+  it('tries elsewhere in the bracket and still lands within the tolerance when the first trial fails', () => {
+    // a trial step can fail where the whole step did not (Newton cycling at a melt kink for one step length:
+    // insulated-pellet-stack at tolerances × 2.7, events.ts). Before, the location kept the whole step, ending 0.3 s past
+    // the crossing here
+    const failAt = 0.69 - 0.25 * tolS;
+    const tried: number[] = [];
+    const found = locateRise((s) => { tried.push(s); return s === failAt ? undefined : g(s); }, g(0), 1, g(1), tolS, 40, 0.69);
+    expect(tried[0]).toBe(failAt);
+    expect(tried[1], 'halfway to the far end of the bracket').toBeCloseTo(0.5 * (failAt + 1), 12);
+    expect(g(found.s)).toBeGreaterThanOrEqual(0);
+    expect(found.s - 0.7).toBeLessThanOrEqual(tolS);
+  });
+
+  it('keeps the bracket it has after four failures, the right end (where g ≥ 0) being the step kept', () => {
+    // every trial fails: the fifth failure ends the location, and the step kept is the whole step, as before
+    const tried: number[] = [];
+    const found = locateRise((s) => { tried.push(s); return undefined; }, g(0), 1, g(1), tolS, 40, 0.69);
+    expect(tried).toHaveLength(5);
+    expect(found.s).toBe(1);
+    expect(found.lastS).toBe(tried[4]);
+  });
+});
