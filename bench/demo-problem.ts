@@ -1,6 +1,7 @@
 /**
  * The demo (examples/bench-coupon.json) as the benchmarks refine it, shared by bench/solver.ts (its scaling rows) and
- * bench/kernels.ts (the state its kernels are timed on), so that both measure the same runs.
+ * bench/kernels.ts (the state its kernels are timed on), so that both measure the same runs; and the scenario of the
+ * accuracy table (bench/solver.ts), which bench/accuracy-calibration.ts calibrates on as well.
  */
 import scenario from '../examples/bench-coupon.json' with { type: 'json' };
 import type { Problem } from '../sim/physics/problem.ts';
@@ -40,3 +41,19 @@ export function demoProblem(total: number, tolScale: number, rampK: number): Pro
   // the file gives grid and tolerances, so its plan keeps the curve as written; grid factor and ramp are set here
   return { ...p, numerics: { ...p.numerics, accuracy: { ...p.numerics.accuracy!, gridRefine: total / DEMO_BASE_CELLS, meltRampK: rampK } } };
 }
+
+/**
+ * A scenario of our own, invented: nickel / salt separator / magnesium on a 450 °C plate for 4 min, then free air, 10 min.
+ * The accuracy table of bench/solver.ts asks it for 1, 0.1 and 0.01 s; bench/accuracy-calibration.ts measures on it.
+ */
+export const ACCURACY_SCENARIO = {
+  freezeline: 1, name: 'bench: three layers, hot plate then free air', ambient_C: 20, duration_s: 600,
+  footprint: { diameter_mm: 20 },
+  layers: [
+    { id: 'collector', material: 'nickel', thickness_mm: 0.5 },
+    { id: 'separator', material: 'licl-kcl-eutectic', thickness_mm: 1.0, separator: true },
+    { id: 'anode', material: 'magnesium', thickness_mm: 1.0 },
+  ],
+  bottom: [{ from_s: 0, plate: { temperature_C: 450, conductance_W_m2K: 800 } }, { from_s: 240, convection_W_m2K: 'natural', emissivity: 0.4 }],
+  top: [{ from_s: 0, convection_W_m2K: 'natural', emissivity: 0.3 }],
+};

@@ -21,7 +21,7 @@ import { runProblem } from '../sim/run.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
 import { runPeer } from './peer-bdf.ts';
-import { DEMO_BASE_CELLS, demoProblem, parseDemo as parse } from './demo-problem.ts';
+import { ACCURACY_SCENARIO, DEMO_BASE_CELLS, demoProblem, parseDemo as parse } from './demo-problem.ts';
 
 const QUICK = process.env.BENCH_QUICK === '1';
 const ONLY_ACCURACY = process.env.BENCH_PART === 'accuracy';
@@ -84,18 +84,7 @@ for (const tol of ONLY_ACCURACY ? [] : [1, TIGHT]) {
 }
 console.log(slopes.join('\n'));
 
-/** A scenario of our own: nickel / salt separator / magnesium on a 450 °C plate for 4 min, then free air, 10 min. */
-const ownScenario = {
-  freezeline: 1, name: 'bench: three layers, hot plate then free air', ambient_C: 20, duration_s: 600,
-  footprint: { diameter_mm: 20 },
-  layers: [
-    { id: 'collector', material: 'nickel', thickness_mm: 0.5 },
-    { id: 'separator', material: 'licl-kcl-eutectic', thickness_mm: 1.0, separator: true },
-    { id: 'anode', material: 'magnesium', thickness_mm: 1.0 },
-  ],
-  bottom: [{ from_s: 0, plate: { temperature_C: 450, conductance_W_m2K: 800 } }, { from_s: 240, convection_W_m2K: 'natural', emissivity: 0.4 }],
-  top: [{ from_s: 0, convection_W_m2K: 'natural', emissivity: 0.3 }],
-};
+const ownScenario = ACCURACY_SCENARIO;
 const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
 const asked = QUICK ? [1, 0.1] : [1, 0.1, 0.01];
 // each accuracy's plan, or the rule's refusal (an accuracy beyond the cell limit or the work budget is refused at
