@@ -12,9 +12,10 @@
  * elsewhere against the same case at cells × 16, tolerances ÷ 81 (a convergence study's reference; Roache 1998, ch. 5),
  * or × 8, ÷ 27 when that stops at the solver's run-time ceiling.
  *
- * Printed: each case's worst |error| ÷ duration at each pair; over all cases the largest at each pair, e(ℓ, k); and the
- * shares S, T of least S + T (the modelled error at the defaults, which sets the default stated accuracy) such that
- * S/2^ℓ + T/2^k ≥ margin × e(ℓ, k) at every pair, with the pairs that bind.
+ * Printed: each case's worst |error| ÷ duration at each pair; over all cases the largest at each pair, e(ℓ, k); the
+ * rule's modelled error at each pair against margin × e(ℓ, k), and the pairs where it falls short; the growth per
+ * looser tolerance level its shares need; and, as a guide, the shares S, T of least S + T (the modelled error at the
+ * defaults, which sets the default stated accuracy) that meet every pair, with the pairs that bind.
  *
  * CALIBRATE_CASES=name,name runs only the cases named (to split the work across processes); CALIBRATE_QUICK=1 runs
  * the pair's own setting only (no nearby settings); CALIBRATE_VERBOSE=1 prints each setting's signed errors.
@@ -134,10 +135,27 @@ console.log('\nlargest |error| ÷ duration at each pair, over the cases run');
 PAIRS.forEach(([l, k], i) => console.log(`  (${l}, ${k})  ${worst[i]!.share.toExponential(2)}  (${worst[i]!.name}, ${worst[i]!.errS.toFixed(3)} s)`));
 
 /**
- * The shares of least S + T with S/2^ℓ + T/2^k ≥ MARGIN × e(ℓ, k) at every pair: a linear programme in two unknowns,
- * solved at the vertices of its feasible region (each pair of constraint lines, and the axes, intersected).
+ * What the shares must meet: S/2^ℓ + T·f(k) ≥ MARGIN × e(ℓ, k) at every pair, with f(k) = 2^−k for k ≥ 0 and
+ * g^−k below (g: the rule's timeGrowthPerLooserLevel), as the rule models them (accuracy.ts modelledErrorS).
  */
-const rows = PAIRS.map(([l, k], i) => ({ a: 1 / 2 ** l, b: 1 / 2 ** k, c: MARGIN * worst[i]!.share }));
+const g = accuracyDefaults.timeGrowthPerLooserLevel;
+const rows = PAIRS.map(([l, k], i) => ({ a: 1 / 2 ** l, b: k >= 0 ? 1 / 2 ** k : g ** -k, c: MARGIN * worst[i]!.share }));
+const now = { s: accuracyDefaults.spaceShareAtDefaults, t: accuracyDefaults.timeShareAtDefaults };
+const short = PAIRS.filter((_, i) => rows[i]!.a * now.s + rows[i]!.b * now.t < rows[i]!.c);
+console.log(`\nthe rule (S = ${now.s}, T = ${now.t}, looser levels ×${g} each) falls short of ×${MARGIN} the largest error at: ${short.length === 0 ? 'no pair' : short.map(([l, k]) => `(${l}, ${k})`).join(', ')}`);
+PAIRS.forEach(([l, k], i) => {
+  const r = rows[i]!;
+  console.log(`  (${l}, ${k})  modelled ${(r.a * now.s + r.b * now.t).toExponential(2)} against ×${MARGIN} the largest, ${r.c.toExponential(2)}`);
+});
+// the growth per looser level the rule's S and T need: (MARGIN·e − S/2^ℓ)/T ≤ g^−k at each looser pair
+const needed = PAIRS.map(([l, k], i) => (k < 0 ? Math.max(0, (rows[i]!.c - now.s / 2 ** l) / now.t) ** (1 / -k) : 0));
+console.log(`  growth per looser level these S and T need: ${Math.max(...needed).toFixed(2)}`);
+
+/**
+ * The shares of least S + T meeting the same bounds (with the rule's g): a linear programme in two unknowns, solved at
+ * the vertices of its feasible region (each pair of constraint lines, and the axes, intersected). A guide, not the
+ * rule: where the pairs that bind all have ℓ = 0 it puts everything into S, as they cannot tell the two parts apart.
+ */
 const lines = [...rows, { a: 1, b: 0, c: 0 }, { a: 0, b: 1, c: 0 }];
 let best: { s: number; t: number } | undefined;
 for (let i = 0; i < lines.length; i++) {
@@ -154,8 +172,5 @@ for (let i = 0; i < lines.length; i++) {
 }
 if (best !== undefined) {
   const binding = PAIRS.filter((_, i) => Math.abs(rows[i]!.a * best!.s + rows[i]!.b * best!.t - rows[i]!.c) <= 1e-9 * rows[i]!.c);
-  console.log(`\nshares of least S + T with margin ×${MARGIN}: S = ${best.s.toExponential(2)}, T = ${best.t.toExponential(2)} (S + T = ${(best.s + best.t).toExponential(2)}); binding at ${binding.map(([l, k]) => `(${l}, ${k})`).join(', ')}`);
-  const now = { s: accuracyDefaults.spaceShareAtDefaults, t: accuracyDefaults.timeShareAtDefaults };
-  const short = PAIRS.filter((_, i) => rows[i]!.a * now.s + rows[i]!.b * now.t < rows[i]!.c);
-  console.log(`the rule's shares now fall short of that at: ${short.length === 0 ? 'no pair' : short.map(([l, k]) => `(${l}, ${k})`).join(', ')}`);
+  console.log(`shares of least S + T with margin ×${MARGIN}: S = ${best.s.toExponential(2)}, T = ${best.t.toExponential(2)} (S + T = ${(best.s + best.t).toExponential(2)}); binding at ${binding.map(([l, k]) => `(${l}, ${k})`).join(', ')}`);
 }
