@@ -67,7 +67,7 @@ export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEd
     hint: 'How close the molten, half-frozen and frozen times should be. A smaller value refines the grid and the steps (slower runs). Empty: the default, which keeps the default grid and tolerances.',
   });
   const accuracyInput = accuracy.querySelector('input');
-  // room for its placeholder, "default 0.918"
+  // room for its placeholder, "default 0.936"
   accuracyInput?.classList.add('medium');
   const refresh = (): void => {
     const byDefault = defaultAccuracyS(asNumber(store.get('duration_s')));
