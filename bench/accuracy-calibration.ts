@@ -1,6 +1,7 @@
 /**
- * `npm run calibrate`: the measurements behind the accuracy rule's two shares (sim/scenario/accuracy.ts,
- * accuracyDefaults.spaceShareAtDefaults and .timeShareAtDefaults), so that they can be repeated when the solver changes.
+ * `npm run calibrate`: the measurements behind the accuracy rule's shares and its growth per looser tolerance level
+ * (sim/scenario/accuracy.ts, accuracyDefaults.spaceShareAtDefaults, .timeShareAtDefaults and
+ * .timeGrowthPerLooserLevel), so that they can be repeated when the solver changes.
  * Figures only: nothing here asserts (tests/convergence/event-accuracy.test.ts checks the promise).
  *
  * For each case (every example, the accuracy table's scenario of bench/solver.ts, and the one-phase Stefan problem with
@@ -47,8 +48,8 @@ type Times = Record<(typeof EVENTS)[number], number | null>;
 interface Case {
   readonly name: string;
   readonly problem: Problem;
-  /** The exact times, when a closed form gives them. */
-  readonly exact?: Times;  // the Stefan problem starts fully molten: molten at 0 s
+  /** The exact times, when a closed form gives them (the Stefan problem starts fully molten: molten at 0 s). */
+  readonly exact?: Times;
 }
 
 /** `p` (parsed at the defaults, level 0) at grid level `level`, tolerance level `tolLevel`, both tolerances × `factor`. */

@@ -84,13 +84,12 @@ for (const tol of ONLY_ACCURACY ? [] : [1, TIGHT]) {
 }
 console.log(slopes.join('\n'));
 
-const ownScenario = ACCURACY_SCENARIO;
 const EVENTS = ['molten_at_s', 'half_frozen_at_s', 'frozen_at_s'] as const;
 const asked = QUICK ? [1, 0.1] : [1, 0.1, 0.01];
 // each accuracy's plan, or the rule's refusal (an accuracy beyond the cell limit or the work budget is refused at
 // validation, and the row says so)
 const plans = asked.map((a) => {
-  const parsed = parseScenario({ ...ownScenario, numerics: { event_accuracy_s: a } });
+  const parsed = parseScenario({ ...ACCURACY_SCENARIO, numerics: { event_accuracy_s: a } });
   return { a, problem: parsed.ok ? parsed.problem : undefined, refusal: parsed.ok ? '' : parsed.errors.map((e) => `${e.path}: ${e.message}`).join('; ') };
 });
 const accepted = plans.filter((p) => p.problem !== undefined);
@@ -117,9 +116,9 @@ const ref = found;
 const refLevel = refProblem.numerics.accuracy!.level;
 const refDivisor = refProblem.numerics.accuracy!.toleranceDivisor;
 const refTimes = EVENTS.map((e) => ref.summary.separator[e]);
-const heatOffS = ref.summary.heat_off_s ?? ownScenario.duration_s;
+const heatOffS = ref.summary.heat_off_s ?? ACCURACY_SCENARIO.duration_s;
 console.log('');
-console.log(`  accuracy asked in seconds — ${ownScenario.name}; reference: ${ref.grid.n} cells, tolerances ÷${refDivisor}: molten ${refTimes[0]?.toFixed(3)} s, half-frozen ${refTimes[1]?.toFixed(3)} s, frozen ${refTimes[2]?.toFixed(3)} s`);
+console.log(`  accuracy asked in seconds — ${ACCURACY_SCENARIO.name}; reference: ${ref.grid.n} cells, tolerances ÷${refDivisor}: molten ${refTimes[0]?.toFixed(3)} s, half-frozen ${refTimes[1]?.toFixed(3)} s, frozen ${refTimes[2]?.toFixed(3)} s`);
 console.log('  asked s   freezeline: cells  tol ÷     ms   error s  estimate s | peer BDF: tol K     ms   error s   steps | ratio');
 const worst = (times: readonly (number | null)[]) => Math.max(...times.map((t, i) => (t === null || refTimes[i] === null ? Infinity : Math.abs(t - refTimes[i]!))));
 const timeIt = (f: () => void, runs: number) => {

@@ -140,8 +140,8 @@ export interface Located {
  * Locates the rise of g through zero on (0, sB], given g(0) = gA < 0 ≤ g(sB) = gB, by Anderson–Björck regula falsi
  * on the step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or
  * undefined if that step failed: the next trial then goes halfway to an end of the bracket instead (alternating far
- * and near), and after MAX_FAILED_TRIALS failures the bracket found so far is kept. Stops when the bracket is narrower than tolS
- * or after maxTrials trials. `firstS`, when given, is the first estimate instead of the regula falsi point. Each trial
+ * and near), and after MAX_FAILED_TRIALS failures the bracket found so far is kept. Stops when the bracket is
+ * narrower than tolS or after maxTrials trials. `firstS`, when given, is the first estimate instead of the regula falsi point. Each trial
  * is aimed a quarter of the tolerance to one side of its estimate (aimedTrial), so that the trial that closes the
  * bracket is, as a rule, the step kept. Measured on described-rig (288 thermostat switches): 999 trials where aiming
  * at the estimate took 1284 (the step kept was then taken again after 287 of the 289 events, because the bracket had
