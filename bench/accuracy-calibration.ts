@@ -4,8 +4,9 @@
  * .timeGrowthPerLooserLevel), so that they can be repeated when the solver changes.
  * Figures only: nothing here asserts (tests/convergence/event-accuracy.test.ts checks the promise).
  *
- * For each case (every example, the accuracy table's scenario of bench/solver.ts, and the one-phase Stefan problem with
- * its wall 100 K and 5 K below the melting point) and each pair (ℓ, k) of grid and tolerance levels the rule plans with
+ * For each case (every example, the accuracy table's scenario of bench/solver.ts, the one-phase Stefan problem with
+ * its wall 100 K and 5 K below the melting point, and eight random melt-and-freeze stacks, seeds 101–108 of
+ * tests/support/scenarios.ts randomMeltScenario) and each pair (ℓ, k) of grid and tolerance levels the rule plans with
  * (cells × 2^ℓ, both tolerances ÷ 3^k), the separator's event times are measured at the pair's tolerances and at
  * nearby ones (both tolerances × 0.90, 0.95, …, 1.10): one run at one setting scatters by tenths of a second (the last
  * cell to melt or freeze decides an event), and a rule fitted to single runs was found thin (DEVELOPERS.md, "Accuracy
@@ -26,6 +27,7 @@ import { join } from 'node:path';
 import type { Problem } from '../sim/physics/problem.ts';
 import { runProblem } from '../sim/run.ts';
 import { accuracyDefaults } from '../sim/scenario/accuracy.ts';
+import { randomMeltScenario, seededRandom } from '../tests/support/scenarios.ts';
 import { stefanScenario, stefanTimes } from '../tests/support/stefan-problem.ts';
 import { ACCURACY_SCENARIO, parseDemo as parse } from './demo-problem.ts';
 
@@ -87,6 +89,8 @@ for (const below of [100, 5]) {
   const exact = stefanTimes(wallC);
   cases.push({ name: `stefan-${below}K`, problem: parse(stefanScenario(wallC)), exact: { molten_at_s: 0, half_frozen_at_s: exact.halfS, frozen_at_s: exact.frozenS } });
 }
+// random melt-and-freeze stacks (tests/support/scenarios.ts), on seeds the promise's test does not use (it takes 1–8)
+for (let seed = 101; seed <= 108; seed++) cases.push({ name: `random-${seed}`, problem: parse(randomMeltScenario(seededRandom(seed * 7919))) });
 const only = process.env.CALIBRATE_CASES?.split(',');
 const chosen = only ? cases.filter((c) => only.includes(c.name)) : cases;
 if (only && chosen.length !== only.length) throw new Error(`CALIBRATE_CASES names a case that is not one of: ${cases.map((c) => c.name).join(', ')}`);

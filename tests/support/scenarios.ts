@@ -347,3 +347,37 @@ export function randomSymmetricScenario(rand: () => number): { scenario: Scenari
     pairs,
   };
 }
+
+/**
+ * A random stack that melts on a hot plate and freezes in free air (invented): a metal collector, a salt separator
+ * (the library eutectic, or an invented salt melting isothermally or over up to 8 K), a metal electrode; plate, hold,
+ * emissivities and thicknesses drawn uniformly over the ranges below. tests/convergence/event-accuracy.test.ts checks
+ * the accuracy promise on seeds 1–8 (× 7919); bench/accuracy-calibration.ts calibrates the rule on seeds 101–108, so
+ * the test's stacks stay out of the calibration.
+ */
+export function randomMeltScenario(rand: () => number): ScenarioFile {
+  const between = (a: number, b: number) => Number((a + (b - a) * rand()).toPrecision(3));
+  const solidus = between(330, 370);
+  const salt = rand() < 0.4 ? 'licl-kcl-eutectic' : 'salt';
+  const hold = between(120, 400);
+  return {
+    freezeline: 1, name: 'random melt-and-freeze stack', ambient_C: between(0, 40), duration_s: Math.round(hold + between(500, 1200)),
+    footprint: { diameter_mm: between(15, 40) },
+    materials: {
+      salt: {
+        k_W_mK: between(0.5, 2), rho_kg_m3: between(1600, 2200), cp_J_kgK: between(900, 1300),
+        melt: { solidus_C: solidus, liquidus_C: rand() < 0.5 ? solidus : between(solidus, solidus + 8), latent_J_kg: between(1e5, 3e5) },
+      },
+    },
+    layers: [
+      { id: 'collector', material: rand() < 0.5 ? 'nickel' : 'mild-steel', thickness_mm: between(0.3, 1.5) },
+      { id: 'separator', material: salt, thickness_mm: between(0.5, 2), separator: true },
+      { id: 'electrode', material: rand() < 0.5 ? 'magnesium' : 'iron', thickness_mm: between(0.5, 2) },
+    ],
+    bottom: [
+      { from_s: 0, plate: { temperature_C: between(430, 520), conductance_W_m2K: between(300, 1500) } },
+      { from_s: hold, convection_W_m2K: 'natural', emissivity: between(0.2, 0.8) },
+    ],
+    top: [{ from_s: 0, convection_W_m2K: 'natural', emissivity: between(0.2, 0.8) }],
+  } as ScenarioFile;
+}
