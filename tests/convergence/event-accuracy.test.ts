@@ -67,7 +67,6 @@ function holds(file: ScenarioFile, accuracyS: number | undefined, what: string):
   return compared;
 }
 
-
 const dir = new URL('../../examples/', import.meta.url);
 const examples = readdirSync(dir).filter((f) => f.endsWith('.json')).sort();
 const read = (f: string) => JSON.parse(readFileSync(new URL(f, dir), 'utf8')) as ScenarioFile;
