@@ -21,11 +21,13 @@ describe('the browser view while a run is long or an input is wrong', () => {
   it('a long run shows progress, the page keeps answering, and cancel keeps the last result', async () => {
     const page = await freshPage();
     const halfFrozen = await text(page, 'verdict-half-frozen-at');
-    // the demo with a 0.04 s step cap on a grid 3× finer: about 90 000 steps of 120 cells, tens of seconds of solving
-    // however fast the machine (under the scenario's limits of 100 000 forced steps and 5e7 cell-steps,
-    // scenarioLimitDefaults), so the run is still going when the page is asked and when cancel is clicked
+    // the demo with a 0.04 s step cap on a grid about 5× finer: 90 004 steps of 216 cells, 1.94e7 cell-steps, just
+    // under the scenario's limit of 2e7 forced cell-steps (scenarioLimitDefaults), so the run is still going when the
+    // page is asked and when cancel is clicked. Measured 4.7 s in Node on 2026-12-05 (longer in the browser); the grid
+    // of 120 cells this test had took 3.0 s by then, where it took tens of seconds when written, and a CI run once
+    // finished it before the click landed
     const demo = JSON.parse(readFileSync(`${repoRoot}examples/bench-coupon.json`, 'utf8')) as Record<string, unknown>;
-    writeFileSync(`${artifacts}/slow-demo.json`, JSON.stringify({ ...demo, numerics: { max_step_s: 0.04, cells_per_mm: 20, separator_cells_per_mm: 40 } }));
+    writeFileSync(`${artifacts}/slow-demo.json`, JSON.stringify({ ...demo, numerics: { max_step_s: 0.04, cells_per_mm: 36, separator_cells_per_mm: 72 } }));
     await page.setInputFiles('[data-testid="load-json"]', `${artifacts}/slow-demo.json`);
     await statusIs(page, 'running');
     await page.waitForFunction(() => Number((document.getElementById('run-progress') as HTMLProgressElement).value) > 0);
