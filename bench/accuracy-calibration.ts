@@ -28,7 +28,7 @@ import type { Problem } from '../sim/physics/problem.ts';
 import { runProblem } from '../sim/run.ts';
 import { accuracyDefaults } from '../sim/scenario/accuracy.ts';
 import { randomMeltScenario, seededRandom } from '../tests/support/scenarios.ts';
-import { stefanScenario, stefanTimes } from '../tests/support/stefan-problem.ts';
+import { STEFAN, stefanScenario, stefanTimes } from '../tests/support/stefan-problem.ts';
 import { ACCURACY_SCENARIO, parseDemo as parse } from './demo-problem.ts';
 
 /**
@@ -85,7 +85,7 @@ for (const f of readdirSync(examples).filter((n) => n.endsWith('.json')).sort())
 }
 cases.push({ name: 'bench-accuracy-scenario', problem: parse(ACCURACY_SCENARIO) });
 for (const below of [100, 5]) {
-  const wallC = 300 - below;
+  const wallC = STEFAN.meltC - below;
   const exact = stefanTimes(wallC);
   cases.push({ name: `stefan-${below}K`, problem: parse(stefanScenario(wallC)), exact: { molten_at_s: 0, half_frozen_at_s: exact.halfS, frozen_at_s: exact.frozenS } });
 }
@@ -96,7 +96,7 @@ const chosen = only ? cases.filter((c) => only.includes(c.name)) : cases;
 if (only && chosen.length !== only.length) throw new Error(`CALIBRATE_CASES names a case that is not one of: ${cases.map((c) => c.name).join(', ')}`);
 
 console.log(`accuracy rule calibration — pairs (ℓ, k): ${PAIRS.map(([l, k]) => `(${l}, ${k})`).join(' ')}; tolerances × ${FACTORS.join(', ')}`);
-console.log(`the rule now: S = ${accuracyDefaults.spaceShareAtDefaults}, T = ${accuracyDefaults.timeShareAtDefaults} (error ÷ duration at level 0)`);
+console.log(`the rule now: S = ${accuracyDefaults.spaceShareAtDefaults}, T = ${accuracyDefaults.timeShareAtDefaults} (error ÷ duration at level 0), T × ${accuracyDefaults.timeGrowthPerLooserLevel} per level looser`);
 /** worst[pair index]: the largest |error| ÷ duration over the cases run, and the case. */
 const worst = PAIRS.map(() => ({ share: 0, errS: 0, name: '' }));
 for (const c of chosen) {

@@ -78,8 +78,9 @@ describe('numerics.event_accuracy_s', () => {
 
   // 0.5 s is below the modelled error at the defaults (2.6e-4 × duration) of every example but soaked-cloth-cell
   // (1800 s: 0.468 s), so those plans refine: cells ×2 and tolerances ÷3 on the one-hour ones, and the run stops at a
-  // rung of the ladder on its estimate where a rung below the plan is worth a run (or at the plan). Measured: all seven within 0.5 s, 34 s for the seven on a
-  // loaded machine (insulated-pellet-stack the dearest, 12 s, for its references)
+  // rung of the ladder on its estimate where a rung below the plan is worth a run (or at the plan). Measured
+  // (2026-12-05, clean-clone CI): all seven within 0.5 s, each test under 0.8 s with its references (described-rig the
+  // dearest; 34 s for the seven under the calibration before, when the plans refined more)
   it.each(examples)('runProblem() on %s asked for 0.5 s keeps its event times within the ask of the run with cells ×4, tolerances ÷9 beyond the rung it stopped at', (file) => {
     expect(holds(read(file), 0.5, `${file} at 0.5 s`)).toBeGreaterThanOrEqual(2);
   }, 300_000);
