@@ -75,13 +75,13 @@ export const accuracyDefaults = {
   spaceShareAtDefaults: 1.9e-4,
   timeShareAtDefaults: 0.7e-4,
   /**
-   * The time part's growth per multiplication by 3 of a file's own tolerances looser than the defaults (ownToleranceLevel
-   * below 0). Calibrated with the shares above: at (0, −1) the largest error was sleeved-square-cell's molten time,
-   * 0.977 s of 2400 s (4.07e-4), at (0, −2) a random stack's, 0.635 s of 1182 s (5.38e-4); S + T·g ≥ 1.2 × 4.07e-4
-   * and S + T·g² ≥ 1.2 × 5.38e-4 need g ≥ 4.26 and 2.55. Steps long enough to carry a cell through its melt in one
-   * go put the events late faster than the halving on the tight side would have it (the rule before took 2 here, and
-   * modelled (0, −1) at 2.7e-4). Before the event location kept trying after a failed trial step (time/events.ts),
-   * the pellet stack's molten time at (0, −1) was 2.76 s late.
+   * The time part's growth per multiplication by 3 of a file's own tolerances looser than the defaults
+   * (ownToleranceLevel below 0). Calibrated with the shares above: at (0, −1) the largest error was
+   * sleeved-square-cell's molten time, 0.977 s of 2400 s (4.07e-4), at (0, −2) a random stack's, 0.635 s of 1182 s
+   * (5.38e-4); S + T·g ≥ 1.2 × 4.07e-4 and S + T·g² ≥ 1.2 × 5.38e-4 need g ≥ 4.26 and 2.55. Steps long enough to carry
+   * a cell through its melt in one go put the events late faster than the halving on the tight side would have it (the
+   * rule before took 2 here, and modelled (0, −1) at 2.7e-4). Before the event location kept trying after a failed
+   * trial step (time/events.ts), the pellet stack's molten time at (0, −1) was 2.76 s late.
    */
   timeGrowthPerLooserLevel: 4.4,
   /** Grid factor per grid level, tolerance divisor per tolerance level (see above). */

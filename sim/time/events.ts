@@ -141,11 +141,12 @@ export interface Located {
  * on the step length. `trial(s)` takes the step of length s from the same start and returns g at its end, or
  * undefined if that step failed: the next trial then goes halfway to an end of the bracket instead (alternating far
  * and near), and after MAX_FAILED_TRIALS failures the bracket found so far is kept. Stops when the bracket is
- * narrower than tolS or after maxTrials trials. `firstS`, when given, is the first estimate instead of the regula falsi point. Each trial
- * is aimed a quarter of the tolerance to one side of its estimate (aimedTrial), so that the trial that closes the
- * bracket is, as a rule, the step kept. Measured on described-rig (288 thermostat switches): 999 trials where aiming
- * at the estimate took 1284 (the step kept was then taken again after 287 of the 289 events, because the bracket had
- * closed from below), Newton sweeps 9204 → 7969; heater-plate-lift-off 744 → 571 trials, 6991 → 6384 sweeps.
+ * narrower than tolS or after maxTrials trials. `firstS`, when given, is the first estimate instead of the regula falsi
+ * point. Each trial is aimed a quarter of the tolerance to one side of its estimate (aimedTrial), so that the trial
+ * that closes the bracket is, as a rule, the step kept. Measured on described-rig (288 thermostat switches): 999 trials
+ * where aiming at the estimate took 1284 (the step kept was then taken again after 287 of the 289 events, because the
+ * bracket had closed from below), Newton sweeps 9204 → 7969; heater-plate-lift-off 744 → 571 trials, 6991 → 6384
+ * sweeps.
  */
 export function locateRise(trial: (s: number) => number | undefined, gA: number, sB: number, gB: number,
   tolS: number, maxTrials: number, firstS?: number): Located {

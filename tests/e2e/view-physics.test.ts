@@ -103,13 +103,14 @@ describe('the view and the newer physics', () => {
 
   it('the event-time accuracy field shows the core\'s default for the run\'s duration, and the line beside the verdict states what a run asked for', async () => {
     const page = await freshPage();
-    // README "Accuracy in seconds": without the key a run states max(0.5 s, (1.9e-4 + 0.7e-4) × duration); the demo runs 3600 s → 0.936 s
+    // README "Accuracy in seconds": without the key a run states max(0.5 s, (1.9e-4 + 0.7e-4) × duration); the demo
+    // runs 3600 s → 0.936 s
     expect(await page.$eval('[data-testid="event-accuracy-s"]', (e) => (e as HTMLInputElement).placeholder)).toBe('default 0.936');
     expect(await text(page, 'verdict-accuracy')).toMatch(/^Accuracy: event times to 0\.936 s, default grid and tolerances/);
     // 0.2 s of an hour: the plan is grid level 2 and tolerance level 4 (cells × 4, tolerances ÷ 81), and the run climbs
     // the ladder below it, (0, 0), (1, 1), (2, 2) (sim/run.ts): the line states the rung it stopped at and its estimate
-    // (in Node it stops at (2, 2), cells × 4 and tolerances ÷ 9, estimate 0.0035 s; the browser's last bits may stop it at
-    // another rung)
+    // (in Node it stops at (2, 2), cells × 4 and tolerances ÷ 9, estimate 0.0035 s; the browser's last bits may stop it
+    // at another rung)
     await edit(page, 'event-accuracy-s', '0.2');
     expect((await saved(page)).numerics).toEqual({ event_accuracy_s: 0.2 });
     expect(await text(page, 'verdict-accuracy')).toMatch(/^Accuracy: event times to 0\.2 s, cells ×(2|4), tolerances ÷(3|9|81) .*; estimated [0-9.]+ s from the runs below it\)/);

@@ -1,11 +1,11 @@
-// A separator event whose location met a failed trial step. insulated-pellet-stack with its tolerances × 2.7 (tolerance_K
-// 0.54 K, liquid_fraction_tolerance 0.0108): the step that carried the last separator cell through its melt was 17.6 s
-// long, the first trial step shortened towards the crossing (9.7 s) failed Newton (it cycled at the melt kink, even
-// with 300 sweeps, where the whole step converged in 13), and the location gave up and kept the whole step. The molten
-// time, read inside that step, came 2.8 s late. Found by the accuracy rule's calibration (bench/accuracy-calibration.ts,
-// tolerances scanned ×0.9–1.1 around each level). Reference: the same example at cells × 4 and its default tolerances
-// ÷ 9, a grid- and step-independence reference in the usual sense of a convergence study (Roache, Verification and
-// Validation in Computational Science and Engineering, 1998, ch. 5).
+// A separator event whose location met a failed trial step. insulated-pellet-stack with its tolerances × 2.7
+// (tolerance_K 0.54 K, liquid_fraction_tolerance 0.0108): the step that carried the last separator cell through its
+// melt was 17.6 s long, the first trial step shortened towards the crossing (9.7 s) failed Newton (it cycled at the
+// melt kink, even with 300 sweeps, where the whole step converged in 13), and the location gave up and kept the whole
+// step. The molten time, read inside that step, came 2.8 s late. Found by the accuracy rule's calibration
+// (bench/accuracy-calibration.ts, tolerances scanned ×0.9–1.1 around each level). Reference: the same example at cells
+// × 4 and its default tolerances ÷ 9, a grid- and step-independence reference in the usual sense of a convergence study
+// (Roache, Verification and Validation in Computational Science and Engineering, 1998, ch. 5).
 
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';

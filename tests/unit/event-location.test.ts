@@ -104,8 +104,8 @@ describe('locateRise() when a trial step fails', () => {
 
   it('tries elsewhere in the bracket and still lands within the tolerance when the first trial fails', () => {
     // a trial step can fail where the whole step did not (Newton cycling at a melt kink for one step length:
-    // insulated-pellet-stack at tolerances × 2.7, events.ts). Before, the location kept the whole step, ending 0.3 s past
-    // the crossing here
+    // insulated-pellet-stack at tolerances × 2.7, events.ts). Before, the location kept the whole step, ending 0.3 s
+    // past the crossing here
     const failAt = 0.69 - 0.25 * tolS;
     const tried: number[] = [];
     const found = locateRise((s) => { tried.push(s); return s === failAt ? undefined : g(s); }, g(0), 1, g(1), tolS, 40, 0.69);
