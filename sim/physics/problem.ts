@@ -127,7 +127,10 @@ export interface AccuracyPlan {
   readonly level: number;
   /** Cells multiplied by this (1 when the file gives its own grid). */
   readonly gridRefine: number;
-  /** Tolerances divided by this (1 when the file gives its own tolerances). */
+  /**
+   * Tolerances divided by this (1 when the file gives its own tolerances): 3^k at tolerance level k, below 1 (1/3,
+   * 1/9) for an accuracy asked above the defaults' modelled error, which the run meets with looser tolerances.
+   */
   readonly toleranceDivisor: number;
   /** Half-width of the melt ramp, K (physics/melt-ramp.ts; 0: the enthalpy curve as written). */
   readonly meltRampK: number;

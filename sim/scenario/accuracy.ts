@@ -10,7 +10,8 @@
  * factor), so refining the grid does not by itself tighten the time control, nor cost more steps per cell. Each part
  * at level 0 is modelled as a share of the run's duration, which stands for the time scales of its events; the shares
  * are calibrated by refinement on examples/ (DEVELOPERS.md, "Accuracy"). The plan is the pair (ℓ, k) of least modelled
- * work (cells × steps) whose modelled error is within the accuracy asked, within the cell limit and the solver's work
+ * work (cells × steps) whose modelled error is within the accuracy asked (k may be −1 or −2 on the default grid, ℓ = 0:
+ * tolerances × 3 or × 9 for an accuracy above the defaults' modelled error), within the cell limit and the solver's work
  * budget; an accuracy no pair reaches is refused at validation with the limit that binds and the accuracy that can be
  * had. The rule is calibrated on the worst example, so on most scenarios it refines more than the ask needs; a plan
  * above level (0, 0) asked for in the file is therefore confirmed a posteriori (run.ts runProblem): the run climbs the
@@ -91,6 +92,14 @@ export const accuracyDefaults = {
   maxLevel: 6,
   /** Highest tolerance level: tolerances ÷ 729. */
   maxToleranceLevel: 6,
+  /**
+   * How many tolerance levels looser than the defaults a plan may take (tolerances × 3, × 9), for an accuracy asked
+   * above the defaults' modelled error, on the default grid: the looser pairs the calibration measured, (0, −1) and
+   * (0, −2), with the time part grown timeGrowthPerLooserLevel per level. Looser still is not calibrated, and the
+   * step cap (a hundredth of the duration) soon bounds the steps anyway: the demo at its defaults, × 3 and × 9 took
+   * 1357, 1003 and 831 Newton sweeps, and at × 27 951.
+   */
+  maxLooserToleranceLevel: 2,
   /**
    * Half-width of the melt ramp (physics/melt-ramp.ts) of a plan above (0, 0) at the default accuracy, K, scaled down in
    * proportion to a finer accuracy asked: 0, no ramp. Until 2026-12-03 it was 0.1 K (0.02 K at 0.1 s), measured on the
@@ -313,6 +322,7 @@ function cheapestLevels(ask: AccuracyAsk, asked: number): { level: number; tolLe
   const D = ask.durationS;
   const levels = ask.ownGrid ? 0 : d.maxLevel;
   const tolLevels = ask.ownTolerances ? 0 : d.maxToleranceLevel;
+  const looserLevels = ask.ownTolerances ? 0 : d.maxLooserToleranceLevel;
   const cellsFit = (l: number) => ask.ownGrid || ask.baseCells * d.gridPerLevel ** l <= ask.maxCells;
   const workFits = (l: number, k: number) => modelledWork(ask.baseCells, l, k) <= d.workBudgetCellSteps;
   let best: { level: number; tolLevel: number; work: number } | undefined;
@@ -320,11 +330,11 @@ function cheapestLevels(ask: AccuracyAsk, asked: number): { level: number; tolLe
   let cellsBind = false;
   let workBinds = false;
   for (let l = 0; l <= levels; l++) {
-    for (let k = 0; k <= tolLevels; k++) {
+    for (let k = -looserLevels; k <= tolLevels; k++) {
       const kt = timeLevelOf(ask, k);
       // a finer grid needs finer steps: at a fixed tolerance level a grid level lengthened the time error instead
-      // (accuracyDefaults.spaceShareAtDefaults)
-      if (l > kt) continue;
+      // (accuracyDefaults.spaceShareAtDefaults); looser tolerances than the defaults only on the default grid
+      if (l > (k < 0 ? 0 : kt)) continue;
       const err = modelledErrorS(D, l, kt);
       const fits = cellsFit(l) && workFits(l, kt);
       if (fits) reachable = Math.min(reachable, err);
@@ -400,8 +410,9 @@ export function accuracyLine(plan: AccuracyPlan | undefined): string {
     return `accuracy: ${asked}, ${what} (${expected})`;
   }
   const how = [
-    plan.gridRefine > 1 ? `cells ×${plan.gridRefine}` : 'grid as given',
-    plan.toleranceDivisor > 1 ? `tolerances ÷${plan.toleranceDivisor}` : 'tolerances as given',
+    plan.gridRefine > 1 ? `cells ×${plan.gridRefine}` : plan.ownGrid ? 'grid as given' : 'default grid',
+    plan.toleranceDivisor > 1 ? `tolerances ÷${plan.toleranceDivisor}`
+      : plan.toleranceDivisor < 1 ? `tolerances ×${Math.round(1 / plan.toleranceDivisor)} (looser than the defaults)` : 'tolerances as given',
     ...(plan.meltRampK > 0 ? [`melt kinks smoothed over ±${Number(plan.meltRampK.toPrecision(2))} K`] : []),
   ];
   return `accuracy: ${asked}, ${how.join(', ')} (${expected})`;

@@ -13,7 +13,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { summaryTable } from '../../sim/cli/table.ts';
-import { accuracyDefaults, accuracyPlan, estimatedErrorS, ladderPlans, ownToleranceLevel } from '../../sim/scenario/accuracy.ts';
+import { accuracyDefaults, accuracyLine, accuracyPlan, estimatedErrorS, ladderPlans, ownToleranceLevel } from '../../sim/scenario/accuracy.ts';
 import { stepGuardDefaults } from '../../sim/time/step-guards.ts';
 import { resultDocument } from '../../sim/observe/result.ts';
 import { runProblem } from '../../sim/run.ts';
@@ -50,6 +50,38 @@ describe('the accuracy a run states', () => {
     if ('error' in half) throw new Error(half.error);
     expect([half.level, half.gridRefine, half.toleranceDivisor]).toEqual([1, 2, 3]);
     assertClose(half.expectedErrorS, 0.468, { rel: 1e-12 }, 'expected_error_s at 0.5 s');
+  });
+
+  it('accuracyPlan() meets an accuracy above the defaults\' modelled error with looser tolerances on the default grid, at most × 9', () => {
+    // the demo's 3600 s: the time part grows 4.4× per level looser (accuracyDefaults.timeGrowthPerLooserLevel), so
+    // (0, −1) models 0.684 + 0.252 × 4.4 = 1.7928 s at work 1.5⁻¹ and (0, −2) 0.684 + 0.252 × 19.36 = 5.56272 s at
+    // 1.5⁻²; no grid level goes with a looser tolerance level, and nothing looser than × 9 is taken
+    const ask = { durationS: 3600, ownGrid: false, ownTolerances: false, baseCells: 40, maxCells: 20_000 };
+    const at = (a: number) => {
+      const plan = accuracyPlan({ ...ask, eventAccuracyS: a });
+      if ('error' in plan) throw new Error(plan.error);
+      return [plan.level, plan.gridRefine, plan.toleranceDivisor, plan.confirm, Number(plan.expectedErrorS.toPrecision(6))];
+    };
+    expect(at(1.5)).toEqual([0, 1, 1, false, 0.936]);
+    expect(at(1.8)).toEqual([0, 1, 1 / 3, false, 1.7928]);
+    expect(at(5.5)).toEqual([0, 1, 1 / 3, false, 1.7928]);
+    expect(at(5.6)).toEqual([0, 1, 1 / 9, false, 5.56272]);
+    expect(at(1e4)).toEqual([0, 1, 1 / 9, false, 5.56272]);
+    // the tolerances the run steps at: the defaults × 9, as the calibration ran the pair (0, −2)
+    const parsed = parseScenario({ ...demo, numerics: { event_accuracy_s: 10 } });
+    if (!parsed.ok) throw new Error('invalid');
+    assertClose(parsed.problem.numerics.toleranceK, 0.2 * 9, { rel: 1e-15 }, 'tolerance_K at 10 s');
+    assertClose(parsed.problem.numerics.liquidFractionTolerance, 4e-3 * 9, { rel: 1e-15 }, 'liquid_fraction_tolerance at 10 s');
+    // a file's own tolerances are never loosened further
+    const own = accuracyPlan({ ...ask, eventAccuracyS: 10, ownTolerances: true, ownToleranceLevel: 0 });
+    if ('error' in own) throw new Error(own.error);
+    expect([own.level, own.toleranceDivisor]).toEqual([0, 1]);
+  });
+
+  it('accuracyLine() names looser tolerances as such', () => {
+    const plan = accuracyPlan({ eventAccuracyS: 2, durationS: 3600, ownGrid: false, ownTolerances: false, baseCells: 40, maxCells: 20_000 });
+    if ('error' in plan) throw new Error(plan.error);
+    expect(accuracyLine(plan)).toBe('accuracy: event times to 2 s, default grid, tolerances ×3 (looser than the defaults) (modelled error about 1.8 s)');
   });
 
   it('resultDocument() gives the numerics of the rung runProblem() stopped at for event_accuracy_s 0.2, and its estimate', () => {
@@ -126,7 +158,8 @@ describe('the accuracy a run states', () => {
     expect(at(0.07)).toEqual([1, 9, 0.0675]);
     for (const a of [0.5, 0.2, 0.1, 0.05, 0.02, 0.01, 0.008]) {
       const [level, divisor] = at(a);
-      expect(3 ** level!, `${a} s: grid level within the tolerance level`).toBeLessThanOrEqual(divisor!);
+      // (0.5 s is above this run's 0.156 s at the defaults: tolerances × 3 on the default grid, divisor 1/3)
+      expect(3 ** level!, `${a} s: grid level within the tolerance level`).toBeLessThanOrEqual(Math.max(divisor!, 1));
     }
     // the file's own tolerances two levels below the defaults: the grid may go two levels, the time part is taken there
     // (0.042/4 = 0.0105 s): (1, own) gives 0.057 + 0.0105 = 0.0675 s, (2, own) 0.0285 + 0.0105 = 0.039 s
