@@ -113,6 +113,12 @@ const numericsDraft = (minToleranceK: number) => fc.record({
   cellsPerMm: fc.option(logRange(0.5, 40), { nil: undefined }),
   minCells: fc.option(fc.integer({ min: 1, max: 40 }), { nil: undefined }),
   maxStepShare: fc.option(logRange(1e-3, 1), { nil: undefined }),
+  /**
+   * numerics.event_accuracy_s as a share of the duration (at least 1e-3 s, the least one may ask): from 1.4e-4, which
+   * cells ×2 and tolerances ÷3 reach within the cell limit and the work budget for any stack drawn here (the rule's
+   * (1, 1) models 1.3e-4), to the whole duration, where the plan loosens the tolerances × 9.
+   */
+  accuracyShare: fc.option(logRange(1.4e-4, 1), { nil: undefined }),
 });
 
 /** The numerics block, its cell density capped so the stack stays within 2000 cells (validation allows 10 000). */
@@ -124,6 +130,7 @@ function numericsFor(n: ReturnType<typeof numericsDraft> extends fc.Arbitrary<in
     ...(cellsPerMm !== undefined && cellsPerMm > 0 ? { cells_per_mm: cellsPerMm, separator_cells_per_mm: cellsPerMm } : {}),
     ...(n.minCells !== undefined ? { min_cells_per_layer: n.minCells, min_separator_cells: n.minCells } : {}),
     ...(n.maxStepShare !== undefined ? { max_step_s: round(n.maxStepShare * duration) } : {}),
+    ...(n.accuracyShare !== undefined ? { event_accuracy_s: Math.max(1e-3, round(n.accuracyShare * duration)) } : {}),
   };
 }
 
