@@ -27,7 +27,7 @@ import { join } from 'node:path';
 import type { Problem } from '../sim/physics/problem.ts';
 import { runProblem } from '../sim/run.ts';
 import { accuracyDefaults } from '../sim/scenario/accuracy.ts';
-import { randomMeltScenario, seededRandom } from '../tests/support/scenarios.ts';
+import { atSettings, randomMeltScenario, seededRandom } from '../tests/support/scenarios.ts';
 import { STEFAN, stefanScenario, stefanTimes } from '../tests/support/stefan-problem.ts';
 import { ACCURACY_SCENARIO, parseDemo as parse } from './demo-problem.ts';
 
@@ -58,16 +58,7 @@ interface Case {
 function atPair(p: Problem, level: number, tolLevel: number, factor: number): Problem {
   const a = p.numerics.accuracy!;
   if (a.gridRefine !== 1 || a.toleranceDivisor !== 1 || a.ownGrid || a.ownTolerances) throw new Error(`${p.name}: not at the defaults`);
-  const scale = factor / 3 ** tolLevel;
-  return {
-    ...p,
-    numerics: {
-      ...p.numerics,
-      toleranceK: p.numerics.toleranceK * scale,
-      liquidFractionTolerance: p.numerics.liquidFractionTolerance * scale,
-      accuracy: { ...a, level, gridRefine: 2 ** level, toleranceDivisor: 3 ** tolLevel, meltRampK: 0, confirm: false },
-    },
-  };
+  return atSettings(p, { ...a, level, gridRefine: 2 ** level, toleranceDivisor: 3 ** tolLevel }, factor / 3 ** tolLevel);
 }
 
 function times(p: Problem): Times | undefined {

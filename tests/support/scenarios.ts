@@ -114,6 +114,23 @@ export function demoOnPlate(plateC: number, holdS?: number): ScenarioFile {
 }
 
 /**
+ * `parsed` (a parsed scenario) solved to `accuracy` as it is (no ladder, no melt ramp), both tolerances × `scale`:
+ * how a convergence study or a calibration sets a run's levels by hand, each caller computing its own scale so that
+ * its tolerances keep their bits.
+ */
+export function atSettings(parsed: Problem, accuracy: AccuracyPlan, scale: number): Problem {
+  return {
+    ...parsed,
+    numerics: {
+      ...parsed.numerics,
+      toleranceK: parsed.numerics.toleranceK * scale,
+      liquidFractionTolerance: parsed.numerics.liquidFractionTolerance * scale,
+      accuracy: { ...accuracy, meltRampK: 0, confirm: false },
+    },
+  };
+}
+
+/**
  * A convergence study's reference: `parsed` (a parsed scenario) solved to `plan` (its own plan, or a rung of the
  * ladder below it that a run stopped at) and refined `levels` grid and tolerance levels further (cells × 2^levels,
  * tolerances ÷ 3^levels), on the curve as written (no melt ramp, whose bias a ramped reference would share), built
@@ -123,16 +140,7 @@ export function refinedBeyond(parsed: Problem, plan: AccuracyPlan, levels: numbe
   const parsedPlan = parsed.numerics.accuracy!;
   // the parsed tolerances are divided by the parsed plan's divisor: undo it, divide by the run's own and by 3^levels
   const scale = parsedPlan.toleranceDivisor / plan.toleranceDivisor / 3 ** levels;
-  return {
-    ...parsed,
-    numerics: {
-      ...parsed.numerics,
-      toleranceK: parsed.numerics.toleranceK * scale,
-      liquidFractionTolerance: parsed.numerics.liquidFractionTolerance * scale,
-      accuracy: { ...plan, gridRefine: plan.gridRefine * 2 ** levels, toleranceDivisor: plan.toleranceDivisor * 3 ** levels,
-        meltRampK: 0, confirm: false },
-    },
-  };
+  return atSettings(parsed, { ...plan, gridRefine: plan.gridRefine * 2 ** levels, toleranceDivisor: plan.toleranceDivisor * 3 ** levels }, scale);
 }
 
 /** parseScenario() that must succeed: throws with every field error otherwise. */
