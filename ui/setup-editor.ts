@@ -64,7 +64,7 @@ export function renderSetupEditor(root: HTMLElement, store: DraftStore): SetupEd
   });
   const accuracy = numberField(store, {
     path: 'numerics.event_accuracy_s', label: 'event-time accuracy', unit: 's', testid: 'event-accuracy-s', prune: true,
-    hint: 'How close the molten, half-frozen and frozen times should be. A smaller value refines the grid and the steps (slower runs). Empty: the default, which keeps the default grid and tolerances.',
+    hint: 'How close the molten, half-frozen and frozen times should be. A smaller value refines the grid and the steps (slower runs); a larger one than the default loosens the steps (faster runs). Empty: the default, which keeps the default grid and tolerances.',
   });
   const accuracyInput = accuracy.querySelector('input');
   // room for its placeholder, "default 0.936"
