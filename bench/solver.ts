@@ -20,6 +20,7 @@ import type { Problem } from '../sim/physics/problem.ts';
 import { runProblem } from '../sim/run.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
+import { toleranceFactorText } from '../sim/scenario/accuracy.ts';
 import { runPeer } from './peer-bdf.ts';
 import { ACCURACY_SCENARIO, DEMO_BASE_CELLS, demoProblem, parseDemo as parse } from './demo-problem.ts';
 
@@ -120,8 +121,6 @@ const heatOffS = ref.summary.heat_off_s ?? ACCURACY_SCENARIO.duration_s;
 console.log('');
 console.log(`  accuracy asked in seconds — ${ACCURACY_SCENARIO.name}; reference: ${ref.grid.n} cells, tolerances ÷${refDivisor}: molten ${refTimes[0]?.toFixed(3)} s, half-frozen ${refTimes[1]?.toFixed(3)} s, frozen ${refTimes[2]?.toFixed(3)} s`);
 console.log('  asked s   freezeline: cells    tol     ms   error s  estimate s | peer BDF: tol K     ms   error s   steps | ratio');
-/** A plan's tolerances against the defaults: ÷3^k, or ×3^k when an accuracy above the defaults' loosens them. */
-const tolText = (divisor: number) => (divisor >= 1 ? `÷${divisor}` : `×${Math.round(1 / divisor)}`);
 const worst = (times: readonly (number | null)[]) => Math.max(...times.map((t, i) => (t === null || refTimes[i] === null ? Infinity : Math.abs(t - refTimes[i]!))));
 const timeIt = (f: () => void, runs: number) => {
   const out: number[] = [];
@@ -157,6 +156,6 @@ for (const { a, problem, refusal } of plans) {
   }
   const peerCell = Number.isFinite(peerTol) ? `${String(peerTol).padStart(6)} ${peerMs.toFixed(1).padStart(8)}   ${peerErr.toFixed(4).padStart(7)}   ${String(peerSteps).padStart(5)}` : '  none of its tolerances reached it       ';
   const est = plan.estimatedErrorS === undefined ? '—' : plan.estimatedErrorS.toFixed(4);
-  console.log(`  ${String(a).padStart(7)}   ${String(own.grid.n).padStart(16)} ${tolText(plan.toleranceDivisor).padStart(6)} ${ownMs.toFixed(1).padStart(6)}   ${ownErr.toFixed(4).padStart(7)}  ${est.padStart(10)} | ${peerCell} | ${Number.isFinite(peerMs) ? `${(peerMs / ownMs).toFixed(2)}×` : '—'}`);
+  console.log(`  ${String(a).padStart(7)}   ${String(own.grid.n).padStart(16)} ${toleranceFactorText(plan.toleranceDivisor).padStart(6)} ${ownMs.toFixed(1).padStart(6)}   ${ownErr.toFixed(4).padStart(7)}  ${est.padStart(10)} | ${peerCell} | ${Number.isFinite(peerMs) ? `${(peerMs / ownMs).toFixed(2)}×` : '—'}`);
 }
 console.log(JSON.stringify({ first_solve_ms: firstMs, median_ms: base.median_ms, runs: base.runs, cells: base.cells, steps: base.steps, newton_iterations: base.newton_iterations, cell_updates_per_s: base.cell_updates_per_s }));

@@ -13,6 +13,7 @@
  */
 import { parseScenario } from '../sim/scenario/scenario.ts';
 import { runProblem } from '../sim/run.ts';
+import { toleranceFactorText } from '../sim/scenario/accuracy.ts';
 import { STEFAN, stefanScenario, stefanTimes } from '../tests/support/stefan-problem.ts';
 
 const QUICK = process.env.BENCH_QUICK === '1';
@@ -36,7 +37,7 @@ console.log('freezeline on the one-phase Stefan problem (10 mm salt at its melti
 for (const { wallC, asks } of [{ wallC: 200, asks: [1, 0.5, 0.2, 0.1, 0.05] }, { wallC: 295, asks: [5, 2, 1, 0.5] }]) {
   const exact = stefanTimes(wallC);
   console.log(`  wall ${STEFAN.meltC - wallC} K below: λ = ${exact.lambda.toFixed(4)}, half-frozen ${exact.halfS.toFixed(2)} s, frozen ${exact.frozenS.toFixed(2)} s`);
-  console.log('    asked        ms    cells  grid  tol.   estimated   half-frozen err   frozen err   within');
+  console.log('    asked        ms    cells  grid  tol.    estimated   half-frozen err   frozen err   within');
   for (const asked of [undefined, ...asks]) {
     const r = solve(stefanScenario(wallC, asked === undefined ? undefined : { event_accuracy_s: asked }));
     const label = (asked === undefined ? 'defaults' : `${asked} s`).padEnd(9);
@@ -47,7 +48,7 @@ for (const { wallC, asks } of [{ wallC: 200, asks: [1, 0.5, 0.2, 0.1, 0.05] }, {
     const frozen = out.summary.separator.frozen_at_s! - exact.frozenS;
     const stated = a.eventAccuracyS;
     const est = a.estimatedErrorS === undefined ? '—' : `${a.estimatedErrorS.toFixed(3)} s`;
-    console.log(`    ${label} ${ms.toFixed(0).padStart(6)}  ${String(out.grid.n).padStart(6)}   ×${String(a.gridRefine).padEnd(3)} ÷${String(a.toleranceDivisor).padEnd(4)} ${est.padStart(9)}   ${half.toFixed(4).padStart(13)} s   ${frozen.toFixed(4).padStart(8)} s   ${Math.max(Math.abs(half), Math.abs(frozen)) <= stated ? 'yes' : 'NO'} (${stated} s)`);
+    console.log(`    ${label} ${ms.toFixed(0).padStart(6)}  ${String(out.grid.n).padStart(6)}   ×${String(a.gridRefine).padEnd(3)} ${toleranceFactorText(a.toleranceDivisor).padEnd(5)} ${est.padStart(9)}   ${half.toFixed(4).padStart(13)} s   ${frozen.toFixed(4).padStart(8)} s   ${Math.max(Math.abs(half), Math.abs(frozen)) <= stated ? 'yes' : 'NO'} (${stated} s)`);
   }
 }
 

@@ -397,6 +397,11 @@ export function applyAccuracy(s: ScenarioFile, numerics: Numerics,
   };
 }
 
+/** A plan's tolerances against the defaults, as a factor: "÷3" for a divisor of 3, "×9" for one of 1/9 (loosened). */
+export function toleranceFactorText(divisor: number): string {
+  return divisor >= 1 ? `÷${divisor}` : `×${Math.round(1 / divisor)}`;
+}
+
 /** One line for the terminal table: the accuracy asked and what was chosen for it. */
 export function accuracyLine(plan: AccuracyPlan | undefined): string {
   if (plan === undefined) return 'accuracy: grid and tolerances as given (no accuracy asked)';
@@ -411,8 +416,8 @@ export function accuracyLine(plan: AccuracyPlan | undefined): string {
   }
   const how = [
     plan.gridRefine > 1 ? `cells ×${plan.gridRefine}` : plan.ownGrid ? 'grid as given' : 'default grid',
-    plan.toleranceDivisor > 1 ? `tolerances ÷${plan.toleranceDivisor}`
-      : plan.toleranceDivisor < 1 ? `tolerances ×${Math.round(1 / plan.toleranceDivisor)} (looser than the defaults)` : 'tolerances as given',
+    plan.toleranceDivisor > 1 ? `tolerances ${toleranceFactorText(plan.toleranceDivisor)}`
+      : plan.toleranceDivisor < 1 ? `tolerances ${toleranceFactorText(plan.toleranceDivisor)} (looser than the defaults)` : 'tolerances as given',
     ...(plan.meltRampK > 0 ? [`melt kinks smoothed over ±${Number(plan.meltRampK.toPrecision(2))} K`] : []),
   ];
   return `accuracy: ${asked}, ${how.join(', ')} (${expected})`;
