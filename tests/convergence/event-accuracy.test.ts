@@ -45,6 +45,23 @@ function referenceTimes(parsed: Problem, plan: AccuracyPlan, levels: number) {
   return out.summary.separator;
 }
 
+/**
+ * Asserts each event both runs reach within `asked` s of each other (the promise itself is the tolerance:
+ * |t − t_ref| ≤ event_accuracy_s); returns how many were compared. `what(event)` names the comparison.
+ */
+function withinAsk(coarse: Record<(typeof EVENTS)[number], number | null>, fine: Record<(typeof EVENTS)[number], number | null>,
+  asked: number, what: (event: string) => string): number {
+  let compared = 0;
+  for (const event of EVENTS) {
+    const a = coarse[event];
+    const b = fine[event];
+    if (a === null || b === null) continue;
+    assertClose(a, b, { abs: asked }, what(event));
+    compared++;
+  }
+  return compared;
+}
+
 /** Compares each event both runs have; returns how many were compared. */
 function holds(file: ScenarioFile, accuracyS: number | undefined, what: string): number {
   const coarse = separatorTimes(file, accuracyS);
@@ -55,16 +72,8 @@ function holds(file: ScenarioFile, accuracyS: number | undefined, what: string):
   let fine = referenceTimes(coarse.parsed, coarse.plan, levels);
   if (fine === undefined) fine = referenceTimes(coarse.parsed, coarse.plan, --levels);
   if (fine === undefined) throw new Error(`${what}: no reference within the solver's run-time ceiling`);
-  let compared = 0;
-  for (const event of EVENTS) {
-    const a = coarse.times[event];
-    const b = fine[event];
-    if (a === null || b === null) continue;
-    // the promise itself is the tolerance: |t − t_ref| ≤ event_accuracy_s
-    assertClose(a, b, { abs: asked }, `${what}: ${event} (s) at grid level ${coarse.plan.level}, tolerances ÷${coarse.plan.toleranceDivisor}, against cells ×${2 ** levels} and tolerances ÷${3 ** levels} beyond it`);
-    compared++;
-  }
-  return compared;
+  return withinAsk(coarse.times, fine, asked, (event) =>
+    `${what}: ${event} (s) at grid level ${coarse.plan.level}, tolerances ÷${coarse.plan.toleranceDivisor}, against cells ×${2 ** levels} and tolerances ÷${3 ** levels} beyond it`);
 }
 
 /**
@@ -84,13 +93,8 @@ function holdsLoosened(file: ScenarioFile, what: string): number {
     const asked = share * file.duration_s;
     const coarse = separatorTimes(file, asked);
     expect(coarse.plan.toleranceDivisor, `${what} at ${asked} s: tolerance divisor`).toBe(divisor);
-    for (const event of EVENTS) {
-      const a = coarse.times[event];
-      const b = fine[event];
-      if (a === null || b === null) continue;
-      assertClose(a, b, { abs: asked }, `${what}: ${event} (s) asked for ${asked} s, tolerances × ${1 / divisor}, against cells ×4 and tolerances ÷9 from the defaults`);
-      compared++;
-    }
+    compared += withinAsk(coarse.times, fine, asked, (event) =>
+      `${what}: ${event} (s) asked for ${asked} s, tolerances × ${1 / divisor}, against cells ×4 and tolerances ÷9 from the defaults`);
   }
   return compared;
 }
