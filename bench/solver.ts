@@ -21,6 +21,7 @@ import { runProblem } from '../sim/run.ts';
 import { buildGrid } from '../sim/grid/mesh.ts';
 import { parseScenario } from '../sim/scenario/scenario.ts';
 import { toleranceFactorText } from '../sim/scenario/accuracy.ts';
+import { atSettings } from '../tests/support/scenarios.ts';
 import { runPeer } from './peer-bdf.ts';
 import { ACCURACY_SCENARIO, DEMO_BASE_CELLS, demoProblem, parseDemo as parse } from './demo-problem.ts';
 
@@ -99,8 +100,7 @@ const accepted = plans.filter((p) => p.problem !== undefined);
 // solver's work budget, one level of each beyond, then the next coarser row's; rows at or beyond it have no reference
 const finer = (p: Problem, steps: number): Problem => {
   const a = p.numerics.accuracy!;
-  return { ...p, numerics: { ...p.numerics, toleranceK: p.numerics.toleranceK / 3 ** steps, liquidFractionTolerance: p.numerics.liquidFractionTolerance / 3 ** steps,
-    accuracy: { ...a, level: a.level + steps, gridRefine: a.gridRefine * 2 ** steps, toleranceDivisor: a.toleranceDivisor * 3 ** steps, meltRampK: 0, confirm: false } } };
+  return atSettings(p, { ...a, level: a.level + steps, gridRefine: a.gridRefine * 2 ** steps, toleranceDivisor: a.toleranceDivisor * 3 ** steps }, 1 / 3 ** steps);
 };
 let refProblem: Problem | undefined;
 let found: ReturnType<typeof runProblem> | undefined;
