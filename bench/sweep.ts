@@ -1,9 +1,9 @@
 /**
  * `npm run bench` (part): sweep throughput. The demo (3 layers, hot plate then free air, 3600 s) over a grid of
  * ambient × separator thickness, run by the built command (`node build/cli/main.js sweep … --jobs N`, worker threads
- * of the bundle) exactly as a user runs it, and the cost of one summary-only run in this thread for comparison; the same
- * sweep asked for event times to 10 s; and how many runs per second two one-thread sweeps side by side give against one
- * alone (on a virtual machine two cores may share more than they seem to).
+ * of the bundle) exactly as a user runs it, and the cost of one summary-only run in this thread for comparison; the
+ * same sweep asked for event times to 10 s; and how many runs per second two one-thread sweeps side by side give
+ * against one alone (on a virtual machine two cores may share more than they seem to).
  * The brief's target is 10 000 runs in ≤ 20 s on 2 cores. A routine bench runs SWEEP_BENCH_RUNS (default 1000) and
  * extrapolates linearly to 10 000, labelled as such; `SWEEP_BENCH_RUNS=10000 npm run bench` measures it outright.
  * Figures only: nothing here asserts a time. The load average is printed because the machine may be shared.
