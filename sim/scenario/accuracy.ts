@@ -12,10 +12,10 @@
  * are calibrated by refinement on examples/ (DEVELOPERS.md, "Accuracy"). The plan is the pair (ℓ, k) of least modelled
  * work (cells × steps) whose modelled error is within the accuracy asked (k may be −1 or −2 on the default grid,
  * ℓ = 0: tolerances × 3 or × 9 for an accuracy above the defaults' modelled error), within the cell limit and the
- * solver's work budget; an accuracy no pair reaches is refused at validation with the limit that binds and the accuracy that can be
- * had. The rule is calibrated on the worst example, so on most scenarios it refines more than the ask needs; a plan
- * above level (0, 0) asked for in the file is therefore confirmed a posteriori (run.ts runProblem): the run climbs the
- * ladder (0, 0), (1, 1), … up to the plan and stops at the first rung from the second on whose event times, compared
+ * solver's work budget; an accuracy no pair reaches is refused at validation with the limit that binds and the
+ * accuracy that can be had. The rule is calibrated on the worst example, so on most scenarios it refines more than
+ * the ask needs; a plan above level (0, 0) asked for in the file is therefore confirmed a posteriori (run.ts
+ * runProblem): the run climbs the ladder (0, 0), (1, 1), … up to the plan and stops at the first rung from the second on whose event times, compared
  * with the rungs below, give an estimated error (Roache's grid convergence index, estimatedErrorS) within the ask; the
  * plan itself, the top rung, is taken whatever the estimate, as the rule holds it to the ask. The result states the
  * plan it was solved to, its modelled error and the estimate. The tests check both by refinement on the examples and
