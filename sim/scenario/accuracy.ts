@@ -2,31 +2,31 @@
  * Accuracy asked in seconds: `numerics.event_accuracy_s` → the grid and the step tolerances the run uses.
  *
  * The verdict times (molten, half-frozen, frozen) carry a spatial error, first order in Δx (the enthalpy method
- * resolves a front to a cell: a cell turns fully liquid or solid as the front leaves it), and a time error that
- * the step tolerances set. The two are pursued separately. A grid level ℓ halves the cells' width (grid × 2^ℓ) and
- * about halves the grid's part; a tolerance level k divides both tolerances by 3^k, and each division by 3 about halves
- * the time part (the global error of TR-BDF2 with local error control falls about as tol^(2/3)). The liquid-fraction
- * error of a step is measured per level-0 cell (the error norm, in the grid's stage system, reads the plan's grid
- * factor), so refining the grid does not by itself tighten the time control, nor cost more steps per cell. Each part
- * at level 0 is modelled as a share of the run's duration, which stands for the time scales of its events; the shares
- * are calibrated by refinement on examples/ (DEVELOPERS.md, "Accuracy"). The plan is the pair (ℓ, k) of least modelled
- * work (cells × steps) whose modelled error is within the accuracy asked (k may be −1 or −2 on the default grid,
- * ℓ = 0: tolerances × 3 or × 9 for an accuracy above the defaults' modelled error), within the cell limit and the
- * solver's work budget; an accuracy no pair reaches is refused at validation with the limit that binds and the
- * accuracy that can be had. The rule is calibrated on the worst example, so on most scenarios it refines more than
- * the ask needs; a plan above level (0, 0) asked for in the file is therefore confirmed a posteriori (run.ts
- * runProblem): the run climbs the ladder (0, 0), (1, 1), … up to the plan and stops at the first rung from the second on whose event times, compared
- * with the rungs below, give an estimated error (Roache's grid convergence index, estimatedErrorS) within the ask; the
- * plan itself, the top rung, is taken whatever the estimate, as the rule holds it to the ask. The result states the
- * plan it was solved to, its modelled error and the estimate. The tests check both by refinement on the examples and
- * on a seeded scan (tests/convergence/event-accuracy.test.ts).
+ * resolves a front to a cell: a cell turns fully liquid or solid as the front leaves it), and a time error that the
+ * step tolerances set. The two are pursued separately. A grid level ℓ halves the cells' width (grid × 2^ℓ) and about
+ * halves the grid's part; a tolerance level k divides both tolerances by 3^k, and each division by 3 about halves the
+ * time part (the global error of TR-BDF2 with local error control falls about as tol^(2/3)). The liquid-fraction error
+ * of a step is measured per level-0 cell (the error norm, in the grid's stage system, reads the plan's grid factor), so
+ * refining the grid does not by itself tighten the time control, nor cost more steps per cell. Each part at level 0 is
+ * modelled as a share of the run's duration, which stands for the time scales of its events; the shares are calibrated
+ * by refinement on examples/ (DEVELOPERS.md, "Accuracy"). The plan is the pair (ℓ, k) of least modelled work (cells
+ * × steps) whose modelled error is within the accuracy asked (k may be −1 or −2 on the default grid, ℓ = 0: tolerances
+ * × 3 or × 9 for an accuracy above the defaults' modelled error), within the cell limit and the solver's work budget;
+ * an accuracy no pair reaches is refused at validation with the limit that binds and the accuracy that can be had. The
+ * rule is calibrated on the worst example, so on most scenarios it refines more than the ask needs; a plan above level
+ * (0, 0) asked for in the file is therefore confirmed a posteriori (run.ts runProblem): the run climbs the ladder
+ * (0, 0), (1, 1), … up to the plan and stops at the first rung from the second on whose event times, compared with the
+ * rungs below, give an estimated error (Roache's grid convergence index, estimatedErrorS) within the ask; the plan
+ * itself, the top rung, is taken whatever the estimate, as the rule holds it to the ask. The result states the plan it
+ * was solved to, its modelled error and the estimate. The tests check both by refinement on the examples and on a
+ * seeded scan (tests/convergence/event-accuracy.test.ts).
  *
- * Every plan solves the enthalpy curve as written: the melt ramp (physics/melt-ramp.ts) that plans above (0, 0) used
- * to smooth the melt's kinks with has a model error the ask does not bound (accuracyDefaults.meltRampK). Expert keys
- * win: tolerances given in the file are used as given (not divided; the grid is then refined at most as many levels
- * as they stand below the defaults, ownToleranceLevel),
- * a grid given in the file (cells_per_mm, min_cells_per_layer, separator_cells_per_mm, min_separator_cells, or any
- * layer's `cells`) is used as given (not refined), and with both given the accuracy is stated but not pursued.
+ * Every plan solves the enthalpy curve as written: the melt ramp (physics/melt-ramp.ts) that plans above (0, 0) used to
+ * smooth the melt's kinks with has a model error the ask does not bound (accuracyDefaults.meltRampK). Expert keys win:
+ * tolerances given in the file are used as given (not divided; the grid is then refined at most as many levels as they
+ * stand below the defaults, ownToleranceLevel), a grid given in the file (cells_per_mm, min_cells_per_layer,
+ * separator_cells_per_mm, min_separator_cells, or any layer's `cells`) is used as given (not refined), and with both
+ * given the accuracy is stated but not pursued.
  */
 import { cellsOfLayer } from '../grid/mesh.ts';
 import type { AccuracyPlan, Numerics } from '../physics/problem.ts';
