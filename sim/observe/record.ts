@@ -296,7 +296,7 @@ export function createRecorder(problem: Problem, layout: ObservationLayout, opti
         warnings.push(`${side} face: air film temperatures ${kToC(r.filmLowK).toFixed(0)}–${kToC(r.filmHighK).toFixed(0)} °C reach beyond the air-property table (${kToC(AIR_TABLE_RANGE_K.low).toFixed(0)}–${kToC(AIR_TABLE_RANGE_K.high).toFixed(0)} °C); its end values were held`);
       }
       if (r.outside) {
-        warnings.push(`${side} face: natural convection at Rayleigh numbers ${r.low.toPrecision(2)}–${r.high.toPrecision(2)}; for at least part of the run this is outside the published range of the correlation in use (hot face up from Ra ${naturalConvectionRanges.upperFacing.low}, hot face down from Ra ${naturalConvectionRanges.lowerFacing.low}), so it was extrapolated there`);
+        warnings.push(`${side} face: natural convection at Rayleigh numbers ${twoFigures(r.low)}–${twoFigures(r.high)}; for at least part of the run this is outside the published range of the correlation in use (hot face up from Ra ${naturalConvectionRanges.upperFacing.low}, hot face down from Ra ${naturalConvectionRanges.lowerFacing.low}), so it was extrapolated there`);
       }
     }
     const kept = rows.finish();
@@ -331,6 +331,9 @@ export function createRecorder(problem: Problem, layout: ObservationLayout, opti
 
   return { onStep, finish };
 }
+
+/** Two significant figures in plain decimals (1300, not toPrecision's "1.3e+3"). */
+const twoFigures = (v: number): string => String(Number(v.toPrecision(2)));
 
 /** Temperature (°C) at x (mm) by linear interpolation between nodes. T in K. */
 export function interpolateProfile(nodeXMm: Float64Array, T: Float64Array, xMm: number): number {
