@@ -27,6 +27,7 @@ export * from './observe/verdict.ts';
 export * from './observe/wording.ts';
 export * from './observe/format.ts';
 export * from './observe/series-csv.ts';
+export { layerColours } from './observe/layer-colours.ts';
 export * from './study/bracket.ts';
 export * from './study/sweep.ts';
 export * from './study/target.ts';

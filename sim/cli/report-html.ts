@@ -14,12 +14,11 @@ import {
   expectationWords, hazards, hazardsHeading, marginWords, noValueWords, predictionNotCertification, terms, verdictTerms,
   windowStatusWords,
 } from '../observe/wording.ts';
+import { layerColours } from '../observe/layer-colours.ts';
 import { lineChart } from './report-svg.ts';
 import { convectionSentence, isRayleighDetail } from './table.ts';
 
 export const reportDefaults = {
-  /** Colours of our own for the layer lines (distinct on screen and on a grey-scale print). */
-  palette: ['#2f6db3', '#c2571a', '#3f8f3a', '#8a4fb0', '#a8841a', '#1f9a8f', '#b03a6e', '#56616b'],
   /** Draw times in minutes from this duration on, as the table does. */
   minutesFromS: 600,
 } as const;
@@ -50,7 +49,9 @@ export function htmlReport(r: ReportInput): string {
   const xScale = minutes ? 60 : 1;
   const xLabel = minutes ? 'time (min)' : 'time (s)';
   const markers = s.heat_off_s !== null && s.heat_off_s > 0 ? [{ x: s.heat_off_s, label: verdictTerms.heat_off_s.term.replace(/ at$/, '') }] : [];
-  const colour = (i: number) => reportDefaults.palette[i % reportDefaults.palette.length]!;
+  // each layer in the colour the view gives it (observe/layer-colours.ts)
+  const colours = layerColours(record.layers.map((l) => l.id));
+  const colour = (i: number) => colours.get(record.layers[i]!.id)!;
   const temperatures = lineChart({
     title: 'Hottest point of each layer', xLabel, yLabel: 'temperature (°C)', xScale, markers,
     series: record.layers.map((l, i) => ({ name: l.id, x: record.tS, y: l.maxC, colour: colour(i) })),

@@ -7,6 +7,7 @@ import { existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } fro
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { layerColours } from '../../sim/observe/layer-colours.ts';
 import { hazards, predictionNotCertification, verdictTerms } from '../../sim/observe/wording.ts';
 import { freezeline, repoRoot as root } from '../support/cli.ts';
 import { drainedSlab, drainedSlabZeroKelvinS } from '../support/scenarios.ts';
@@ -54,6 +55,10 @@ describe('freezeline run', () => {
     for (const h of hazards) expect(page).toContain(h.term);
     expect(page).toContain(predictionNotCertification);
     expect(page).toContain('<svg');
+    // each layer's line in the colour the view gives that layer (one rule for both: sim/observe/layer-colours.ts)
+    for (const [id, c] of layerColours(['collector', 'separator', 'anode'])) {
+      expect(page).toMatch(new RegExp(`stroke="${c}" stroke-width="2"/><text[^>]*>${id}</text>`));
+    }
     // self-contained: no script, nothing fetched
     expect(page).not.toMatch(/<script|<link|\ssrc=|@import|url\(/i);
   });
