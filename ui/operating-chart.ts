@@ -80,7 +80,7 @@ export function operatingFigure(r: WindowReport): { data: Data[]; layout: Partia
     paper_bgcolor: '#ffffff', plot_bgcolor: '#ffffff',
     xaxis: { title: { text: 'heater hold (time of heat off), s' }, zeroline: false, gridcolor: '#e4e8ec' },
     yaxis: { title: { text: 'smallest margin to a limit, K' }, zeroline: true, gridcolor: '#e4e8ec' },
-    yaxis2: { title: { text: 'usable window after heat off, s' }, overlaying: 'y', side: 'right', zeroline: false, showgrid: false, rangemode: 'tozero' },
+    yaxis2: { title: { text: 'usable window after heat off, s' }, overlaying: 'y', side: 'right', zeroline: false, showgrid: false, rangemode: 'tozero', tickmode: 'auto' },
     legend: { orientation: 'h', y: -0.2, x: 0 },
     shapes, annotations,
   };

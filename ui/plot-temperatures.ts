@@ -54,7 +54,9 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
     for (const c of plate) if (c !== null) { low = Math.min(low, c); high = Math.max(high, c); }
     data.push(
       { type: 'scatter', mode: 'lines', x, y: plate, line: { width: 1.5, color: '#9a3412', dash: 'dot' }, name: 'heater plate, °C', hovertemplate: 'heater plate %{y:.1f} °C<extra></extra>' },
-      { type: 'scatter', mode: 'lines', x, y: Array.from(heater.powerW), yaxis: 'y2', line: { width: 1, color: '#b45309', shape: 'vh' }, name: 'heater power, W', hovertemplate: 'heater power %{y:.0f} W<extra></extra>' },
+      // translucent: a thermostat switching every few seconds draws a solid block, and the second axis's traces lie
+      // over the layers' curves, which must still show through
+      { type: 'scatter', mode: 'lines', x, y: Array.from(heater.powerW), yaxis: 'y2', opacity: 0.35, line: { width: 1, color: '#b45309', shape: 'vh' }, name: 'heater power, W', hovertemplate: 'heater power %{y:.0f} W<extra></extra>' },
     );
   }
   const shapes: Partial<Shape>[] = [];
@@ -102,7 +104,7 @@ export function temperatureFigure(r: ShownResult): Figure & { offScale: OffScale
     layout: baseLayout('temperature, °C', axis, {
       hovermode: 'x unified',
       yaxis: { title: { text: 'temperature, °C' }, range: [low - pad, top + pad], zeroline: false, gridcolor: '#e4e8ec' },
-      ...(heater ? { yaxis2: { title: { text: 'heater power, W' }, overlaying: 'y', side: 'right', rangemode: 'tozero', showgrid: false } } : {}),
+      ...(heater ? { yaxis2: { title: { text: 'heater power, W' }, overlaying: 'y', side: 'right', rangemode: 'tozero', showgrid: false, tickmode: 'auto' } } : {}),
       margin: { l: 64, r: heater ? 64 : 24, t: 28, b: 48 },
       shapes, annotations,
     }),
