@@ -51,17 +51,17 @@ export function htmlReport(r: ReportInput): string {
   const markers = s.heat_off_s !== null && s.heat_off_s > 0 ? [{ x: s.heat_off_s, label: verdictTerms.heat_off_s.term.replace(/ at$/, '') }] : [];
   // each layer in the colour the view gives it (observe/layer-colours.ts)
   const colours = layerColours(record.layers.map((l) => l.id));
-  const colour = (i: number) => colours.get(record.layers[i]!.id)!;
+  const colour = (id: string): string => colours.get(id)!;
   const temperatures = lineChart({
     title: 'Hottest point of each layer', xLabel, yLabel: 'temperature (°C)', xScale, markers,
-    series: record.layers.map((l, i) => ({ name: l.id, x: record.tS, y: l.maxC, colour: colour(i) })),
+    series: record.layers.map((l) => ({ name: l.id, x: record.tS, y: l.maxC, colour: colour(l.id) })),
   });
   // layers that melt at some time in this run (or are the separator): a line stuck at 0 says nothing
   const melting = record.layers.map((l, i) => ({ l, i }))
     .filter(({ l, i }) => l.liquidFraction && (p.layers[i]!.separator || l.liquidFraction.some((f) => f > 0)));
   const liquid = melting.length === 0 ? '' : lineChart({
     title: `${terms.liquidFraction.term} (volume mean)`, xLabel, yLabel: `${terms.liquidFraction.term} (0–1)`, xScale, markers,
-    series: melting.map(({ l, i }) => ({ name: l.id, x: record.tS, y: l.liquidFraction!, colour: colour(i) })),
+    series: melting.map(({ l }) => ({ name: l.id, x: record.tS, y: l.liquidFraction!, colour: colour(l.id) })),
   });
   const verdictRows = [
     [verdictTerms.heat_off_s, formatTime(s.heat_off_s, noValueWords.heat_off_s)],

@@ -2,7 +2,7 @@
  * One colour per layer id, shared by the browser view (editor, cross-section, charts) and the HTML report, so a layer
  * reads the same colour in both. Colours of our own, distinct on screen and on a grey-scale print.
  */
-export const LAYER_COLOURS = ['#2f6db3', '#c2571a', '#3f8f3a', '#8a4fb0', '#a8841a', '#1f9a8f', '#b03a6e', '#56616b'] as const;
+const LAYER_COLOURS = ['#2f6db3', '#c2571a', '#3f8f3a', '#8a4fb0', '#a8841a', '#1f9a8f', '#b03a6e', '#56616b'] as const;
 
 /** A small string hash (FNV-1a, 32 bit), to give an id a preferred palette slot. */
 function hashId(id: string): number {
