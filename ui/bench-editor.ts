@@ -20,7 +20,7 @@ export function benchTerm(store: DraftStore, rowPath: string, id: string): HTMLE
       '(choose a material)', plateChoices(store.current())),
     numberField(store, { path: `${p}.contact_W_m2K`, label: 'contact conductance', unit: 'W/(m²·K)', testid: `${id}-contact`, placeholder: 'perfect', hint: 'Between the face and the bench; empty is perfect contact, the upper bound of the heat it draws.' }),
     numberField(store, { path: `${p}.start_C`, label: 'bench at', unit: '°C', testid: `${id}-start`, placeholder: 'ambient', hint: 'Temperature of the whole bench when the face is set on it.' }),
-    numberField(store, { path: `${p}.thickness_mm`, label: 'thickness', unit: 'mm', testid: `${id}-thickness`, placeholder: 'semi-infinite', hint: 'A bench top of this thickness, insulated beneath; empty is a semi-infinite solid.' }));
+    numberField(store, { path: `${p}.thickness_mm`, label: 'thickness', unit: 'mm', testid: `${id}-thickness`, placeholder: '∞ deep', hint: 'A bench top of this thickness, insulated beneath; empty is a semi-infinite solid.' }));
 }
 
 /** Paths of the bench fields left empty (only the material is required), in the solver's path notation. */
