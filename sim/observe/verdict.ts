@@ -10,6 +10,8 @@
  *   molten_at_s      first time every separator cell is fully liquid.
  *   half_frozen_at_s first time after heat_off_s that the separator's volume-mean liquid fraction falls below 0.5.
  *   frozen_at_s      first time after half_frozen_at_s that every separator cell is fully solid.
+ *   peak_C           the layer's hottest point over the run; peak_at_s the first time it came within
+ *                    recordDefaults.peakReachedWithinK (0.05 K) of it (record.ts).
  *   margin_K         limit temperature − peak temperature of the layer, for its binding (smallest-margin) limit.
  *   safe_window_s    half_frozen_at_s − heat_off_s, when the separator was fully molten at some time, it half-froze
  *                    within the run, and no layer reached any of its limits; null otherwise (safe_window_status says why).
@@ -129,15 +131,12 @@ export function firstCrossing(tS: Float64Array, values: Float64Array, level: num
 function layerVerdict(problem: Problem, record: RunRecord, li: number): LayerVerdict {
   const series = record.layers[li]!;
   let peak = -Infinity;
-  let peakAt = 0;
-  series.maxC.forEach((v, j) => {
-    if (v > peak) { peak = v; peakAt = record.tS[j]!; }
-  });
+  for (const v of series.maxC) if (v > peak) peak = v;
   const limits = problem.layers[li]!.material.limits.map((l) => ({ kind: l.kind, at_C: kToC(l.atK), margin_K: kToC(l.atK) - peak }));
   const binding = limits.reduce<(typeof limits)[number] | null>((best, l) => (best === null || l.margin_K < best.margin_K ? l : best), null);
   return {
     peak_C: peak,
-    peak_at_s: peakAt,
+    peak_at_s: series.peakReachedS,
     limit: binding ? { kind: binding.kind, at_C: binding.at_C } : null,
     margin_K: binding ? binding.margin_K : null,
     limits,

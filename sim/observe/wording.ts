@@ -39,7 +39,7 @@ export const verdictTerms = {
   },
   peak_C: {
     term: 'peak',
-    definition: 'The hottest point of the layer (its cells, and its exposed face if it has one) over the run, and when it occurred. A layer held steady at its peak is as hot to six figures or more all along that plateau, so the time given may be anywhere on it.',
+    definition: 'The hottest point of the layer (its cells, and its exposed face if it has one) over the run, and the first time it came within 0.05 K of it: a layer held steady at its peak gives the time it got there, not a point along the plateau.',
   },
   margin_K: {
     term: 'margin',

@@ -1,12 +1,13 @@
 // A record is kept to a budget of rows whatever the step count (row-store.ts), and thinning never moves an event:
 // the verdicts read the same first crossings from the thinned indicators as from every point (the reference here is
 // the unthinned series itself, searched by the same firstCrossing()). A summary-only run gives the same verdicts as a
-// full run on every example.
+// full run on every example, and each layer's peak time, found as the run goes, is the definition read off every step.
 
 import { readdirSync, readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { createIndicatorStore } from '../../sim/observe/record-trace.ts';
+import { recordDefaults } from '../../sim/observe/record.ts';
 import { RowStore } from '../../sim/observe/row-store.ts';
 import { runProblem } from '../../sim/run.ts';
 import { parseScenario } from '../../sim/scenario/scenario.ts';
@@ -89,5 +90,20 @@ describe('summary-only runs', () => {
     // only the first, the last and each layer's peak row: at most layers + 2
     expect(summary.record.tS.length).toBeLessThanOrEqual(parsed.problem.layers.length + 2);
     expect(summary.record.probes).toEqual(full.record.probes);
+  });
+
+  it.each(files)('%s: each layer\'s peak time is the first recorded point within peakReachedWithinK of its peak', (file) => {
+    const parsed = parseScenario(JSON.parse(readFileSync(new URL(file, dir), 'utf8')));
+    if (!parsed.ok) throw new Error(`${file} does not parse`);
+    const full = runProblem(parsed.problem);
+    if (full.status !== 'ok') throw new Error(`${file} did not finish`);
+    // the examples' records keep every step (below the row budget), so the definition can be read off the series
+    expect(full.record.tS.length).toBeLessThan(recordDefaults.seriesPoints);
+    for (const layer of full.record.layers) {
+      const peak = Math.max(...layer.maxC);
+      const first = layer.maxC.findIndex((v) => v >= peak - recordDefaults.peakReachedWithinK);
+      expect(full.summary.layers[layer.id]!.peak_C, layer.id).toBe(peak);
+      expect(full.summary.layers[layer.id]!.peak_at_s, layer.id).toBe(full.record.tS[first]);
+    }
   });
 });

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import ndarray from 'ndarray';
 import { firstCrossing, heatInputs, heatOffTime, lastHeatInput, summarize } from '../../sim/observe/verdict.ts';
-import type { RunRecord } from '../../sim/observe/record.ts';
+import { recordDefaults, type RunRecord } from '../../sim/observe/record.ts';
 import { assertClose } from '../support/assert-close.ts';
 import { PLAIN, parseOk, scenario, slab } from '../support/scenarios.ts';
 import type { FaceSegmentFile, InlineMaterialFile, LayerFile } from '../../sim/scenario/scenario-schema.ts';
@@ -104,7 +104,10 @@ describe('summarize()', () => {
   function recordOf(peaks: { case: number[]; sep: number[]; anode: number[] }, trace: Trace | null = TRACE,
     energy: Partial<RunRecord['energy']> = {}): RunRecord {
     const tS = f64(TRACE.tS);
-    const series = (id: keyof typeof peaks) => ({ id, minC: f64(peaks[id]), meanC: f64(peaks[id]), maxC: f64(peaks[id]), liquidFraction: undefined });
+    // the recorder's peak time, written out: the first point within peakReachedWithinK of the series' highest
+    const reachedS = (v: number[]) => TRACE.tS[v.findIndex((x) => x >= Math.max(...v) - recordDefaults.peakReachedWithinK)]!;
+    const series = (id: keyof typeof peaks) => ({ id, minC: f64(peaks[id]), meanC: f64(peaks[id]), maxC: f64(peaks[id]), liquidFraction: undefined,
+      peakReachedS: reachedS(peaks[id]) });
     return {
       tS,
       layers: [series('case'), series('sep'), series('anode')],
