@@ -369,7 +369,7 @@ export function interpolateProfile(nodeXMm: Float64Array, T: Float64Array, xMm: 
  * head is the answer at every moment. It holds one entry per step only while a plateau creeps up by less than
  * `withinK` in all; a rise of more than that empties it to one entry.
  */
-class PeakReach {
+export class PeakReach {
   private t = new Float64Array(16);
   private v = new Float64Array(16);
   private head = 0;

@@ -7,7 +7,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { createIndicatorStore } from '../../sim/observe/record-trace.ts';
-import { recordDefaults } from '../../sim/observe/record.ts';
+import { PeakReach, recordDefaults } from '../../sim/observe/record.ts';
 import { RowStore } from '../../sim/observe/row-store.ts';
 import { runProblem } from '../../sim/run.ts';
 import { parseScenario } from '../../sim/scenario/scenario.ts';
@@ -40,6 +40,45 @@ describe('RowStore', () => {
     expect(Array.from(store.finish().data)).toContain(333);
     store.release(slot);
     expect(Array.from(store.finish().data)).not.toContain(333);
+  });
+});
+
+describe('PeakReach', () => {
+  // a layer's hottest point step by step: mostly creeping by less than the allowance (a plateau), now and then a rise
+  // or a fall of kelvins; the reference is the definition itself, searched over every value
+  const creep = fc.array(fc.oneof(
+    { weight: 8, arbitrary: fc.double({ min: -0.001, max: 0.004, noNaN: true }) },
+    { weight: 1, arbitrary: fc.double({ min: -3, max: 3, noNaN: true }) },
+  ), { minLength: 1, maxLength: 3000 });
+  it('PeakReach gives the first time a series came within its allowance of its highest value, however long the plateau', () => {
+    fc.assert(fc.property(creep, (moves) => {
+      const within = recordDefaults.peakReachedWithinK;
+      const reach = new PeakReach(within);
+      const values: number[] = [];
+      let v = 400;
+      let high = -Infinity;
+      for (const dv of moves) {
+        values.push(v);
+        // the recorder passes each new high only (record.ts holdPeaks)
+        if (v > high) { high = v; reach.rise(values.length - 1, v); }
+        v += dv;
+      }
+      const peak = Math.max(...values);
+      expect(reach.firstS()).toBe(values.findIndex((x) => x >= peak - within));
+    }), { seed: 20261205, numRuns: 300 });
+  });
+
+  it('PeakReach keeps every high of a plateau that creeps up steadily, hundreds of them within the allowance', () => {
+    // 1 mK a step for 2000 steps: the last 50 highs lie within 0.05 K of the peak, all queued at once
+    const within = recordDefaults.peakReachedWithinK;
+    const reach = new PeakReach(within);
+    const values = Array.from({ length: 2000 }, (_, i) => 400 + 0.001 * i);
+    values.forEach((v, i) => reach.rise(10 * i, v));
+    expect(reach.firstS()).toBe(10 * values.findIndex((x) => x >= values[values.length - 1]! - within));
+    const slow = new PeakReach(within);
+    // 10 µK a step: 5000 highs within the allowance
+    for (let i = 0; i < 6000; i++) slow.rise(i, 400 + 1e-5 * i);
+    expect(slow.firstS()).toBe(Array.from({ length: 6000 }, (_, i) => 400 + 1e-5 * i).findIndex((x) => x >= 400 + 1e-5 * 5999 - within));
   });
 });
 
