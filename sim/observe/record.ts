@@ -57,7 +57,7 @@ export interface LayerSeries {
   readonly liquidFraction: Float64Array | undefined;
   /**
    * The first time, s, that the layer's hottest point came within recordDefaults.peakReachedWithinK of its peak
-   * (max of maxC), from every step whatever the record kept.
+   * (max of maxC), interpolated between steps (PeakReach), from every step whatever the record kept.
    */
   readonly peakReachedS: number;
 }
@@ -366,20 +366,29 @@ export function interpolateProfile(nodeXMm: Float64Array, T: Float64Array, xMm: 
 /**
  * The first time a rising series came within `withinK` of its highest value, without knowing that value before the end:
  * each new high is queued with its time, and the queue keeps only the highs within `withinK` of the latest, so its
- * head is the answer at every moment. It holds one entry per step only while a plateau creeps up by less than
- * `withinK` in all; a rise of more than that empties it to one entry.
+ * head is the first point within it at every moment. The time is interpolated linearly between that point and the
+ * high before it, as event times are between recorded points: the first point alone would put it up to a step late
+ * (12 s on the demo, where the adaptive steps of two JavaScript engines differ). The queue holds one entry per step
+ * only while a plateau creeps up by less than `withinK` in all; a rise of more than that empties it to one entry.
  */
 export class PeakReach {
   private t = new Float64Array(16);
   private v = new Float64Array(16);
   private head = 0;
   private tail = 0;
+  /** The last high let go from the queue's head: the one before its head (NaN: none yet). */
+  private beforeT = Number.NaN;
+  private beforeV = Number.NaN;
 
   constructor(private readonly withinK: number) {}
 
   /** A new high v (°C) at time tS; highs come in rising order. */
   rise(tS: number, v: number): void {
-    while (this.head < this.tail && this.v[this.head]! < v - this.withinK) this.head++;
+    while (this.head < this.tail && this.v[this.head]! < v - this.withinK) {
+      this.beforeT = this.t[this.head]!;
+      this.beforeV = this.v[this.head]!;
+      this.head++;
+    }
     if (this.tail === this.t.length) {
       // move the live entries to the front, and grow if they fill more than half
       const live = this.tail - this.head;
@@ -398,8 +407,16 @@ export class PeakReach {
     this.tail++;
   }
 
-  /** The time of the first high within withinK of the last one (0 before any). */
+  /**
+   * When the rise crossed withinK below the last high: between the high before the queue's head (below that level) and
+   * the head (at or above it), linearly; the head's own time when it is the first high of all. 0 before any high.
+   */
   firstS(): number {
-    return this.head < this.tail ? this.t[this.head]! : 0;
+    if (this.head >= this.tail) return 0;
+    const t1 = this.t[this.head]!;
+    if (Number.isNaN(this.beforeT)) return t1;
+    const level = this.v[this.tail - 1]! - this.withinK;
+    const v1 = this.v[this.head]!;
+    return this.beforeT + ((t1 - this.beforeT) * (level - this.beforeV)) / (v1 - this.beforeV);
   }
 }

@@ -185,6 +185,22 @@ export function seriesAt(tS: Float64Array, values: Float64Array, t: number): num
   throw new Error(`t = ${t} s is outside the record [${tS[0]}, ${tS[n - 1]}]`);
 }
 
+/**
+ * The README's peak time, written out over a whole series (the reference for record.ts PeakReach, which finds it as the
+ * run goes): the first point within `withinK` of the series' highest value, and the time at which the series crossed
+ * that level, linear between the high before that point (the highest value before it, where first reached) and the
+ * point itself; the first point's own time when nothing came before it.
+ */
+export function peakReachedS(tS: ArrayLike<number>, values: ArrayLike<number>, withinK: number): number {
+  const v = Array.from(values);
+  const level = Math.max(...v) - withinK;
+  const i = v.findIndex((x) => x >= level);
+  if (i === 0) return tS[0]!;
+  const before = Math.max(...v.slice(0, i));
+  const r = v.indexOf(before);
+  return tS[r]! + ((tS[i]! - tS[r]!) * (level - before)) / (v[i]! - before);
+}
+
 /** The last value of a series. */
 export function last(values: Float64Array): number {
   const v = values[values.length - 1];
