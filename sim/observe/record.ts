@@ -224,8 +224,12 @@ export function createRecorder(problem: Problem, layout: ObservationLayout, opti
     if (full) { row[mapAt] = kToC(bottomK); row[mapAt + nodes - 1] = kToC(topK); }
   };
 
-  /** Holds the latest row for every layer whose peak it raises (strictly: the first time of a peak is kept). */
+  // each layer's peak time, found from every high as it comes (PeakReach)
   const reach = Array.from({ length: layerCount }, () => new PeakReach(recordDefaults.peakReachedWithinK));
+  /**
+   * Holds the latest row for every layer whose peak it raises (strictly: the first time of a peak is kept), and tells
+   * that layer's PeakReach of the new high.
+   */
   const holdPeaks = (committed: Float64Array): void => {
     for (let li = 0; li < layerCount; li++) {
       const v = committed[layerAt[li]! + 2]!;
