@@ -21,7 +21,9 @@ export function baseLayout(yTitle: string, axis: TimeAxis, extra: Partial<Layout
     plot_bgcolor: '#ffffff',
     xaxis: xAxisLayout(axis),
     yaxis: { title: { text: yTitle }, zeroline: false, gridcolor: '#e4e8ec' },
-    legend: { orientation: 'h', y: -0.18, x: 0 },
+    // at the figure's bottom edge, with the time axis's title pushed clear of its ticks (time-axis.ts automargin):
+    // a legend placed at a share of the plot's height lay over the title on the short margin chart
+    legend: { orientation: 'h', x: 0, y: 0, yref: 'container', yanchor: 'bottom' },
     ...extra,
   };
 }

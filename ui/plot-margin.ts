@@ -60,9 +60,6 @@ export function marginFigure(r: ShownResult): Figure {
       xaxis: xAxisLayout(axis),
       yaxis: { title: { text: `${verdictTerms.margin_K.term}, K` }, zeroline: false, gridcolor: '#e4e8ec', rangemode: 'tozero' },
       margin: { l: 64, r: 24, t: 28, b: 48 },
-      // the legend sits below the axis title at a share of the plot's height: this chart is short (.chart.short,
-      // 260 px, a 184 px plot), where the shared −0.18 (55 px on a 380 px chart) put it over the title
-      legend: { orientation: 'h', x: 0, y: -0.3 },
       shapes, annotations,
     }),
   };

@@ -39,7 +39,7 @@ export const hoverTime = (a: TimeAxis, x = '%{x'): string => (a.unit === 'min' ?
 /** Plotly x-axis settings: title with unit, hover format, and the unified hover header with the unit. */
 export function xAxisLayout(a: TimeAxis, extra: Partial<LayoutAxis> = {}): Partial<LayoutAxis> {
   return {
-    title: { text: a.title }, zeroline: false, gridcolor: '#e4e8ec',
+    title: { text: a.title }, automargin: true, zeroline: false, gridcolor: '#e4e8ec',
     hoverformat: a.unit === 'min' ? '.2f' : '.1f',
     ...({ unifiedhovertitle: { text: `${a.offsetS > 0 ? 'after heat off, ' : ''}${hoverTime(a)}` } } as Partial<LayoutAxis>),
     ...extra,
